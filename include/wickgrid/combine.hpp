@@ -1,0 +1,34 @@
+#pragma once
+#include <cstddef>
+#include <vector>
+// Combining vertical and radial flow, and averaging the radial degree over the drain length.
+
+namespace wickgrid {
+
+// Carrillo (1942): 1 − U = (1 − Uv)(1 − Ur), for degrees in [0, 1].
+double carrillo(double uv, double ur);
+
+// Equal-strain radial degree averaged over the drain length: the mean over z in [0, l] of
+// 1 − exp(−8·Th/μ(z)), μ(z) = μs + w·z·(2l − z), w = π·kh/qw (Hansbo 1981), by Gauss–Legendre in z.
+// l is the length from the nearest outlet (the drain length with one outlet, half of it with two).
+double degree_radial_depth_averaged(double th, double mu_smear, double well_per_m2, double l_m);
+
+// The same average as a rule built once for a drain (μs, w, l fixed) and evaluated at many Th:
+// nodes graded towards the outlet, where μ(z) has a complex pole close to z = 0 when well
+// resistance dominates smear (w·l² ≫ μs); 20 Gauss–Legendre nodes per panel.
+class DepthAverageRule {
+public:
+    DepthAverageRule(double mu_smear, double well_per_m2, double l_m);
+    double degree(double th) const;  // no validation or allocation: Th >= 0 is the caller's duty
+    std::size_t nodes() const noexcept { return weight_.size(); }
+
+private:
+    std::vector<double> eight_over_mu_;
+    std::vector<double> weight_;
+};
+
+// Mean of μ(z) over [0, l]: μs + w·2l²/3 (reported beside the degree; the degree itself averages
+// Ur(z), not μ).
+double mu_depth_mean(double mu_smear, double well_per_m2, double l_m);
+
+}  // namespace wickgrid

@@ -1,0 +1,28 @@
+#pragma once
+// One-dimensional (vertical) consolidation: Terzaghi's average degree and its inverse.
+
+namespace wickgrid {
+
+enum class VerticalDrainage { both_faces, top_only, bottom_only };
+
+// Longest drainage path d: the layer thickness H for one drained face, H/2 for two (common practice).
+double drainage_path_m(double thickness_m, VerticalDrainage drainage);
+
+// Time factor c·t/d² for a coefficient of consolidation c (m²/s), time t (s) and length d (m).
+double time_factor(double c_m2_per_s, double time_s, double length_m);
+
+// Average degree of vertical consolidation Uv(Tv) for a uniform initial excess pore pressure,
+// Tv >= 0, accurate to about 1e-15 absolute.
+double degree_vertical(double tv);
+
+// Inverse: the time factor Tv at which Uv is reached, 0 < Uv < 1.
+double time_factor_vertical(double uv);
+
+namespace terzaghi {
+// The two convergent representations behind degree_vertical, exposed so that checks can compare
+// them where both converge. Each sums terms until they no longer change the result.
+double degree_short_time(double tv);  // error-function (image) series, fast for small Tv
+double degree_fourier(double tv);     // Fourier series, fast for large Tv
+}  // namespace terzaghi
+
+}  // namespace wickgrid

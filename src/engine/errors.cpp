@@ -1,0 +1,62 @@
+#include "wickgrid/errors.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+namespace wickgrid {
+
+namespace {
+std::string message(const std::string& quantity, double value, const std::string& allowed) {
+    return quantity + " = " + format_value(value) + " is not allowed: it must be " + allowed;
+}
+}  // namespace
+
+InputError::InputError(std::string quantity, double value, std::string allowed)
+    : std::invalid_argument(message(quantity, value, allowed)),
+      quantity_(std::move(quantity)),
+      value_(value),
+      allowed_(std::move(allowed)) {}
+
+std::string format_value(double value) {
+    if (std::isnan(value)) return "nan";
+    if (std::isinf(value)) return value > 0 ? "inf" : "-inf";
+    char buffer[32];
+    std::snprintf(buffer, sizeof buffer, "%.6g", value);
+    return buffer;
+}
+
+void require_finite(std::string_view quantity, double value) {
+    if (!std::isfinite(value)) throw InputError(std::string(quantity), value, "a finite number");
+}
+
+void require_positive(std::string_view quantity, double value) {
+    if (!(std::isfinite(value) && value > 0.0))
+        throw InputError(std::string(quantity), value, "a finite number greater than 0");
+}
+
+void require_non_negative(std::string_view quantity, double value) {
+    if (!(std::isfinite(value) && value >= 0.0))
+        throw InputError(std::string(quantity), value, "a finite number of at least 0");
+}
+
+void require_open_unit(std::string_view quantity, double value) {
+    if (!(value > 0.0 && value < 1.0))
+        throw InputError(std::string(quantity), value, "between 0 and 1, both excluded");
+}
+
+void require_greater(std::string_view quantity, double value, double lower, std::string_view allowed) {
+    if (!(std::isfinite(value) && value > lower))
+        throw InputError(std::string(quantity), value, std::string(allowed));
+}
+
+void require_at_least(std::string_view quantity, double value, double lower, std::string_view allowed) {
+    if (!(std::isfinite(value) && value >= lower))
+        throw InputError(std::string(quantity), value, std::string(allowed));
+}
+
+void require_less(std::string_view quantity, double value, double upper, std::string_view allowed) {
+    if (!(std::isfinite(value) && value < upper))
+        throw InputError(std::string(quantity), value, std::string(allowed));
+}
+
+}  // namespace wickgrid
