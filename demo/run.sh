@@ -1,0 +1,12 @@
+#!/usr/bin/env bash
+# The main job on the bundled demo: install what is missing, build, design, write the report.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+bash scripts/install-deps.sh
+cmake -S . -B build/release -G Ninja -DCMAKE_BUILD_TYPE=Release
+cmake --build build/release -j "$(nproc)" --target wickgrid
+status=0
+./build/release/wickgrid design demo/scenario.yaml --out demo-output || status=$?
+echo
+echo "Design note, JSON and CSV written to demo-output/ (design.md, design.json, design.csv)."
+exit "$status"

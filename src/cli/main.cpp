@@ -1,0 +1,73 @@
+// wickgrid: command-line entry point.
+#include <spdlog/sinks/stdout_color_sinks.h>
+#include <spdlog/spdlog.h>
+
+#include <cstdio>
+#include <iostream>
+
+#include "commands.hpp"
+#include "report/atomic_file.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/errors.hpp"
+
+namespace {
+void setup_logging(int verbosity, bool quiet) {
+    auto logger = spdlog::stderr_color_mt("wickgrid");
+    logger->set_pattern("wickgrid: %l: %v");
+    logger->set_level(quiet ? spdlog::level::err
+                            : verbosity >= 2 ? spdlog::level::debug
+                            : verbosity == 1 ? spdlog::level::info
+                                             : spdlog::level::warn);
+    spdlog::set_default_logger(logger);
+}
+
+void report_error(const std::string& text) { std::fprintf(stderr, "wickgrid: error: %s\n", text.c_str()); }
+}  // namespace
+
+int main(int argc, char** argv) {
+    using namespace wickgrid;
+    CLI::App app{"wickgrid: prefabricated vertical drain grid design for soft clay.\n"
+                 "Finds, for each drain product and pattern, the largest spacing that reaches the target "
+                 "degree of consolidation by the deadline."};
+    app.require_subcommand(1);
+    int verbosity = 0;
+    bool quiet = false;
+    app.add_flag("-v,--verbose", verbosity, "More log messages on stderr (repeat for debug)");
+    app.add_flag("-q,--quiet", quiet, "Only errors on stderr");
+    app.set_version_flag("--version", "wickgrid 0.1.0");
+    const cli::Runner check = cli::add_check(app);
+    const cli::Runner design = cli::add_design(app);
+    const cli::Runner curve = cli::add_curve(app);
+    try {
+        app.parse(argc, argv);
+    } catch (const CLI::CallForHelp& e) {
+        return app.exit(e);
+    } catch (const CLI::CallForAllHelp& e) {
+        return app.exit(e);
+    } catch (const CLI::CallForVersion& e) {
+        return app.exit(e);
+    } catch (const CLI::ParseError& e) {
+        report_error(e.what());
+        std::fprintf(stderr, "Run 'wickgrid --help' or 'wickgrid COMMAND --help' for usage.\n");
+        return cli::bad_input;
+    }
+    setup_logging(verbosity, quiet);
+    try {
+        if (app.got_subcommand("check")) return check();
+        if (app.got_subcommand("design")) return design();
+        if (app.got_subcommand("curve")) return curve();
+    } catch (const scenario::ScenarioError& e) {
+        report_error(e.mark().line > 0 ? e.what() : e.file() + ": " + e.message());
+        return cli::bad_input;
+    } catch (const InputError& e) {
+        report_error(e.what());
+        return cli::bad_input;
+    } catch (const report::OutputError& e) {
+        report_error(e.what());
+        return cli::output_failed;
+    } catch (const std::exception& e) {
+        report_error(std::string("unexpected failure: ") + e.what());
+        return cli::internal_error;
+    }
+    return cli::internal_error;
+}

@@ -1,0 +1,91 @@
+// The design study: largest-spacing search per product and pattern, rounding and ranking.
+#include <algorithm>
+#include <cmath>
+
+#include "wickgrid/design.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/units.hpp"
+
+namespace wickgrid {
+
+bool DesignResult::any_feasible() const {
+    return std::any_of(rows.begin(), rows.end(), [](const DesignRow& r) { return r.feasible; });
+}
+
+CellSpec product_cell(const DesignInput& input, const DrainProductSpec& product, Pattern pattern,
+                      double spacing_m) {
+    CellSpec spec;
+    spec.clay = input.clay;
+    spec.drain = input.installation;
+    spec.drain.equivalent_diameter_m = product.equivalent_diameter_m;
+    spec.drain.discharge_capacity_m3_per_s = product.discharge_capacity_m3_per_s;
+    spec.drain.smear_diameter_m = input.smear_diameter_ratio * input.mandrel_diameter_m;
+    spec.pattern = pattern;
+    spec.spacing_m = spacing_m;
+    return spec;
+}
+
+double round_down_spacing(double limit_m, double increment_m, double minimum_m) {
+    require_positive("spacing increment (m)", increment_m);
+    // A hair of tolerance keeps 1.7 from becoming 1.65 through 1.6999999999.
+    const double steps = std::floor(limit_m / increment_m + 1e-9);
+    return std::max(minimum_m, steps * increment_m);
+}
+
+namespace {
+DesignRow evaluate(const DesignInput& input, const DrainProductSpec& product, Pattern pattern) {
+    DesignRow row;
+    row.drain = product.name;
+    row.pattern = pattern;
+    const CellSpec base = product_cell(input, product, pattern, input.bounds.min_m);
+    const SpacingLimit limit = largest_spacing(base, input.target_degree, input.deadline_s, input.bounds);
+    row.feasible = limit.feasible;
+    row.limited_by_maximum = limit.at_maximum;
+    row.spacing_limit_m = limit.spacing_m;
+    row.spacing_m = limit.feasible
+                        ? round_down_spacing(limit.spacing_m, input.increment_m, input.bounds.min_m)
+                        : input.bounds.min_m;
+    CellSpec chosen = base;
+    chosen.spacing_m = row.spacing_m;
+    const UnitCell cell(chosen);
+    row.equivalent_diameter_m = chosen.drain.equivalent_diameter_m;
+    row.smear_diameter_m = chosen.drain.smear_diameter_m;
+    row.influence_diameter_m = cell.influence_diameter_m();
+    row.n = cell.n();
+    row.s = cell.s();
+    row.mu_smear = cell.mu_smear();
+    row.mu = cell.mu_depth_mean();
+    row.at_deadline = cell.at(input.deadline_s);
+    row.time_to_target_s = time_to_degree_s(cell, input.target_degree);
+    row.drains_per_hectare = drains_per_hectare(pattern, row.spacing_m);
+    row.drain_length_per_hectare_m = row.drains_per_hectare * chosen.drain.length_m;
+    if (product.cost_per_m) row.cost_per_hectare = row.drain_length_per_hectare_m * *product.cost_per_m;
+    return row;
+}
+}  // namespace
+
+DesignResult run_design(const DesignInput& input) {
+    require_open_unit("target degree of consolidation", input.target_degree);
+    require_positive("deadline (s)", input.deadline_s);
+    DesignResult result;
+    for (const auto& product : input.products)
+        for (const Pattern pattern : input.patterns) result.rows.push_back(evaluate(input, product, pattern));
+
+    // Cheapest first when every feasible row has a cost; otherwise fewest drain metres.
+    std::vector<DesignRow*> feasible;
+    for (auto& row : result.rows)
+        if (row.feasible) feasible.push_back(&row);
+    const bool all_costed = !feasible.empty() &&
+                            std::all_of(feasible.begin(), feasible.end(),
+                                        [](const DesignRow* r) { return r->cost_per_hectare.has_value(); });
+    result.ranking = all_costed ? RankingBasis::cost_per_hectare : RankingBasis::drain_length_per_hectare;
+    std::stable_sort(feasible.begin(), feasible.end(), [&](const DesignRow* a, const DesignRow* b) {
+        if (all_costed && *a->cost_per_hectare != *b->cost_per_hectare)
+            return *a->cost_per_hectare < *b->cost_per_hectare;
+        return a->drain_length_per_hectare_m < b->drain_length_per_hectare_m;
+    });
+    for (std::size_t i = 0; i < feasible.size(); ++i) feasible[i]->rank = static_cast<int>(i) + 1;
+    return result;
+}
+
+}  // namespace wickgrid

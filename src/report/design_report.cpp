@@ -1,0 +1,329 @@
+#include "design_report.hpp"
+
+#include <cstdio>
+#include <sstream>
+
+#include "wickgrid/units.hpp"
+
+namespace wickgrid::report {
+
+const char* const cautions[4] = {
+    "Results are estimates from idealised theory (uniform clay, equal-strain radial flow, linear "
+    "consolidation, instantaneous loading); real ground departs from it.",
+    "Every parameter (cv, ch, kh, mv, smear extent and permeability, discharge capacity after "
+    "installation) must come from site investigation and testing for this site.",
+    "Settlement and pore pressure monitoring during construction is required to confirm the "
+    "design and to adjust it.",
+    "Local codes, standards and the judgement of a licensed engineer govern over this output.",
+};
+
+std::string fixed(double value, int decimals) {
+    char buffer[64];
+    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
+    return buffer;
+}
+
+namespace {
+using nlohmann::json;
+
+double days(double seconds) { return units::seconds_to_days(seconds); }
+
+std::string ranking_name(RankingBasis basis) {
+    return basis == RankingBasis::cost_per_hectare ? "cost_per_hectare" : "drain_length_per_hectare";
+}
+
+const DesignRow* best_row(const DesignResult& result) {
+    for (const auto& row : result.rows)
+        if (row.rank && *row.rank == 1) return &row;
+    return nullptr;
+}
+
+std::string escape_csv(const std::string& text) {
+    if (text.find_first_of(",\"\n") == std::string::npos) return text;
+    std::string out = "\"";
+    for (char c : text) out += c == '"' ? std::string("\"\"") : std::string(1, c);
+    return out + "\"";
+}
+
+std::string pad(const std::string& text, std::size_t width, bool right) {
+    // Width in characters, not bytes: count UTF-8 lead bytes only.
+    std::size_t chars = 0;
+    for (unsigned char c : text) chars += (c & 0xC0) != 0x80;
+    const std::string fill(width > chars ? width - chars : 0, ' ');
+    return right ? fill + text : text + fill;
+}
+
+std::string table(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows,
+                  std::size_t left_columns = 2) {
+    std::vector<std::size_t> widths(header.size(), 0);
+    auto measure = [&](const std::vector<std::string>& r) {
+        for (std::size_t i = 0; i < r.size(); ++i) {
+            std::size_t chars = 0;
+            for (unsigned char c : r[i]) chars += (c & 0xC0) != 0x80;
+            widths[i] = std::max(widths[i], chars);
+        }
+    };
+    measure(header);
+    for (const auto& r : rows) measure(r);
+    std::ostringstream out;
+    auto line = [&](const std::vector<std::string>& r) {
+        for (std::size_t i = 0; i < r.size(); ++i) out << (i ? "  " : "") << pad(r[i], widths[i], i >= left_columns);
+        out << '\n';
+    };
+    line(header);
+    std::size_t total = 0;
+    for (auto w : widths) total += w + 2;
+    out << std::string(total - 2, '-') << '\n';
+    for (const auto& r : rows) line(r);
+    return out.str();
+}
+}  // namespace
+
+nlohmann::json design_json(const scenario::Scenario& s, const DesignResult& result) {
+    json designs = json::array();
+    for (const auto& r : result.rows) {
+        json row{{"drain", r.drain},
+                 {"pattern", std::string(to_string(r.pattern))},
+                 {"feasible", r.feasible},
+                 {"spacing_limit_m", r.feasible ? json(r.spacing_limit_m) : json(nullptr)},
+                 {"spacing_m", r.feasible ? json(r.spacing_m) : json(nullptr)},
+                 {"limited_by_max_spacing", r.limited_by_maximum},
+                 {"evaluated_spacing_m", r.spacing_m},
+                 {"equivalent_diameter_m", r.equivalent_diameter_m},
+                 {"smear_diameter_m", r.smear_diameter_m},
+                 {"influence_diameter_m", r.influence_diameter_m},
+                 {"n", r.n},
+                 {"s", r.s},
+                 {"mu_smear", r.mu_smear},
+                 {"mu", r.mu},
+                 {"degree_vertical", r.at_deadline.vertical},
+                 {"degree_radial", r.at_deadline.radial},
+                 {"degree", r.at_deadline.combined},
+                 {"time_to_target_days", days(r.time_to_target_s)},
+                 {"drains_per_hectare", r.drains_per_hectare},
+                 {"drain_length_per_hectare_m", r.drain_length_per_hectare_m},
+                 {"cost_per_hectare", r.cost_per_hectare ? json(*r.cost_per_hectare) : json(nullptr)},
+                 {"rank", r.rank ? json(*r.rank) : json(nullptr)}};
+        designs.push_back(std::move(row));
+    }
+    return json{{"schema", 1},
+                {"title", s.title},
+                {"scenario", s.file},
+                {"target", {{"degree", s.target_degree}, {"deadline_days", s.deadline_days}}},
+                {"radial_theory", std::string(scenario::to_string(s.radial_theory))},
+                {"smear_shape", std::string(scenario::to_string(s.smear_shape))},
+                {"ranking", ranking_name(result.ranking)},
+                {"any_feasible", result.any_feasible()},
+                {"designs", designs}};
+}
+
+std::string design_csv(const DesignResult& result) {
+    std::ostringstream out;
+    out << "drain,pattern,feasible,rank,spacing_limit_m,spacing_m,influence_diameter_m,n,s,mu,"
+           "degree_vertical,degree_radial,degree,time_to_target_days,drains_per_hectare,"
+           "drain_length_per_hectare_m,cost_per_hectare\n";
+    out.precision(10);
+    for (const auto& r : result.rows) {
+        out << escape_csv(r.drain) << ',' << to_string(r.pattern) << ',' << (r.feasible ? "true" : "false") << ','
+            << (r.rank ? std::to_string(*r.rank) : "") << ',';
+        if (r.feasible) out << r.spacing_limit_m << ',' << r.spacing_m;
+        else out << ',';
+        out << ',' << r.influence_diameter_m << ',' << r.n << ',' << r.s << ',' << r.mu << ','
+            << r.at_deadline.vertical << ',' << r.at_deadline.radial << ',' << r.at_deadline.combined << ','
+            << days(r.time_to_target_s) << ',' << r.drains_per_hectare << ',' << r.drain_length_per_hectare_m << ',';
+        if (r.cost_per_hectare) out << *r.cost_per_hectare;
+        out << '\n';
+    }
+    return out.str();
+}
+
+namespace {
+std::vector<std::vector<std::string>> result_rows(const DesignResult& result, bool with_cost) {
+    std::vector<std::vector<std::string>> rows;
+    for (const auto& r : result.rows) {
+        std::vector<std::string> row{
+            r.drain,
+            std::string(to_string(r.pattern)),
+            r.rank ? std::to_string(*r.rank) : "-",
+            r.feasible ? fixed(r.spacing_limit_m, 3) + (r.limited_by_maximum ? "+" : "") : "none",
+            fixed(r.spacing_m, 2) + (r.feasible ? "" : "*"),
+            fixed(r.influence_diameter_m, 3),
+            fixed(r.n, 1),
+            fixed(r.s, 2),
+            fixed(r.mu, 2),
+            fixed(100.0 * r.at_deadline.vertical, 1),
+            fixed(100.0 * r.at_deadline.radial, 1),
+            fixed(100.0 * r.at_deadline.combined, 1),
+            fixed(days(r.time_to_target_s), 1),
+            fixed(r.drains_per_hectare, 0),
+            fixed(r.drain_length_per_hectare_m, 0),
+        };
+        if (with_cost) row.push_back(r.cost_per_hectare ? fixed(*r.cost_per_hectare, 0) : "-");
+        rows.push_back(std::move(row));
+    }
+    return rows;
+}
+
+std::vector<std::string> result_header(bool with_cost) {
+    std::vector<std::string> h{"drain", "pattern", "rank", "limit m", "spacing m", "De m", "n", "s", "μ",
+                               "Uv %", "Ur %", "U %", "t90 days", "drains/ha", "drain m/ha"};
+    if (with_cost) h.push_back("cost/ha");
+    return h;
+}
+
+bool any_cost(const DesignResult& result) {
+    for (const auto& r : result.rows)
+        if (r.cost_per_hectare) return true;
+    return false;
+}
+
+std::string recommendation(const scenario::Scenario& s, const DesignResult& result) {
+    const DesignRow* best = best_row(result);
+    if (!best)
+        return "No drain product and pattern reaches U = " + fixed(100.0 * s.target_degree, 0) + " % by day " +
+               fixed(s.deadline_days, 0) + " within spacings of " + fixed(s.spacing.min_m, 2) + "–" +
+               fixed(s.spacing.max_m, 2) + " m. Rows marked * give the degree reached at the minimum spacing "
+               "and the time that spacing would need.";
+    std::string text = "Recommended: drain " + best->drain + " in a " + std::string(to_string(best->pattern)) +
+                       " pattern at " + fixed(best->spacing_m, 2) + " m spacing (" +
+                       (result.ranking == RankingBasis::cost_per_hectare ? "lowest cost per hectare"
+                                                                          : "fewest drain metres per hectare") +
+                       "), reaching U = " + fixed(100.0 * best->at_deadline.combined, 1) + " % at day " +
+                       fixed(s.deadline_days, 0) + " and the target at day " +
+                       fixed(days(best->time_to_target_s), 1) + ".";
+    if (best->limited_by_maximum)
+        text += " The target is met even at the largest spacing considered; a wider spacing may also work.";
+    return text;
+}
+
+std::string target_label(const scenario::Scenario& s) {
+    return "t" + fixed(100.0 * s.target_degree, 0);
+}
+}  // namespace
+
+std::string design_table(const scenario::Scenario& s, const DesignResult& result) {
+    std::ostringstream out;
+    out << s.title << "\n";
+    out << "target U = " << fixed(100.0 * s.target_degree, 1) << " % by day " << fixed(s.deadline_days, 0)
+        << "; spacings " << fixed(s.spacing.min_m, 2) << "–" << fixed(s.spacing.max_m, 2) << " m in steps of "
+        << fixed(s.increment_m, 2) << " m\n\n";
+    auto header = result_header(any_cost(result));
+    header[12] = target_label(s) + " days";
+    out << table(header, result_rows(result, any_cost(result)));
+    out << "\nDegrees are at the deadline at the chosen spacing; " << target_label(s)
+        << " is the time to the target there. '+' marks a limit capped at the largest spacing; '*' an "
+           "infeasible row evaluated at the minimum spacing.\n";
+    out << recommendation(s, result) << "\n";
+    out << "Estimates from idealised theory: confirm parameters by site investigation and by monitoring.\n";
+    return out.str();
+}
+
+std::string design_markdown(const scenario::Scenario& s, const DesignResult& result) {
+    std::ostringstream out;
+    const bool with_cost = any_cost(result);
+    out << "# Vertical drain design note: " << s.title << "\n\n";
+    out << "Scenario file: `" << s.file << "`. Produced by wickgrid " << "0.1.0" << ".\n\n";
+    out << "## Result\n\n" << recommendation(s, result) << "\n\n";
+    out << "## Inputs\n\n| quantity | value |\n|---|---|\n";
+    out << "| target average degree of consolidation | " << fixed(100.0 * s.target_degree, 1) << " % |\n";
+    out << "| deadline from the start of loading | " << fixed(s.deadline_days, 0) << " days |\n";
+    out << "| clay thickness | " << fixed(s.clay.thickness_m, 2) << " m |\n";
+    out << "| vertical drainage | " << scenario::to_string(s.clay.drainage) << " |\n";
+    out << "| cv | " << fixed(units::per_second_to_per_year(s.clay.cv_m2_per_s), 3) << " m²/year |\n";
+    out << "| ch | " << fixed(units::per_second_to_per_year(s.clay.ch_m2_per_s), 3) << " m²/year |\n";
+    char kh[32];
+    std::snprintf(kh, sizeof kh, "%.3e", s.clay.kh_m_per_s);
+    out << "| kh | " << kh << " m/s" << (s.kh_given ? "" : " (from ch·mv·γw)") << " |\n";
+    out << "| drain length | " << fixed(s.drain_length_m, 2) << " m, outlets: " << scenario::to_string(s.outlets)
+        << " |\n";
+    out << "| mandrel equivalent diameter dm | " << fixed(s.mandrel_diameter_m * 1000.0, 1) << " mm |\n";
+    out << "| smear zone | ds = " << fixed(s.smear_diameter_ratio, 2) << " × dm = "
+        << fixed(s.smear_diameter_ratio * s.mandrel_diameter_m * 1000.0, 1) << " mm, kh/ks = "
+        << fixed(s.smear_permeability_ratio, 2) << ", profile " << scenario::to_string(s.smear_shape) << " |\n";
+    out << "| radial theory | " << scenario::to_string(s.radial_theory) << " |\n";
+    out << "| spacings considered | " << fixed(s.spacing.min_m, 2) << "–" << fixed(s.spacing.max_m, 2)
+        << " m, rounded down to " << fixed(s.increment_m, 2) << " m |\n\n";
+    out << "| drain | dw (mm) | from | qw (m³/year) | cost per m |\n|---|---|---|---|---|\n";
+    for (const auto& d : s.drains)
+        out << "| " << d.name << " | " << fixed(d.equivalent_diameter_m * 1000.0, 1) << " | "
+            << (d.method ? std::string(to_string(*d.method)) : std::string("given")) << " | "
+            << fixed(units::per_second_to_per_year(d.discharge_capacity_m3_per_s), 1) << " | "
+            << (d.cost_per_m ? fixed(*d.cost_per_m, 2) : std::string("-")) << " |\n";
+    out << "\n## Results\n\n";
+    auto header = result_header(with_cost);
+    header[12] = target_label(s) + " days";
+    out << "|";
+    for (const auto& h : header) out << ' ' << h << " |";
+    out << "\n|";
+    for (std::size_t i = 0; i < header.size(); ++i) out << "---|";
+    out << '\n';
+    for (const auto& row : result_rows(result, with_cost)) {
+        out << "|";
+        for (const auto& cell : row) out << ' ' << cell << " |";
+        out << '\n';
+    }
+    out << "\nDegrees (Uv vertical, Ur radial, U combined) are at the deadline at the chosen spacing. "
+           "Ranked by "
+        << (result.ranking == RankingBasis::cost_per_hectare ? "cost per hectare" : "drain metres per hectare")
+        << ". '+' marks a limit capped at the largest spacing considered; '*' an infeasible row, evaluated at "
+           "the minimum spacing.\n\n";
+    out << "## Method and sources\n\n"
+           "- Vertical flow: Terzaghi (1925), average degree Uv(Tv), Tv = cv·t/d², d = H (one drained face) or "
+           "H/2 (two).\n"
+           "- Radial flow: Hansbo (1981), Ur = 1 − exp(−8Th/μ), Th = ch·t/De², with smear "
+           "(ln(n/s) + (kh/ks)·ln s − 0.75) and well resistance π·z(2l − z)·kh/qw; for other smear profiles "
+           "the equal-strain integral (profile shapes after Walker & Indraratna 2006); Barron (1948) for the "
+           "ideal drain.\n"
+           "- Well resistance: the radial degree is the mean of the local degree Ur(z) over the drain, with z "
+           "from the nearest outlet (Gauss–Legendre quadrature).\n"
+           "- Combination: Carrillo (1942), 1 − U = (1 − Uv)(1 − Ur).\n"
+           "- Equivalent drain diameter: Hansbo (1979) 2(a+b)/π, Rixner et al. (1986) (a+b)/2 or Long & Covo "
+           "(1994) 0.5a + 0.7b; mandrel by equal area; influence diameter 1.05 s (triangular) or 1.128 s "
+           "(square), Barron (1948).\n"
+           "- kh = ch·mv·γw (γw = 9.81 kN/m³) where kh is not given.\n"
+           "- Limiting spacing: the largest spacing at which U reaches the target at the deadline, solved with "
+           "TOMS 748 (Alefeld, Potra & Shi 1995); the chosen spacing is rounded down to the increment.\n\n";
+    out << "## Assumptions\n\nInstantaneous loading at day 0; one uniform clay layer; drains fully penetrating "
+           "the clay; equal-strain radial flow; linear, small-strain consolidation with constant coefficients; "
+           "no secondary compression.\n\n";
+    out << "## Cautions\n\n";
+    for (const char* c : cautions) out << "- " << c << "\n";
+    return out.str();
+}
+
+nlohmann::json curve_json(const CurveReport& curve) {
+    json points = json::array();
+    for (const auto& p : curve.points)
+        points.push_back({{"time_days", days(p.time_s)},
+                          {"degree_vertical", p.degrees.vertical},
+                          {"degree_radial", p.degrees.radial},
+                          {"degree", p.degrees.combined}});
+    return json{{"drain", curve.drain},
+                {"pattern", std::string(to_string(curve.pattern))},
+                {"spacing_m", curve.spacing_m},
+                {"points", points}};
+}
+
+std::string curve_csv(const CurveReport& curve) {
+    std::ostringstream out;
+    out.precision(10);
+    out << "time_days,degree_vertical,degree_radial,degree\n";
+    for (const auto& p : curve.points)
+        out << days(p.time_s) << ',' << p.degrees.vertical << ',' << p.degrees.radial << ',' << p.degrees.combined
+            << '\n';
+    return out.str();
+}
+
+std::string curve_table(const CurveReport& curve) {
+    std::vector<std::vector<std::string>> rows;
+    for (const auto& p : curve.points)
+        rows.push_back({fixed(days(p.time_s), 1), fixed(100.0 * p.degrees.vertical, 2),
+                        fixed(100.0 * p.degrees.radial, 2), fixed(100.0 * p.degrees.combined, 2)});
+    std::ostringstream out;
+    out << "drain " << curve.drain << ", " << to_string(curve.pattern) << " pattern at " << fixed(curve.spacing_m, 3)
+        << " m\n\n";
+    out << table({"day", "Uv %", "Ur %", "U %"}, rows, 0);
+    return out.str();
+}
+
+}  // namespace wickgrid::report

@@ -1,0 +1,451 @@
+// Scenario files (YAML, schema 1) → Scenario, with every error located in the file.
+#include <yaml-cpp/yaml.h>
+
+#include <cmath>
+#include <fstream>
+#include <set>
+#include <sstream>
+
+#include "scenario.hpp"
+#include "suggest.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/permeability.hpp"
+#include "wickgrid/units.hpp"
+
+namespace wickgrid::scenario {
+
+ScenarioError::ScenarioError(std::string file, Mark mark, std::string key_path, std::string message)
+    : std::runtime_error(file + ":" + std::to_string(mark.line) + ":" + std::to_string(mark.column) + ": " +
+                         (key_path.empty() ? std::string() : key_path + ": ") + message),
+      file_(std::move(file)),
+      mark_(mark),
+      key_path_(std::move(key_path)),
+      message_(std::move(message)) {}
+
+std::string_view to_string(SmearShape shape) {
+    switch (shape) {
+        case SmearShape::constant: return "constant";
+        case SmearShape::linear: return "linear";
+        case SmearShape::parabolic: return "parabolic";
+    }
+    return "constant";
+}
+std::string_view to_string(RadialTheory theory) {
+    return theory == RadialTheory::hansbo_1981 ? "hansbo_1981" : "equal_strain_integral";
+}
+std::string_view to_string(VerticalDrainage drainage) {
+    switch (drainage) {
+        case VerticalDrainage::both_faces: return "both_faces";
+        case VerticalDrainage::top_only: return "top_only";
+        case VerticalDrainage::bottom_only: return "bottom_only";
+    }
+    return "both_faces";
+}
+std::string_view to_string(DrainOutlets outlets) {
+    return outlets == DrainOutlets::top ? "top" : "top_and_bottom";
+}
+
+namespace {
+
+// Allowed range of a number, written out for the error message.
+struct Range {
+    double low;
+    bool low_inclusive;
+    double high;
+    bool high_inclusive;
+    const char* unit;
+
+    bool contains(double v) const {
+        const bool above = low_inclusive ? v >= low : v > low;
+        const bool below = high_inclusive ? v <= high : v < high;
+        return std::isfinite(v) && above && below;
+    }
+    std::string describe() const {
+        std::string text;
+        const bool bounded_above = std::isfinite(high);
+        if (bounded_above)
+            text = "between " + format_value(low) + " and " + format_value(high) +
+                   (low_inclusive == high_inclusive
+                        ? (low_inclusive ? ", both included" : ", both excluded")
+                        : (low_inclusive ? " (" + format_value(high) + " excluded)"
+                                         : " (" + format_value(low) + " excluded)"));
+        else
+            text = (low_inclusive ? "at least " : "greater than ") + format_value(low);
+        if (*unit) text += std::string(" ") + unit;
+        return text;
+    }
+};
+
+constexpr double inf = std::numeric_limits<double>::infinity();
+constexpr Range positive(const char* unit) { return {0.0, false, inf, false, unit}; }
+constexpr Range non_negative(const char* unit) { return {0.0, true, inf, false, unit}; }
+
+Mark mark_of(const YAML::Node& node) {
+    const YAML::Mark m = node.Mark();
+    if (m.is_null()) return {0, 0};
+    return {m.line + 1, m.column + 1};
+}
+
+class Reader {
+public:
+    Reader(std::string file, std::map<std::string, Mark>& marks) : file_(std::move(file)), marks_(marks) {}
+
+    [[noreturn]] void fail(const YAML::Node& node, const std::string& path, const std::string& message) const {
+        throw ScenarioError(file_, mark_of(node), path, message);
+    }
+    [[noreturn]] void fail_at(Mark mark, const std::string& path, const std::string& message) const {
+        throw ScenarioError(file_, mark, path, message);
+    }
+
+    void expect_map(const YAML::Node& node, const std::string& path) const {
+        if (!node.IsMap()) fail(node, path, "must be a mapping of keys to values");
+    }
+
+    // Unknown and repeated keys are errors; the message suggests the nearest known key.
+    void allow_keys(const YAML::Node& map, const std::string& path, const std::vector<std::string>& keys) const {
+        std::set<std::string> seen;
+        for (auto it = map.begin(); it != map.end(); ++it) {
+            const std::string key = it->first.as<std::string>();
+            const std::string where = join(path, key);
+            if (!seen.insert(key).second) fail(it->first, where, "key given twice");
+            if (std::find(keys.begin(), keys.end(), key) != keys.end()) continue;
+            std::string message = "unknown key '" + key + "'";
+            if (auto best = closest(key, keys)) message += "; did you mean '" + *best + "'?";
+            else message += "; allowed here: " + list(keys);
+            fail(it->first, where, message);
+        }
+    }
+
+    YAML::Node required(const YAML::Node& map, const std::string& path, const std::string& key) const {
+        const YAML::Node node = map[key];
+        if (!node) fail(map, join(path, key), "missing key '" + key + "'" + (path.empty() ? "" : " in '" + path + "'"));
+        remember(join(path, key), node);
+        return node;
+    }
+
+    double number(const YAML::Node& node, const std::string& path, const Range& range) const {
+        remember(path, node);
+        if (!node.IsScalar()) fail(node, path, "must be a number, " + range.describe());
+        double value = 0.0;
+        try {
+            value = node.as<double>();
+        } catch (const YAML::BadConversion&) {
+            fail(node, path, "'" + node.Scalar() + "' is not a number; it must be " + range.describe());
+        }
+        if (!range.contains(value))
+            fail(node, path, format_value(value) + " is not allowed: it must be " + range.describe());
+        return value;
+    }
+
+    double number(const YAML::Node& map, const std::string& path, const std::string& key, const Range& range) const {
+        return number(required(map, path, key), join(path, key), range);
+    }
+
+    std::optional<double> optional_number(const YAML::Node& map, const std::string& path, const std::string& key,
+                                          const Range& range) const {
+        if (!map[key]) return std::nullopt;
+        return number(map[key], join(path, key), range);
+    }
+
+    std::string text(const YAML::Node& node, const std::string& path) const {
+        remember(path, node);
+        if (!node.IsScalar() || node.Scalar().empty()) fail(node, path, "must be a non-empty text");
+        return node.Scalar();
+    }
+
+    // One of a fixed set of names; returns its index.
+    std::size_t choice(const YAML::Node& node, const std::string& path, const std::vector<std::string>& names) const {
+        remember(path, node);
+        if (!node.IsScalar()) fail(node, path, "must be one of " + list(names));
+        const std::string value = node.Scalar();
+        for (std::size_t i = 0; i < names.size(); ++i)
+            if (names[i] == value) return i;
+        std::string message = "'" + value + "' is not allowed: it must be one of " + list(names);
+        if (auto best = closest(value, names)) message += "; did you mean '" + *best + "'?";
+        fail(node, path, message);
+    }
+
+    void remember(const std::string& path, const YAML::Node& node) const { marks_[path] = mark_of(node); }
+
+    static std::string join(const std::string& path, const std::string& key) {
+        return path.empty() ? key : path + "." + key;
+    }
+    static std::string list(const std::vector<std::string>& names) {
+        std::string out;
+        for (std::size_t i = 0; i < names.size(); ++i) out += (i ? ", " : "") + names[i];
+        return out;
+    }
+    const std::string& file() const { return file_; }
+
+private:
+    std::string file_;
+    std::map<std::string, Mark>& marks_;
+};
+
+const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "drains", "drain_length_m",
+                                        "drain_outlets", "installation", "patterns", "spacing"};
+const std::vector<std::string> drainage_names{"both_faces", "top_only", "bottom_only"};
+const std::vector<std::string> outlet_names{"top", "top_and_bottom"};
+const std::vector<std::string> method_names{"hansbo_1979", "rixner_1986", "long_covo_1994"};
+const std::vector<std::string> pattern_names{"triangular", "square"};
+const std::vector<std::string> shape_names{"constant", "linear", "parabolic"};
+const std::vector<std::string> theory_names{"hansbo_1981", "equal_strain_integral"};
+
+void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
+    const YAML::Node node = r.required(root, "", "target");
+    r.expect_map(node, "target");
+    r.allow_keys(node, "target", {"degree", "deadline_days"});
+    s.target_degree = r.number(node, "target", "degree", {0.0, false, 1.0, false, ""});
+    s.deadline_days = r.number(node, "target", "deadline_days", positive("days"));
+}
+
+void read_clay(const Reader& r, const YAML::Node& root, Scenario& s) {
+    const YAML::Node node = r.required(root, "", "clay");
+    r.expect_map(node, "clay");
+    r.allow_keys(node, "clay", {"thickness_m", "cv_m2_per_year", "ch_m2_per_year", "mv_m2_per_kN", "kh_m_per_s",
+                                "vertical_drainage"});
+    s.clay.thickness_m = r.number(node, "clay", "thickness_m", positive("m"));
+    s.clay.cv_m2_per_s = units::per_year_to_per_second(r.number(node, "clay", "cv_m2_per_year", positive("m²/year")));
+    s.clay.ch_m2_per_s = units::per_year_to_per_second(r.number(node, "clay", "ch_m2_per_year", positive("m²/year")));
+    s.mv_m2_per_kN = r.optional_number(node, "clay", "mv_m2_per_kN", positive("m²/kN"));
+    const auto kh = r.optional_number(node, "clay", "kh_m_per_s", positive("m/s"));
+    if (!kh && !s.mv_m2_per_kN)
+        r.fail(node, "clay", "missing key 'mv_m2_per_kN' or 'kh_m_per_s' in 'clay' (one is needed for kh)");
+    s.kh_given = kh.has_value();
+    s.clay.kh_m_per_s = kh ? *kh : permeability_from_consolidation_m_per_s(s.clay.ch_m2_per_s, *s.mv_m2_per_kN);
+    s.clay.drainage = static_cast<VerticalDrainage>(
+        r.choice(r.required(node, "clay", "vertical_drainage"), "clay.vertical_drainage", drainage_names));
+}
+
+DrainEntry read_drain(const Reader& r, const YAML::Node& node, const std::string& path) {
+    r.expect_map(node, path);
+    r.allow_keys(node, path, {"name", "width_mm", "thickness_mm", "equivalent_diameter", "equivalent_diameter_mm",
+                              "discharge_capacity_m3_per_year", "cost_per_m"});
+    DrainEntry d;
+    d.name = r.text(r.required(node, path, "name"), path + ".name");
+    const auto width = r.optional_number(node, path, "width_mm", positive("mm"));
+    const auto thickness = r.optional_number(node, path, "thickness_mm", positive("mm"));
+    const auto diameter = r.optional_number(node, path, "equivalent_diameter_mm", positive("mm"));
+    if (width) d.width_m = units::mm_to_m(*width);
+    if (thickness) d.thickness_m = units::mm_to_m(*thickness);
+    if (diameter && node["equivalent_diameter"])
+        r.fail(node["equivalent_diameter"], path + ".equivalent_diameter",
+               "give either 'equivalent_diameter' (a method) or 'equivalent_diameter_mm' (a value), not both");
+    if (diameter) {
+        d.equivalent_diameter_m = units::mm_to_m(*diameter);
+    } else {
+        if (!width) r.required(node, path, "width_mm");
+        if (!thickness) r.required(node, path, "thickness_mm");
+        d.method = node["equivalent_diameter"]
+                       ? static_cast<EquivalentDiameterMethod>(
+                             r.choice(node["equivalent_diameter"], path + ".equivalent_diameter", method_names))
+                       : EquivalentDiameterMethod::hansbo_1979;
+        d.equivalent_diameter_m = band_drain_equivalent_diameter_m(*d.method, *d.width_m, *d.thickness_m);
+    }
+    d.discharge_capacity_m3_per_s = units::per_year_to_per_second(
+        r.number(node, path, "discharge_capacity_m3_per_year", positive("m³/year")));
+    d.cost_per_m = r.optional_number(node, path, "cost_per_m", non_negative("per metre"));
+    return d;
+}
+
+void read_drains(const Reader& r, const YAML::Node& root, Scenario& s) {
+    const YAML::Node node = r.required(root, "", "drains");
+    if (!node.IsSequence() || node.size() == 0)
+        r.fail(node, "drains", "must be a list of at least one drain product");
+    std::set<std::string> names;
+    for (std::size_t i = 0; i < node.size(); ++i) {
+        const std::string path = "drains[" + std::to_string(i) + "]";
+        DrainEntry d = read_drain(r, node[i], path);
+        if (!names.insert(d.name).second) r.fail(node[i]["name"], path + ".name", "drain name '" + d.name + "' is used twice");
+        s.drains.push_back(std::move(d));
+    }
+}
+
+void read_installation(const Reader& r, const YAML::Node& root, Scenario& s) {
+    const YAML::Node node = r.required(root, "", "installation");
+    const std::string p = "installation";
+    r.expect_map(node, p);
+    r.allow_keys(node, p, {"mandrel_width_mm", "mandrel_depth_mm", "mandrel_diameter_mm", "smear_diameter_ratio",
+                           "smear_permeability_ratio", "smear_shape", "radial_theory"});
+    const auto diameter = r.optional_number(node, p, "mandrel_diameter_mm", positive("mm"));
+    if (diameter) {
+        if (node["mandrel_width_mm"])
+            r.fail(node["mandrel_width_mm"], p + ".mandrel_width_mm",
+                   "give either 'mandrel_diameter_mm' or 'mandrel_width_mm' with 'mandrel_depth_mm', not both");
+        s.mandrel_diameter_m = units::mm_to_m(*diameter);
+    } else {
+        s.mandrel_width_m = units::mm_to_m(r.number(node, p, "mandrel_width_mm", positive("mm")));
+        s.mandrel_depth_m = units::mm_to_m(r.number(node, p, "mandrel_depth_mm", positive("mm")));
+        s.mandrel_diameter_m = mandrel_equivalent_diameter_m(*s.mandrel_width_m, *s.mandrel_depth_m);
+    }
+    s.smear_diameter_ratio = r.number(node, p, "smear_diameter_ratio", positive("(ds/dm)"));
+    s.smear_permeability_ratio =
+        r.number(node, p, "smear_permeability_ratio", {1.0, true, inf, false, "(kh/ks; 1 means no disturbance)"});
+    if (node["smear_shape"])
+        s.smear_shape = static_cast<SmearShape>(r.choice(node["smear_shape"], p + ".smear_shape", shape_names));
+    s.radial_theory = s.smear_shape == SmearShape::constant ? RadialTheory::hansbo_1981
+                                                            : RadialTheory::equal_strain_integral;
+    if (node["radial_theory"]) {
+        s.radial_theory = static_cast<RadialTheory>(r.choice(node["radial_theory"], p + ".radial_theory", theory_names));
+        if (s.radial_theory == RadialTheory::hansbo_1981 && s.smear_shape != SmearShape::constant)
+            r.fail(node["radial_theory"], p + ".radial_theory",
+                   "hansbo_1981 is the closed form for a constant smear zone; with smear_shape '" +
+                       std::string(to_string(s.smear_shape)) + "' use equal_strain_integral");
+    }
+}
+
+void read_patterns(const Reader& r, const YAML::Node& root, Scenario& s) {
+    if (!root["patterns"]) {
+        s.patterns = {Pattern::triangular, Pattern::square};
+        return;
+    }
+    const YAML::Node node = root["patterns"];
+    r.remember("patterns", node);
+    if (!node.IsSequence() || node.size() == 0) r.fail(node, "patterns", "must be a list of triangular and/or square");
+    for (std::size_t i = 0; i < node.size(); ++i) {
+        const std::string path = "patterns[" + std::to_string(i) + "]";
+        const auto p = static_cast<Pattern>(r.choice(node[i], path, pattern_names));
+        if (std::find(s.patterns.begin(), s.patterns.end(), p) != s.patterns.end())
+            r.fail(node[i], path, "pattern '" + std::string(to_string(p)) + "' is listed twice");
+        s.patterns.push_back(p);
+    }
+}
+
+void read_spacing(const Reader& r, const YAML::Node& root, Scenario& s) {
+    const YAML::Node node = r.required(root, "", "spacing");
+    r.expect_map(node, "spacing");
+    r.allow_keys(node, "spacing", {"min_m", "max_m", "increment_m"});
+    s.spacing.min_m = r.number(node, "spacing", "min_m", positive("m"));
+    s.spacing.max_m = r.number(node, "spacing", "max_m", {s.spacing.min_m, false, inf, false, "m (above min_m)"});
+    s.increment_m = r.optional_number(node, "spacing", "increment_m", positive("m")).value_or(0.05);
+    if (s.increment_m > s.spacing.max_m - s.spacing.min_m)
+        r.fail(node["increment_m"], "spacing.increment_m",
+               format_value(s.increment_m) + " is not allowed: it must be at most max_m − min_m = " +
+                   format_value(s.spacing.max_m - s.spacing.min_m) + " m");
+}
+
+// Physical checks that join several keys, reported at the key a user would change.
+void check_physics(const Reader& r, Scenario& s) {
+    if (std::fabs(s.drain_length_m - s.clay.thickness_m) > 1e-9 * s.clay.thickness_m)
+        r.fail_at(s.mark_of("drain_length_m"), "drain_length_m",
+                  format_value(s.drain_length_m) + " is not allowed: it must equal clay.thickness_m = " +
+                      format_value(s.clay.thickness_m) +
+                      " m (drains that stop short of the clay base are not supported yet)");
+    const double ds = s.smear_diameter_ratio * s.mandrel_diameter_m;
+    for (std::size_t i = 0; i < s.drains.size(); ++i) {
+        const auto& d = s.drains[i];
+        if (ds < d.equivalent_diameter_m)
+            r.fail_at(s.mark_of("installation.smear_diameter_ratio"), "installation.smear_diameter_ratio",
+                      format_value(s.smear_diameter_ratio) + " gives a smear zone of " + format_value(ds * 1000.0) +
+                          " mm, smaller than the equivalent diameter of drain '" + d.name + "' (" +
+                          format_value(d.equivalent_diameter_m * 1000.0) +
+                          " mm); it must be at least " + format_value(d.equivalent_diameter_m / s.mandrel_diameter_m));
+        for (const Pattern p : s.patterns) {
+            const double lowest = spacing_from_influence_diameter_m(p, ds);
+            if (s.spacing.min_m <= lowest)
+                r.fail_at(s.mark_of("spacing.min_m"), "spacing.min_m",
+                          format_value(s.spacing.min_m) + " is not allowed: it must be greater than " +
+                              format_value(lowest) + " m so that the smear zone (" + format_value(ds * 1000.0) +
+                              " mm) lies inside the unit cell of a " + std::string(to_string(p)) + " pattern");
+        }
+    }
+    // Every cell the search may build must be valid; the engine's own checks, located.
+    const DesignInput input = s.design_input();
+    for (std::size_t i = 0; i < input.products.size(); ++i)
+        for (const Pattern p : s.patterns)
+            for (const double spacing : {s.spacing.min_m, s.spacing.max_m}) {
+                try {
+                    UnitCell cell(product_cell(input, input.products[i], p, spacing));
+                } catch (const InputError& e) {
+                    const std::string key = spacing == s.spacing.min_m ? "spacing.min_m" : "spacing.max_m";
+                    r.fail_at(s.mark_of(key), key,
+                              std::string(e.what()) + " (drain '" + s.drains[i].name + "', " +
+                                  std::string(to_string(p)) + " pattern)");
+                }
+            }
+}
+
+Scenario read(const YAML::Node& root, const std::string& file) {
+    Scenario s;
+    s.file = file;
+    Reader r(file, s.marks);
+    if (!root || root.IsNull()) r.fail_at({1, 1}, "", "the file is empty; a scenario needs at least 'schema: 1'");
+    r.expect_map(root, "");
+    r.allow_keys(root, "", top_keys);
+    const double schema = r.number(root, "", "schema", {1.0, true, 1.0, true, ""});
+    (void)schema;
+    s.title = root["title"] ? r.text(root["title"], "title") : file;
+    read_target(r, root, s);
+    read_clay(r, root, s);
+    read_drains(r, root, s);
+    s.drain_length_m = r.optional_number(root, "", "drain_length_m", positive("m")).value_or(s.clay.thickness_m);
+    if (!root["drain_length_m"]) s.marks["drain_length_m"] = s.mark_of("clay.thickness_m");
+    if (root["drain_outlets"])
+        s.outlets = static_cast<DrainOutlets>(r.choice(root["drain_outlets"], "drain_outlets", outlet_names));
+    read_installation(r, root, s);
+    read_patterns(r, root, s);
+    read_spacing(r, root, s);
+    check_physics(r, s);
+    return s;
+}
+
+}  // namespace
+
+Mark Scenario::mark_of(const std::string& key_path) const {
+    const auto it = marks.find(key_path);
+    return it == marks.end() ? Mark{1, 1} : it->second;
+}
+
+const DrainEntry& Scenario::drain(const std::string& name) const {
+    for (const auto& d : drains)
+        if (d.name == name) return d;
+    std::vector<std::string> names;
+    for (const auto& d : drains) names.push_back(d.name);
+    std::string message = "no drain named '" + name + "'; the scenario lists " + Reader::list(names);
+    if (auto best = closest(name, names)) message += "; did you mean '" + *best + "'?";
+    throw ScenarioError(file, mark_of("drains"), "drains", message);
+}
+
+DesignInput Scenario::design_input() const {
+    DesignInput in;
+    in.clay = clay;
+    in.installation.smear_shape = smear_shape;
+    in.installation.smear_permeability_ratio = smear_permeability_ratio;
+    in.installation.length_m = drain_length_m;
+    in.installation.outlets = outlets;
+    in.installation.theory = radial_theory;
+    in.mandrel_diameter_m = mandrel_diameter_m;
+    in.smear_diameter_ratio = smear_diameter_ratio;
+    for (const auto& d : drains)
+        in.products.push_back({d.name, d.equivalent_diameter_m, d.discharge_capacity_m3_per_s, d.cost_per_m});
+    in.patterns = patterns;
+    in.target_degree = target_degree;
+    in.deadline_s = units::days_to_seconds(deadline_days);
+    in.bounds = spacing;
+    in.increment_m = increment_m;
+    return in;
+}
+
+Scenario parse_scenario(const std::string& text, const std::string& file_label) {
+    YAML::Node root;
+    try {
+        root = YAML::Load(text);
+    } catch (const YAML::ParserException& e) {
+        throw ScenarioError(file_label, {e.mark.line + 1, e.mark.column + 1}, "", "YAML syntax: " + e.msg);
+    }
+    try {
+        return read(root, file_label);
+    } catch (const YAML::Exception& e) {  // structure yaml-cpp could not convert
+        throw ScenarioError(file_label, {e.mark.line + 1, e.mark.column + 1}, "", e.msg);
+    }
+}
+
+Scenario load_scenario(const std::string& path) {
+    std::ifstream in(path, std::ios::binary);
+    if (!in) throw ScenarioError(path, {0, 0}, "", "cannot open the scenario file");
+    std::ostringstream text;
+    text << in.rdbuf();
+    return parse_scenario(text.str(), path);
+}
+
+}  // namespace wickgrid::scenario
