@@ -1,0 +1,159 @@
+// Scenario validation: every error path names the key, the file position and what is allowed.
+#include <gtest/gtest.h>
+
+#include <fstream>
+#include <sstream>
+
+#include "scenario/scenario.hpp"
+#include "scenario/suggest.hpp"
+#include "wickgrid/units.hpp"
+
+using namespace wickgrid;
+using namespace wickgrid::scenario;
+
+namespace {
+std::string demo_text() {
+    std::ifstream in(WICKGRID_SOURCE_DIR "/demo/scenario.yaml");
+    std::ostringstream text;
+    text << in.rdbuf();
+    return text.str();
+}
+
+// Replaces the first occurrence of `from` (which must exist) in the demo text.
+std::string demo_with(const std::string& from, const std::string& to) {
+    std::string text = demo_text();
+    const auto at = text.find(from);
+    if (at == std::string::npos) throw std::logic_error("test row edits text that is not there: " + from);
+    return text.replace(at, from.size(), to);
+}
+
+// Line (1-based) of the first line containing `needle` in text.
+int line_of(const std::string& text, const std::string& needle) {
+    const auto at = text.find(needle);
+    return 1 + static_cast<int>(std::count(text.begin(), text.begin() + static_cast<long>(at), '\n'));
+}
+
+struct ErrorRow {
+    const char* what;
+    std::string from, to;  // edit of the demo file
+    std::string key_path;
+    std::string message_part;
+    std::string line_with;  // the error must point at the line holding this text ("" = don't check)
+};
+}  // namespace
+
+TEST(Scenario, DemoLoadsWithSIUnits) {
+    const Scenario s = parse_scenario(demo_text(), "demo.yaml");
+    EXPECT_EQ(s.drains.size(), 2u);
+    EXPECT_NEAR(s.clay.cv_m2_per_s * units::seconds_per_year, 1.2, 1e-12);
+    EXPECT_NEAR(s.drains[0].equivalent_diameter_m, 0.208 / 3.141592653589793, 1e-12);
+    EXPECT_NEAR(s.deadline_days, 180.0, 0);
+    EXPECT_FALSE(s.kh_given);
+    EXPECT_NEAR(s.clay.kh_m_per_s, s.clay.ch_m2_per_s * 0.0008 * 9.81, 1e-20);
+    EXPECT_EQ(s.patterns.size(), 2u);
+    EXPECT_EQ(s.mark_of("clay.thickness_m").line, line_of(demo_text(), "thickness_m: 14.0"));
+}
+
+TEST(Scenario, EveryErrorIsLocatedAndNamed) {
+    const std::vector<ErrorRow> rows{
+        {"unknown key with suggestion", "  thickness_m: 14.0", "  thicknes_m: 14.0", "clay.thicknes_m",
+         "did you mean 'thickness_m'", "thicknes_m"},
+        {"unknown top key", "patterns:", "paterns:", "paterns", "did you mean 'patterns'", "paterns:"},
+        {"missing key", "  deadline_days: 180        # counted from the start of loading\n", "", "target.deadline_days",
+         "missing key 'deadline_days'", ""},
+        {"degree out of range", "degree: 0.90", "degree: 1.2", "target.degree", "between 0 and 1, both excluded",
+         "degree: 1.2"},
+        {"degree zero", "degree: 0.90", "degree: 0", "target.degree", "between 0 and 1", "degree: 0"},
+        {"not a number", "cv_m2_per_year: 1.2", "cv_m2_per_year: fast", "clay.cv_m2_per_year", "'fast' is not a number",
+         "cv_m2_per_year: fast"},
+        {"nan is refused", "cv_m2_per_year: 1.2", "cv_m2_per_year: .nan", "clay.cv_m2_per_year", "greater than 0",
+         "cv_m2_per_year: .nan"},
+        {"negative ch", "ch_m2_per_year: 4.0", "ch_m2_per_year: -4.0", "clay.ch_m2_per_year", "greater than 0",
+         "ch_m2_per_year: -4.0"},
+        {"bad drainage name", "vertical_drainage: both_faces", "vertical_drainage: both", "clay.vertical_drainage",
+         "one of both_faces, top_only, bottom_only", "vertical_drainage: both"},
+        {"no mv or kh", "  mv_m2_per_kN: 0.0008      # kh = ch·mv·γw since kh_m_per_s is not given\n", "", "clay",
+         "'mv_m2_per_kN' or 'kh_m_per_s'", ""},
+        {"second drain width", "    width_mm: 100\n    thickness_mm: 6", "    width_mm: -100\n    thickness_mm: 6",
+         "drains[1].width_mm", "greater than 0 mm", "width_mm: -100"},
+        {"bad method with suggestion", "equivalent_diameter: hansbo_1979", "equivalent_diameter: hanbso_1979",
+         "drains[0].equivalent_diameter", "did you mean 'hansbo_1979'", "hanbso_1979"},
+        {"zero discharge", "discharge_capacity_m3_per_year: 150", "discharge_capacity_m3_per_year: 0",
+         "drains[0].discharge_capacity_m3_per_year", "greater than 0", "discharge_capacity_m3_per_year: 0"},
+        {"duplicate drain", "name: band-100x6-hiflow", "name: band-100x4", "drains[1].name", "used twice", ""},
+        {"partial penetration", "drain_length_m: 14.0", "drain_length_m: 10.0", "drain_length_m",
+         "not supported yet", "drain_length_m: 10.0"},
+        {"bad outlets", "drain_outlets: top", "drain_outlets: bottom", "drain_outlets", "top, top_and_bottom",
+         "drain_outlets: bottom"},
+        {"smear smaller than drain", "smear_diameter_ratio: 2.0", "smear_diameter_ratio: 0.5",
+         "installation.smear_diameter_ratio", "smaller than the equivalent diameter", "smear_diameter_ratio: 0.5"},
+        {"kh/ks below one", "smear_permeability_ratio: 3.0", "smear_permeability_ratio: 0.5",
+         "installation.smear_permeability_ratio", "at least 1", "smear_permeability_ratio: 0.5"},
+        {"closed form with parabolic smear",
+         "  smear_permeability_ratio: 3.0   # kh / ks\n",
+         "  smear_permeability_ratio: 3.0\n  smear_shape: parabolic\n  radial_theory: hansbo_1981\n",
+         "installation.radial_theory", "use equal_strain_integral", "radial_theory: hansbo_1981"},
+        {"unknown pattern", "patterns: [triangular, square]", "patterns: [triangular, hexagonal]", "patterns[1]",
+         "one of triangular, square", "patterns: [triangular, hexagonal]"},
+        {"repeated pattern", "patterns: [triangular, square]", "patterns: [square, square]", "patterns[1]",
+         "listed twice", ""},
+        {"min spacing inside smear", "min_m: 0.8", "min_m: 0.15", "spacing.min_m", "smear zone", "min_m: 0.15"},
+        {"max below min", "max_m: 4.0", "max_m: 0.5", "spacing.max_m", "greater than 0.8", "max_m: 0.5"},
+        {"increment too large", "increment_m: 0.05", "increment_m: 5", "spacing.increment_m", "at most max_m",
+         "increment_m: 5"},
+        {"wrong schema", "schema: 1", "schema: 2", "schema", "between 1 and 1", "schema: 2"},
+        {"key twice", "  mv_m2_per_kN: 0.0008", "  ch_m2_per_year: 5\n  mv_m2_per_kN: 0.0008", "clay.ch_m2_per_year",
+         "given twice", ""},
+        {"target not a map",
+         "target:\n  degree: 0.90              # average degree of consolidation, 0 < degree < 1\n"
+         "  deadline_days: 180        # counted from the start of loading\n",
+         "target: 0.9\n", "target", "mapping", "target: 0.9"},
+        {"yaml syntax", "patterns: [triangular, square]", "patterns: [triangular, square", "", "YAML syntax", ""},
+    };
+    for (const auto& row : rows) {
+        const std::string text = demo_with(row.from, row.to);
+        try {
+            parse_scenario(text, "case.yaml");
+            ADD_FAILURE() << row.what << ": accepted";
+        } catch (const ScenarioError& e) {
+            EXPECT_EQ(e.key_path(), row.key_path) << row.what << ": " << e.what();
+            EXPECT_NE(e.message().find(row.message_part), std::string::npos) << row.what << ": " << e.what();
+            EXPECT_EQ(e.file(), "case.yaml");
+            EXPECT_GT(e.mark().line, 0) << row.what;
+            EXPECT_GT(e.mark().column, 0) << row.what;
+            if (!row.line_with.empty()) {
+                EXPECT_EQ(e.mark().line, line_of(text, row.line_with)) << row.what << ": " << e.what();
+            }
+            const std::string where = "case.yaml:" + std::to_string(e.mark().line) + ":";
+            EXPECT_EQ(std::string(e.what()).rfind(where, 0), 0u) << e.what();
+        }
+    }
+}
+
+TEST(Scenario, EmptyFileAndMissingFile) {
+    EXPECT_THROW(parse_scenario("", "empty.yaml"), ScenarioError);
+    try {
+        load_scenario("/nonexistent/wickgrid.yaml");
+        FAIL();
+    } catch (const ScenarioError& e) {
+        EXPECT_NE(e.message().find("cannot open"), std::string::npos);
+    }
+}
+
+TEST(Scenario, DrainLookupSuggests) {
+    const Scenario s = parse_scenario(demo_text(), "demo.yaml");
+    try {
+        s.drain("band-100x5");
+        FAIL();
+    } catch (const ScenarioError& e) {
+        EXPECT_NE(e.message().find("did you mean 'band-100x4'"), std::string::npos) << e.what();
+    }
+}
+
+TEST(Suggest, EditDistance) {
+    // Levenshtein (1966): kitten → sitting needs 3 edits (the textbook example).
+    EXPECT_EQ(edit_distance("kitten", "sitting"), 3u);
+    EXPECT_EQ(edit_distance("", "abc"), 3u);
+    EXPECT_EQ(closest("thicknes_m", {"thickness_m", "cv_m2_per_year"}).value(), "thickness_m");
+    EXPECT_FALSE(closest("zzz", {"thickness_m"}).has_value());
+}
