@@ -57,9 +57,14 @@ void validate_drain(const DrainInstallation& drain, const Clay& clay);
 // Smallest spacing for which the smear zone still lies inside the unit cell.
 double minimum_spacing_m(const DrainInstallation& drain, Pattern pattern);
 
+// μs of the smear zone for a drain at spacing ratio n (closed form or integral, by drain.theory);
+// throws InputError naming the spacing when it is not positive.
+double smear_mu(const DrainInstallation& drain, double n, double spacing_m);
+
 class UnitCell {
 public:
-    explicit UnitCell(const CellSpec& spec);
+    explicit UnitCell(const CellSpec& spec,
+                      DepthAverageRule::Accuracy accuracy = DepthAverageRule::Accuracy::design);
 
     Degrees at(double time_s) const;
 

@@ -15,16 +15,21 @@ double degree_radial_depth_averaged(double th, double mu_smear, double well_per_
 
 // The same average as a rule built once for a drain (μs, w, l fixed) and evaluated at many Th:
 // nodes graded towards the outlet, where μ(z) has a complex pole close to z = 0 when well
-// resistance dominates smear (w·l² ≫ μs); 20 Gauss–Legendre nodes per panel.
+// resistance dominates smear (w·l² ≫ μs). The design rule picks 7 to 15 Gauss–Legendre nodes
+// per panel from the pole distance; the reference rule takes 20 per panel.
 class DepthAverageRule {
 public:
-    DepthAverageRule(double mu_smear, double well_per_m2, double l_m);
+    enum class Accuracy { design, reference };
+    DepthAverageRule(double mu_smear, double well_per_m2, double l_m, Accuracy accuracy = Accuracy::design);
     double degree(double th) const;  // no validation or allocation: Th >= 0 is the caller's duty
     std::size_t nodes() const noexcept { return weight_.size(); }
+    const std::vector<double>& weights() const noexcept { return weight_; }
+    const std::vector<double>& well_terms() const noexcept { return well_term_; }  // w·l²·ζ(2 − ζ)
 
 private:
     std::vector<double> eight_over_mu_;
     std::vector<double> weight_;
+    std::vector<double> well_term_;
 };
 
 // Mean of μ(z) over [0, l]: μs + w·2l²/3 (reported beside the degree; the degree itself averages

@@ -1,5 +1,7 @@
 #pragma once
 // Inverse problems on unit cells: time to a degree, largest spacing by a deadline.
+#include <vector>
+
 #include "wickgrid/cell.hpp"
 
 namespace wickgrid {
@@ -21,8 +23,35 @@ struct SpacingLimit {
 };
 
 // Largest spacing (for spec.pattern; spec.spacing_m is ignored) at which the combined degree at
-// deadline_s reaches target. Degree falls monotonically with spacing.
+// deadline_s reaches target. Degree falls monotonically with spacing. Uses SpacingSolver.
 SpacingLimit largest_spacing(const CellSpec& spec, double target_degree, double deadline_s,
                              const SpacingBounds& bounds);
+
+// The same search done the plain way: a reference-accuracy UnitCell built at every trial spacing.
+// Slow; kept so that the fast path can be checked against it.
+SpacingLimit largest_spacing_reference(const CellSpec& spec, double target_degree, double deadline_s,
+                                       const SpacingBounds& bounds);
+
+// The fast path of spacing searches, for sweeps and Monte Carlo: validation, the vertical degree at
+// the deadline and the depth-quadrature layout are done once; a trial spacing then costs one
+// logarithm and a few exponentials. Valid for spacings from bounds.min_m up.
+class SpacingSolver {
+public:
+    SpacingSolver(const CellSpec& spec, const SpacingBounds& bounds);
+
+    // Combined degree at time_s for a spacing within the bounds (no validation: hot path).
+    double degree(double spacing_m, double time_s) const;
+    SpacingLimit solve(double target_degree, double deadline_s) const;
+
+private:
+    double radial(double spacing_m, double time_s) const;
+
+    CellSpec spec_;
+    SpacingBounds bounds_;
+    double factor_;    // De/s
+    double tv_per_s_;  // cv/d²
+    std::vector<double> weight_;
+    std::vector<double> well_term_;  // w·l²·ζ(2 − ζ) at each node
+};
 
 }  // namespace wickgrid

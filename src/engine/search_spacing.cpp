@@ -1,24 +1,27 @@
 // Largest spacing that reaches a degree by a deadline (monotone root in spacing, TOMS 748).
+#include <boost/math/constants/constants.hpp>
 #include <boost/math/tools/toms748_solve.hpp>
+#include <cmath>
 #include <cstdint>
 
+#include "wickgrid/combine.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/search.hpp"
 
 namespace wickgrid {
 
-SpacingLimit largest_spacing(const CellSpec& spec, double target_degree, double deadline_s,
-                             const SpacingBounds& bounds) {
+namespace {
+void validate_search(double target_degree, double deadline_s, const SpacingBounds& bounds) {
     require_open_unit("target degree of consolidation", target_degree);
     require_positive("deadline (s)", deadline_s);
     require_positive("minimum spacing (m)", bounds.min_m);
     require_greater("maximum spacing (m)", bounds.max_m, bounds.min_m,
                     "greater than the minimum spacing " + format_value(bounds.min_m) + " m");
-    auto degree_at = [&](double spacing_m) {
-        CellSpec trial = spec;
-        trial.spacing_m = spacing_m;
-        return UnitCell(trial).at(deadline_s).combined;
-    };
+}
+
+// Shared bracketing logic: f is the degree at the deadline as a function of spacing.
+template <class DegreeAt>
+SpacingLimit solve_spacing(DegreeAt&& degree_at, double target_degree, const SpacingBounds& bounds) {
     SpacingLimit limit;
     limit.degree_at_minimum = degree_at(bounds.min_m);
     if (limit.degree_at_minimum < target_degree) return limit;  // infeasible within bounds
@@ -37,9 +40,74 @@ SpacingLimit largest_spacing(const CellSpec& spec, double target_degree, double 
     std::uintmax_t iterations = 200;
     const auto root = boost::math::tools::toms748_solve(
         [&](double s) { return degree_at(s) - target_degree; }, bounds.min_m, bounds.max_m, f_lo, f_hi,
-        boost::math::tools::eps_tolerance<double>(44), iterations);
+        boost::math::tools::eps_tolerance<double>(40), iterations);
     limit.spacing_m = 0.5 * (root.first + root.second);
     return limit;
+}
+}  // namespace
+
+SpacingLimit largest_spacing_reference(const CellSpec& spec, double target_degree, double deadline_s,
+                                       const SpacingBounds& bounds) {
+    validate_search(target_degree, deadline_s, bounds);
+    auto degree_at = [&](double spacing_m) {
+        CellSpec trial = spec;
+        trial.spacing_m = spacing_m;
+        return UnitCell(trial, DepthAverageRule::Accuracy::reference).at(deadline_s).combined;
+    };
+    return solve_spacing(degree_at, target_degree, bounds);
+}
+
+SpacingSolver::SpacingSolver(const CellSpec& spec, const SpacingBounds& bounds) : spec_(spec), bounds_(bounds) {
+    require_positive("minimum spacing (m)", bounds.min_m);
+    require_greater("maximum spacing (m)", bounds.max_m, bounds.min_m,
+                    "greater than the minimum spacing " + format_value(bounds.min_m) + " m");
+    // Building the cell at the smallest spacing validates everything and gives the smallest μs,
+    // hence the nearest quadrature pole: its node layout serves every larger spacing.
+    CellSpec at_min = spec;
+    at_min.spacing_m = bounds.min_m;
+    const UnitCell cell(at_min);
+    factor_ = influence_diameter_factor(spec.pattern);
+    tv_per_s_ = spec.clay.cv_m2_per_s / (cell.drainage_path_m() * cell.drainage_path_m());
+    const double well = boost::math::double_constants::pi * spec.clay.kh_m_per_s / spec.drain.discharge_capacity_m3_per_s;
+    const DepthAverageRule rule(cell.mu_smear(), well, cell.outlet_length_m());
+    weight_ = rule.weights();
+    well_term_ = rule.well_terms();
+}
+
+double SpacingSolver::radial(double spacing_m, double time_s) const {
+    const double de = factor_ * spacing_m;
+    const double n = de / spec_.drain.equivalent_diameter_m;
+    const double mu = spec_.drain.theory == RadialTheory::hansbo_1981
+                          ? std::log(n * spec_.drain.equivalent_diameter_m / spec_.drain.smear_diameter_m) +
+                                spec_.drain.smear_permeability_ratio *
+                                    std::log(spec_.drain.smear_diameter_m / spec_.drain.equivalent_diameter_m) -
+                                0.75
+                          : smear_mu(spec_.drain, n, spacing_m);
+    const double th = spec_.clay.ch_m2_per_s * time_s / (de * de);
+    double remaining = 0.0;
+    for (std::size_t i = 0; i < weight_.size(); ++i) remaining += weight_[i] * std::exp(-8.0 * th / (mu + well_term_[i]));
+    return remaining < 1.0 ? 1.0 - remaining : 0.0;
+}
+
+double SpacingSolver::degree(double spacing_m, double time_s) const {
+    const double uv = degree_vertical(tv_per_s_ * time_s);
+    return 1.0 - (1.0 - uv) * (1.0 - radial(spacing_m, time_s));
+}
+
+SpacingLimit SpacingSolver::solve(double target_degree, double deadline_s) const {
+    validate_search(target_degree, deadline_s, bounds_);
+    // The vertical degree does not depend on spacing: solve for the radial degree it leaves.
+    const double uv = degree_vertical(tv_per_s_ * deadline_s);
+    auto degree_at = [&](double spacing_m) {
+        return 1.0 - (1.0 - uv) * (1.0 - radial(spacing_m, deadline_s));
+    };
+    return solve_spacing(degree_at, target_degree, bounds_);
+}
+
+SpacingLimit largest_spacing(const CellSpec& spec, double target_degree, double deadline_s,
+                             const SpacingBounds& bounds) {
+    validate_search(target_degree, deadline_s, bounds);
+    return SpacingSolver(spec, bounds).solve(target_degree, deadline_s);
 }
 
 }  // namespace wickgrid

@@ -43,20 +43,21 @@ double minimum_spacing_m(const DrainInstallation& drain, Pattern pattern) {
     return spacing_from_influence_diameter_m(pattern, drain.smear_diameter_m);
 }
 
-namespace {
-// μs of the cell, validated: the closed form can turn non-positive when n is close to s.
-double checked_mu_smear(const CellSpec& spec, double n, double s) {
-    const SmearZone smear{spec.drain.smear_shape, s, spec.drain.smear_permeability_ratio};
-    const double mu = spec.drain.theory == RadialTheory::hansbo_1981
-                          ? hansbo_mu_smear(n, s, spec.drain.smear_permeability_ratio)
+double smear_mu(const DrainInstallation& drain, double n, double spacing_m) {
+    const double s = drain.smear_diameter_m / drain.equivalent_diameter_m;
+    const SmearZone smear{drain.smear_shape, s, drain.smear_permeability_ratio};
+    const double mu = drain.theory == RadialTheory::hansbo_1981
+                          ? hansbo_mu_smear(n, s, drain.smear_permeability_ratio)
                           : equal_strain_mu(n, smear);
+    // The closed form turns non-positive when n is close to s.
     if (!(mu > 0.0))
-        throw InputError("drain spacing (m)", spec.spacing_m,
+        throw InputError("drain spacing (m)", spacing_m,
                          "large enough for a positive radial flow factor (mu = " + format_value(mu) +
                              "; the closed form fails for n near s)");
     return mu;
 }
 
+namespace {
 double outlet_length(const DrainInstallation& drain) {
     return drain.outlets == DrainOutlets::top ? drain.length_m : 0.5 * drain.length_m;
 }
@@ -68,19 +69,19 @@ const CellSpec& validated(const CellSpec& spec) {
 }
 }  // namespace
 
-UnitCell::UnitCell(const CellSpec& spec)
+UnitCell::UnitCell(const CellSpec& spec, DepthAverageRule::Accuracy accuracy)
     : spec_(validated(spec)),
       de_m_(wickgrid::influence_diameter_m(spec.pattern, spec.spacing_m)),
       n_(de_m_ / spec.drain.equivalent_diameter_m),
       s_(spec.drain.smear_diameter_m / spec.drain.equivalent_diameter_m),
-      mu_smear_(n_ > 1.0 && s_ < n_ ? checked_mu_smear(spec, n_, s_) : 0.0),
+      mu_smear_(n_ > 1.0 && s_ < n_ ? smear_mu(spec.drain, n_, spec.spacing_m) : 0.0),
       well_per_m2_(boost::math::double_constants::pi * spec.clay.kh_m_per_s /
                    spec.drain.discharge_capacity_m3_per_s),
       l_m_(outlet_length(spec.drain)),
       d_m_(wickgrid::drainage_path_m(spec.clay.thickness_m, spec.clay.drainage)),
       tv_per_s_(spec.clay.cv_m2_per_s / (d_m_ * d_m_)),
       th_per_s_(spec.clay.ch_m2_per_s / (de_m_ * de_m_)),
-      depth_rule_(mu_smear_ > 0.0 ? mu_smear_ : 1.0, well_per_m2_, l_m_) {
+      depth_rule_(mu_smear_ > 0.0 ? mu_smear_ : 1.0, well_per_m2_, l_m_, accuracy) {
     if (!(n_ > 1.0))
         throw InputError("drain spacing (m)", spec.spacing_m,
                          "large enough that the influence diameter exceeds the drain diameter");

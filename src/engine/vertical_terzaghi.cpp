@@ -1,7 +1,6 @@
 // Terzaghi (1925) one-dimensional consolidation, average degree for a uniform initial excess
 // pore pressure; the Fourier series and the equivalent error-function (image) series.
 #include <boost/math/constants/constants.hpp>
-#include <boost/math/special_functions/erf.hpp>
 #include <boost/math/tools/toms748_solve.hpp>
 #include <cmath>
 #include <cstdint>
@@ -19,7 +18,7 @@ constexpr double switch_tv = 0.2;
 
 // Integrated complementary error function, i·erfc(x) = exp(−x²)/√π − x·erfc(x).
 double ierfc(double x) {
-    return std::exp(-x * x) / boost::math::double_constants::root_pi - x * boost::math::erfc(x);
+    return std::exp(-x * x) / boost::math::double_constants::root_pi - x * std::erfc(x);
 }
 }  // namespace
 
@@ -46,13 +45,20 @@ double degree_short_time(double tv) {
 double degree_fourier(double tv) {
     require_non_negative("time factor Tv", tv);
     if (tv == 0.0) return 0.0;
-    // U = 1 − Σ_{m≥0} 2/M² exp(−M² Tv),  M = π(2m + 1)/2
+    // U = 1 − Σ_{m≥0} 2/M² exp(−M² Tv),  M = π(2m + 1)/2. With q = exp(−π²Tv/4) the exponentials
+    // are q^{(2m+1)²}; successive ratios q^{8(m+1)} need one exp() in all.
+    const double q = std::exp(-pi * pi * tv / 4.0);
+    const double q8 = std::pow(q, 8.0);
+    double power = q;     // q^{(2m+1)²}
+    double ratio = q8;    // q^{8(m+1)}
     double sum = 0.0;
     for (std::int64_t m = 0; m < 100000000; ++m) {
         const double big_m = 0.5 * pi * static_cast<double>(2 * m + 1);
-        const double term = 2.0 / (big_m * big_m) * std::exp(-big_m * big_m * tv);
+        const double term = 2.0 / (big_m * big_m) * power;
         sum += term;
-        if (term < 1e-18) break;
+        if (term < 1e-18 || power == 0.0) break;
+        power *= ratio;
+        ratio *= q8;
     }
     return 1.0 - sum;
 }
@@ -61,6 +67,8 @@ double degree_fourier(double tv) {
 
 double degree_vertical(double tv) {
     require_non_negative("time factor Tv", tv);
+    // Below Tv = 0.02 the image-series correction is under exp(−1/Tv) < 1e-21: one term is exact.
+    if (tv < 0.02) return 2.0 * std::sqrt(tv / pi);
     return tv < switch_tv ? terzaghi::degree_short_time(tv) : terzaghi::degree_fourier(tv);
 }
 
