@@ -32,6 +32,11 @@ private:
     std::vector<double> well_term_;
 };
 
+// The node layout behind DepthAverageRule, written into caller-owned vectors (cleared first, so
+// their capacity is reused by repeated searches): weights summing to 1, and w·l²·ζ(2 − ζ) at each node.
+void depth_average_nodes(double mu_smear, double well_per_m2, double l_m, DepthAverageRule::Accuracy accuracy,
+                         std::vector<double>& weights, std::vector<double>& well_terms);
+
 // Mean of μ(z) over [0, l]: μs + w·2l²/3 (reported beside the degree; the degree itself averages
 // Ur(z), not μ).
 double mu_depth_mean(double mu_smear, double well_per_m2, double l_m);

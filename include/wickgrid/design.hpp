@@ -20,6 +20,7 @@ struct DrainProductSpec {
 
 struct DesignInput {
     Clay clay;
+    std::optional<double> mv_m2_per_kN;  // set when kh is derived from ch (kh = ch·mv·γw)
     DrainInstallation installation;  // everything but dw and qw, which each product sets
     double mandrel_diameter_m = 0.0;
     double smear_diameter_ratio = 1.0;  // ds/dm

@@ -37,7 +37,11 @@ SpacingLimit largest_spacing_reference(const CellSpec& spec, double target_degre
 // logarithm and a few exponentials. Valid for spacings from bounds.min_m up.
 class SpacingSolver {
 public:
+    SpacingSolver() = default;
     SpacingSolver(const CellSpec& spec, const SpacingBounds& bounds);
+
+    // Re-targets the solver at another cell, reusing its storage (no allocation once warm).
+    void reset(const CellSpec& spec, const SpacingBounds& bounds);
 
     // Combined degree at time_s for a spacing within the bounds (no validation: hot path).
     double degree(double spacing_m, double time_s) const;
@@ -48,8 +52,9 @@ private:
 
     CellSpec spec_;
     SpacingBounds bounds_;
-    double factor_;    // De/s
-    double tv_per_s_;  // cv/d²
+    double factor_ = 0.0;    // De/s
+    double tv_per_s_ = 0.0;  // cv/d²
+    double log_s_ = 0.0;     // ln(ds/dw)
     std::vector<double> weight_;
     std::vector<double> well_term_;  // w·l²·ζ(2 − ζ) at each node
 };

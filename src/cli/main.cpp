@@ -38,6 +38,7 @@ int main(int argc, char** argv) {
     const cli::Runner check = cli::add_check(app);
     const cli::Runner design = cli::add_design(app);
     const cli::Runner curve = cli::add_curve(app);
+    const cli::Runner sweep = cli::add_sweep(app);
     try {
         app.parse(argc, argv);
     } catch (const CLI::CallForHelp& e) {
@@ -56,6 +57,7 @@ int main(int argc, char** argv) {
         if (app.got_subcommand("check")) return check();
         if (app.got_subcommand("design")) return design();
         if (app.got_subcommand("curve")) return curve();
+        if (app.got_subcommand("sweep")) return sweep();
     } catch (const scenario::ScenarioError& e) {
         report_error(e.mark().line > 0 ? e.what() : e.file() + ": " + e.message());
         return cli::bad_input;

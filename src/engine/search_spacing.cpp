@@ -57,35 +57,44 @@ SpacingLimit largest_spacing_reference(const CellSpec& spec, double target_degre
     return solve_spacing(degree_at, target_degree, bounds);
 }
 
-SpacingSolver::SpacingSolver(const CellSpec& spec, const SpacingBounds& bounds) : spec_(spec), bounds_(bounds) {
+SpacingSolver::SpacingSolver(const CellSpec& spec, const SpacingBounds& bounds) { reset(spec, bounds); }
+
+void SpacingSolver::reset(const CellSpec& spec, const SpacingBounds& bounds) {
     require_positive("minimum spacing (m)", bounds.min_m);
     require_greater("maximum spacing (m)", bounds.max_m, bounds.min_m,
                     "greater than the minimum spacing " + format_value(bounds.min_m) + " m");
-    // Building the cell at the smallest spacing validates everything and gives the smallest μs,
-    // hence the nearest quadrature pole: its node layout serves every larger spacing.
-    CellSpec at_min = spec;
-    at_min.spacing_m = bounds.min_m;
-    const UnitCell cell(at_min);
+    validate_clay(spec.clay);
+    validate_drain(spec.drain, spec.clay);
+    spec_ = spec;
+    bounds_ = bounds;
     factor_ = influence_diameter_factor(spec.pattern);
-    tv_per_s_ = spec.clay.cv_m2_per_s / (cell.drainage_path_m() * cell.drainage_path_m());
+    // The smallest spacing has the smallest n: check that its cell is valid and take its μs, the
+    // smallest of the range, hence the nearest quadrature pole; that layout serves every spacing.
+    const double n_min = factor_ * bounds.min_m / spec.drain.equivalent_diameter_m;
+    const double s = spec.drain.smear_diameter_m / spec.drain.equivalent_diameter_m;
+    if (!(n_min > 1.0 && s < n_min))
+        throw InputError("drain spacing (m)", bounds.min_m,
+                         "greater than " + format_value(minimum_spacing_m(spec.drain, spec.pattern)) +
+                             " m so that the smear zone lies inside the unit cell");
+    const double mu_min = smear_mu(spec.drain, n_min, bounds.min_m);
+    log_s_ = std::log(s);
+    const double d = drainage_path_m(spec.clay.thickness_m, spec.clay.drainage);
+    tv_per_s_ = spec.clay.cv_m2_per_s / (d * d);
     const double well = boost::math::double_constants::pi * spec.clay.kh_m_per_s / spec.drain.discharge_capacity_m3_per_s;
-    const DepthAverageRule rule(cell.mu_smear(), well, cell.outlet_length_m());
-    weight_ = rule.weights();
-    well_term_ = rule.well_terms();
+    const double l = spec.drain.outlets == DrainOutlets::top ? spec.drain.length_m : 0.5 * spec.drain.length_m;
+    depth_average_nodes(mu_min, well, l, DepthAverageRule::Accuracy::design, weight_, well_term_);
 }
 
 double SpacingSolver::radial(double spacing_m, double time_s) const {
     const double de = factor_ * spacing_m;
     const double n = de / spec_.drain.equivalent_diameter_m;
+    // Hansbo (1981): ln(n/s) + (kh/ks) ln s − 0.75, with ln s cached.
     const double mu = spec_.drain.theory == RadialTheory::hansbo_1981
-                          ? std::log(n * spec_.drain.equivalent_diameter_m / spec_.drain.smear_diameter_m) +
-                                spec_.drain.smear_permeability_ratio *
-                                    std::log(spec_.drain.smear_diameter_m / spec_.drain.equivalent_diameter_m) -
-                                0.75
+                          ? std::log(n) - log_s_ + spec_.drain.smear_permeability_ratio * log_s_ - 0.75
                           : smear_mu(spec_.drain, n, spacing_m);
-    const double th = spec_.clay.ch_m2_per_s * time_s / (de * de);
+    const double th8 = 8.0 * spec_.clay.ch_m2_per_s * time_s / (de * de);
     double remaining = 0.0;
-    for (std::size_t i = 0; i < weight_.size(); ++i) remaining += weight_[i] * std::exp(-8.0 * th / (mu + well_term_[i]));
+    for (std::size_t i = 0; i < weight_.size(); ++i) remaining += weight_[i] * std::exp(-th8 / (mu + well_term_[i]));
     return remaining < 1.0 ? 1.0 - remaining : 0.0;
 }
 
@@ -93,6 +102,7 @@ double SpacingSolver::degree(double spacing_m, double time_s) const {
     const double uv = degree_vertical(tv_per_s_ * time_s);
     return 1.0 - (1.0 - uv) * (1.0 - radial(spacing_m, time_s));
 }
+
 
 SpacingLimit SpacingSolver::solve(double target_degree, double deadline_s) const {
     validate_search(target_degree, deadline_s, bounds_);

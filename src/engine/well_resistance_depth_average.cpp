@@ -28,14 +28,16 @@ void panel(double a, double b, Sink&& sink) {
 }
 }  // namespace
 
-DepthAverageRule::DepthAverageRule(double mu_smear, double well_per_m2, double l_m, Accuracy accuracy) {
+void depth_average_nodes(double mu_smear, double well_per_m2, double l_m, DepthAverageRule::Accuracy accuracy,
+                         std::vector<double>& weights, std::vector<double>& well_terms) {
     require_positive("smear term of mu", mu_smear);
     require_non_negative("well resistance coefficient pi*kh/qw (1/m²)", well_per_m2);
     require_positive("drain length from the outlet l (m)", l_m);
+    weights.clear();
+    well_terms.clear();
     if (well_per_m2 == 0.0) {  // uniform μ: one node is exact
-        eight_over_mu_.push_back(8.0 / mu_smear);
-        weight_.push_back(1.0);
-        well_term_.push_back(0.0);
+        weights.push_back(1.0);
+        well_terms.push_back(0.0);
         return;
     }
     // μ = a + b·ζ(2 − ζ), a = μs, b = w·l²: poles at ζ = 1 ± √(1 + a/b); the nearer lies a distance
@@ -46,11 +48,10 @@ DepthAverageRule::DepthAverageRule(double mu_smear, double well_per_m2, double l
     const double a = mu_smear, b = well_per_m2 * l_m * l_m;
     const double d = std::sqrt(1.0 + a / b) - 1.0;
     auto sink = [&](double zeta, double weight) {
-        well_term_.push_back(b * zeta * (2.0 - zeta));
-        eight_over_mu_.push_back(8.0 / (a + well_term_.back()));
-        weight_.push_back(weight);
+        well_terms.push_back(b * zeta * (2.0 - zeta));
+        weights.push_back(weight);
     };
-    const bool reference = accuracy == Accuracy::reference;
+    const bool reference = accuracy == DepthAverageRule::Accuracy::reference;
     double x = 0.0;
     while (x < 1.0) {
         const double next = std::min(1.0, 3.0 * x + 2.0 * d);
@@ -60,6 +61,11 @@ DepthAverageRule::DepthAverageRule(double mu_smear, double well_per_m2, double l
         else panel<15>(x, next, sink);
         x = next;
     }
+}
+
+DepthAverageRule::DepthAverageRule(double mu_smear, double well_per_m2, double l_m, Accuracy accuracy) {
+    depth_average_nodes(mu_smear, well_per_m2, l_m, accuracy, weight_, well_term_);
+    for (const double g : well_term_) eight_over_mu_.push_back(8.0 / (mu_smear + g));
 }
 
 double DepthAverageRule::degree(double th) const {

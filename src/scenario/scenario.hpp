@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "wickgrid/design.hpp"
+#include "wickgrid/studies.hpp"
 
 namespace wickgrid::scenario {
 
@@ -43,6 +44,15 @@ struct DrainEntry {
     std::optional<double> cost_per_m;
 };
 
+// Studies requested in the file (`studies:` and `uncertain:` blocks).
+struct StudyRequests {
+    std::vector<TornadoInput> tornado;
+    GridAxis grid_x{StudyInput::smear_permeability_ratio, 1.0, 6.0, 11};
+    GridAxis grid_y{StudyInput::smear_diameter_ratio, 1.5, 4.0, 11};
+    bool grid_given = false;
+    std::optional<MonteCarloSpec> monte_carlo;
+};
+
 struct Scenario {
     std::string file;
     std::string title;
@@ -64,6 +74,7 @@ struct Scenario {
     std::vector<Pattern> patterns;
     SpacingBounds spacing;
     double increment_m = 0.05;
+    StudyRequests studies;
     std::map<std::string, Mark> marks;  // key path → where its value is
 
     DesignInput design_input() const;

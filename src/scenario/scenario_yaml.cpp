@@ -183,7 +183,12 @@ private:
 };
 
 const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "drains", "drain_length_m",
-                                        "drain_outlets", "installation", "patterns", "spacing"};
+                                        "drain_outlets", "installation", "patterns", "spacing", "studies",
+                                        "uncertain"};
+const std::vector<std::string> study_input_names{"ch_m2_per_year", "cv_m2_per_year", "kh_m_per_s",
+                                                 "smear_diameter_ratio", "smear_permeability_ratio",
+                                                 "discharge_capacity_m3_per_year"};
+const std::vector<std::string> distribution_names{"normal", "lognormal", "uniform", "triangular"};
 const std::vector<std::string> drainage_names{"both_faces", "top_only", "bottom_only"};
 const std::vector<std::string> outlet_names{"top", "top_and_bottom"};
 const std::vector<std::string> method_names{"hansbo_1979", "rixner_1986", "long_covo_1994"};
@@ -365,6 +370,149 @@ void check_physics(const Reader& r, Scenario& s) {
             }
 }
 
+// A study value must lie in the physical range of its input (ratios above 1, smear inside the
+// smallest cell...); checked here so the error points at the value.
+double study_value(const Reader& r, const YAML::Node& node, const std::string& path, StudyInput input,
+                   const DesignInput& design) {
+    const double value = r.number(node, path, {-inf, false, inf, false, ""});
+    const InputRange range = physical_range(design, input);
+    const double si = study_value_to_si(input, value);
+    if (!(si >= range.low && si < range.high)) {
+        const double low = study_value_from_si(input, range.low), high = study_value_from_si(input, range.high);
+        r.fail(node, path,
+               format_value(value) + " is not allowed: it must be " +
+                   (range.low <= std::numeric_limits<double>::min() ? "greater than 0" : "at least " + format_value(low)) +
+                   (std::isfinite(high) ? " and below " + format_value(high) : std::string()) + " for this design");
+    }
+    return si;
+}
+
+StudyInput study_input(const Reader& r, const YAML::Node& node, const std::string& path) {
+    return static_cast<StudyInput>(r.choice(node, path, study_input_names));
+}
+
+void read_studies(const Reader& r, const YAML::Node& root, Scenario& s) {
+    if (!root["studies"]) return;
+    const YAML::Node node = root["studies"];
+    r.expect_map(node, "studies");
+    r.allow_keys(node, "studies", {"tornado", "grid"});
+    const DesignInput design = s.design_input();
+    if (const YAML::Node t = node["tornado"]) {
+        r.expect_map(t, "studies.tornado");
+        r.allow_keys(t, "studies.tornado", study_input_names);
+        for (auto it = t.begin(); it != t.end(); ++it) {
+            const std::string name = it->first.as<std::string>();
+            const std::string path = "studies.tornado." + name;
+            const StudyInput input = study_input(r, it->first, path);
+            const YAML::Node pair = it->second;
+            if (!pair.IsSequence() || pair.size() != 2) r.fail(pair, path, "must be [low, high]");
+            const double low = study_value(r, pair[0], path + "[0]", input, design);
+            const double high = study_value(r, pair[1], path + "[1]", input, design);
+            if (high < low) r.fail(pair[1], path + "[1]", "the high value must be at least the low value");
+            s.studies.tornado.push_back({input, low, high});
+        }
+    }
+    if (const YAML::Node g = node["grid"]) {
+        r.expect_map(g, "studies.grid");
+        r.allow_keys(g, "studies.grid", {"x", "y"});
+        auto axis = [&](const std::string& key) {
+            const std::string path = "studies.grid." + key;
+            const YAML::Node a = r.required(g, "studies.grid", key);
+            r.expect_map(a, path);
+            r.allow_keys(a, path, {"input", "from", "to", "steps"});
+            GridAxis out;
+            out.input = study_input(r, r.required(a, path, "input"), path + ".input");
+            out.from_si = study_value(r, r.required(a, path, "from"), path + ".from", out.input, design);
+            out.to_si = study_value(r, r.required(a, path, "to"), path + ".to", out.input, design);
+            if (!(out.to_si > out.from_si)) r.fail(a["to"], path + ".to", "must be greater than 'from'");
+            out.steps = static_cast<int>(
+                r.optional_number(a, path, "steps", {2.0, true, 1001.0, true, "(whole number)"}).value_or(11.0));
+            if (a["steps"] && std::floor(a["steps"].as<double>()) != a["steps"].as<double>())
+                r.fail(a["steps"], path + ".steps", "must be a whole number from 2 to 1001");
+            return out;
+        };
+        s.studies.grid_x = axis("x");
+        s.studies.grid_y = axis("y");
+        if (s.studies.grid_x.input == s.studies.grid_y.input)
+            r.fail(g["y"]["input"], "studies.grid.y.input", "must differ from studies.grid.x.input");
+        s.studies.grid_given = true;
+    }
+}
+
+Distribution read_distribution(const Reader& r, const YAML::Node& node, const std::string& path, StudyInput input) {
+    r.expect_map(node, path);
+    const auto kind = static_cast<DistributionKind>(
+        r.choice(r.required(node, path, "distribution"), path + ".distribution", distribution_names));
+    Distribution d;
+    d.kind = kind;
+    const Range any{-inf, false, inf, false, ""};
+    auto value = [&](const char* key) {
+        return study_value_to_si(input, r.number(node, path, key, any));
+    };
+    switch (kind) {
+        case DistributionKind::normal:
+        case DistributionKind::lognormal:
+            r.allow_keys(node, path, {"distribution", "mean", "sd"});
+            d.a = value("mean");
+            d.b = study_value_to_si(input, r.number(node, path, "sd", {0.0, true, inf, false, "(0 = a constant)"}));
+            if (kind == DistributionKind::lognormal && !(d.a > 0.0))
+                r.fail(node["mean"], path + ".mean", "must be greater than 0 for a lognormal distribution");
+            break;
+        case DistributionKind::uniform:
+            r.allow_keys(node, path, {"distribution", "low", "high"});
+            d.a = value("low");
+            d.b = value("high");
+            if (d.b < d.a) r.fail(node["high"], path + ".high", "must be at least 'low'");
+            break;
+        case DistributionKind::triangular:
+            r.allow_keys(node, path, {"distribution", "low", "mode", "high"});
+            d.a = value("low");
+            d.b = value("mode");
+            d.c = value("high");
+            if (d.b < d.a) r.fail(node["mode"], path + ".mode", "must be at least 'low'");
+            if (d.c < d.b) r.fail(node["high"], path + ".high", "must be at least 'mode'");
+            break;
+    }
+    return d;
+}
+
+void read_uncertain(const Reader& r, const YAML::Node& root, Scenario& s) {
+    if (!root["uncertain"]) return;
+    const YAML::Node node = root["uncertain"];
+    const std::string p = "uncertain";
+    r.expect_map(node, p);
+    std::vector<std::string> keys{"samples", "seed", "reliability", "confidence", "spacing_m", "ch_cv_correlation"};
+    keys.insert(keys.end(), study_input_names.begin(), study_input_names.end());
+    r.allow_keys(node, p, keys);
+    MonteCarloSpec mc;
+    const auto whole = [&](const char* key, double low, double high, double fallback) {
+        const auto v = r.optional_number(node, p, key, {low, true, high, true, "(whole number)"});
+        if (v && std::floor(*v) != *v) r.fail(node[key], p + "." + key, "must be a whole number");
+        return v.value_or(fallback);
+    };
+    mc.samples = static_cast<std::size_t>(whole("samples", 1.0, 1e9, 10000.0));
+    mc.seed = static_cast<std::uint64_t>(whole("seed", 0.0, 9007199254740992.0, 1.0));
+    mc.reliability = r.optional_number(node, p, "reliability", {0.0, false, 1.0, false, ""}).value_or(0.9);
+    mc.confidence = r.optional_number(node, p, "confidence", {0.0, false, 1.0, false, ""}).value_or(0.95);
+    mc.spacing_m = r.optional_number(node, p, "spacing_m", {s.spacing.min_m, true, s.spacing.max_m, true, "m"});
+    mc.ch_cv_correlation = r.optional_number(node, p, "ch_cv_correlation", {-1.0, false, 1.0, false, ""}).value_or(0.0);
+    const DesignInput design = s.design_input();
+    for (const auto& name : study_input_names) {
+        if (!node[name]) continue;
+        const std::string path = p + "." + name;
+        const StudyInput input = study_input(r, YAML::Node(name), path);
+        const Distribution d = read_distribution(r, node[name], path, input);
+        try {
+            TruncatedDistribution(d, physical_range(design, input), name);
+        } catch (const InputError& e) {
+            r.fail(node[name], path, e.what());
+        }
+        mc.inputs.push_back({input, d});
+    }
+    if (mc.inputs.empty()) r.fail(node, p, "needs at least one uncertain input: " + Reader::list(study_input_names));
+    s.studies.monte_carlo = mc;
+}
+
 Scenario read(const YAML::Node& root, const std::string& file) {
     Scenario s;
     s.file = file;
@@ -386,6 +534,8 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     read_patterns(r, root, s);
     read_spacing(r, root, s);
     check_physics(r, s);
+    read_studies(r, root, s);
+    read_uncertain(r, root, s);
     return s;
 }
 
@@ -409,6 +559,7 @@ const DrainEntry& Scenario::drain(const std::string& name) const {
 DesignInput Scenario::design_input() const {
     DesignInput in;
     in.clay = clay;
+    if (!kh_given) in.mv_m2_per_kN = mv_m2_per_kN;
     in.installation.smear_shape = smear_shape;
     in.installation.smear_permeability_ratio = smear_permeability_ratio;
     in.installation.length_m = drain_length_m;

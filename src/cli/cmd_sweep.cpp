@@ -1,0 +1,115 @@
+// wickgrid sweep FILE: one-at-a-time, grid and Monte Carlo studies of a design.
+#include <spdlog/spdlog.h>
+
+#include <chrono>
+#include <cstdio>
+#include <filesystem>
+#include <unistd.h>
+
+#include "commands.hpp"
+#include "report/atomic_file.hpp"
+#include "report/study_report.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/errors.hpp"
+
+namespace wickgrid::cli {
+
+namespace {
+struct SweepOptions {
+    std::string file;
+    std::vector<std::string> only;
+    std::optional<std::size_t> samples;
+    std::optional<std::uint64_t> seed;
+    unsigned threads = 0;
+    bool json = false;
+    bool csv = false;
+    std::string out_dir;
+};
+
+// A progress bar on stderr, only on a terminal and only once a run has lasted a second.
+Progress progress_bar() {
+    if (!::isatty(STDERR_FILENO)) return {};
+    const auto start = std::chrono::steady_clock::now();
+    return [start](std::size_t done, std::size_t total) {
+        const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+        if (seconds < 1.0 && done < total) return;
+        const int width = 40;
+        const int filled = static_cast<int>(width * static_cast<double>(done) / static_cast<double>(total));
+        std::fprintf(stderr, "\r  Monte Carlo [%s%s] %3.0f %%", std::string(filled, '#').c_str(),
+                     std::string(width - filled, '.').c_str(), 100.0 * static_cast<double>(done) / static_cast<double>(total));
+        if (done >= total) std::fprintf(stderr, "\n");
+        std::fflush(stderr);
+    };
+}
+
+bool wanted(const SweepOptions& o, const std::string& study) {
+    return o.only.empty() || std::find(o.only.begin(), o.only.end(), study) != o.only.end();
+}
+}  // namespace
+
+Runner add_sweep(CLI::App& app) {
+    auto* cmd = app.add_subcommand("sweep", "Sensitivity (one at a time, grid) and Monte Carlo studies of the design");
+    auto o = std::make_shared<SweepOptions>();
+    cmd->add_option("FILE", o->file, "Scenario file (YAML) with optional 'studies' and 'uncertain' blocks")->required();
+    cmd->add_option("--only", o->only, "Studies to run: tornado, grid, monte_carlo (comma-separated; default all)")
+        ->delimiter(',')
+        ->check(CLI::IsMember({"tornado", "grid", "monte_carlo"}));
+    cmd->add_option("--samples", o->samples, "Monte Carlo samples (overrides the file)")->check(CLI::Range(1, 1000000000));
+    cmd->add_option("--seed", o->seed, "Monte Carlo seed (overrides the file); same seed, same result");
+    cmd->add_option("--threads", o->threads, "Worker threads (default: all cores)")->check(CLI::Range(0, 1024));
+    auto* json = cmd->add_flag("--json", o->json, "All results as JSON on stdout");
+    cmd->add_flag("--csv", o->csv, "CSV on stdout (needs exactly one study, see --only)")->excludes(json);
+    cmd->add_option("--out", o->out_dir, "Also write sweep.json and one CSV per study into this folder");
+    return [o] {
+        auto s = scenario::load_scenario(o->file);
+        const DesignInput input = s.design_input();
+        const DesignResult base = run_design(input);
+        report::SweepResults r;
+        r.grid_x = s.studies.grid_x;
+        r.grid_y = s.studies.grid_y;
+        const bool tornado = wanted(*o, "tornado") && !s.studies.tornado.empty();
+        const bool monte = wanted(*o, "monte_carlo") && s.studies.monte_carlo.has_value();
+        if (!o->only.empty()) {
+            if (wanted(*o, "tornado") && s.studies.tornado.empty())
+                throw scenario::ScenarioError(s.file, {1, 1}, "studies.tornado",
+                                              "--only tornado needs a 'studies: tornado:' block in the scenario");
+            if (wanted(*o, "monte_carlo") && !s.studies.monte_carlo)
+                throw scenario::ScenarioError(s.file, {1, 1}, "uncertain",
+                                              "--only monte_carlo needs an 'uncertain:' block in the scenario");
+        }
+        const bool grid = wanted(*o, "grid");
+        if (o->csv && (tornado + grid + monte) != 1)
+            throw InputError("--csv with studies", static_cast<double>(tornado + grid + monte),
+                             "exactly 1 study: choose one with --only, or use --json or --out");
+        if (tornado) r.tornado = tornado_study(input, base, s.studies.tornado);
+        if (grid) r.grid = grid_study(input, s.studies.grid_x, s.studies.grid_y);
+        if (monte) {
+            MonteCarloSpec spec = *s.studies.monte_carlo;
+            if (o->samples) spec.samples = *o->samples;
+            if (o->seed) spec.seed = *o->seed;
+            spec.threads = o->threads;
+            s.studies.monte_carlo = spec;
+            spdlog::info("Monte Carlo: {} samples × {} designs", spec.samples, base.rows.size());
+            r.monte_carlo = monte_carlo(input, base, spec, progress_bar());
+        }
+        const std::string json_text = report::sweep_json(s, r).dump(2) + "\n";
+        if (!o->out_dir.empty()) {
+            namespace fs = std::filesystem;
+            report::ensure_directory(o->out_dir);
+            const fs::path dir(o->out_dir);
+            report::write_file_atomically((dir / "sweep.json").string(), json_text);
+            if (r.tornado) report::write_file_atomically((dir / "tornado.csv").string(), report::tornado_csv(*r.tornado));
+            if (r.grid) report::write_file_atomically((dir / "grid.csv").string(), report::grid_csv(*r.grid, r.grid_x, r.grid_y));
+            if (r.monte_carlo)
+                report::write_file_atomically((dir / "monte_carlo.csv").string(), report::monte_carlo_csv(*r.monte_carlo));
+        }
+        if (o->json) print_stdout(json_text);
+        else if (o->csv) print_stdout(r.tornado ? report::tornado_csv(*r.tornado)
+                                      : r.grid  ? report::grid_csv(*r.grid, r.grid_x, r.grid_y)
+                                                : report::monte_carlo_csv(*r.monte_carlo));
+        else print_stdout(report::sweep_table(s, r));
+        return static_cast<int>(ok);
+    };
+}
+
+}  // namespace wickgrid::cli
