@@ -4,6 +4,7 @@
 
 #include "cell_fixture.hpp"
 #include "wickgrid/search.hpp"
+#include "wickgrid/studies.hpp"
 
 using namespace wickgrid;
 
@@ -37,3 +38,41 @@ static void BM_FreeStrainBuild(benchmark::State& state) {
     for (auto _ : state) benchmark::DoNotOptimize(BarronFreeStrain(static_cast<double>(state.range(0))));
 }
 BENCHMARK(BM_FreeStrainBuild)->Arg(10)->Arg(100)->Unit(benchmark::kMillisecond);
+
+static void BM_SpacingSolverReused(benchmark::State& state) {
+    const CellSpec spec = fixtures::typical_cell();
+    SpacingSolver solver;
+    for (auto _ : state) {
+        solver.reset(spec, {0.8, 4.0});
+        benchmark::DoNotOptimize(solver.solve(0.9, units::days_to_seconds(180.0)));
+    }
+}
+BENCHMARK(BM_SpacingSolverReused);
+
+// The Monte Carlo case: 1,000,000 samples of (ch, smear ratios, qw), a full largest-spacing
+// search for each of two patterns, on all cores. Wall time.
+static void BM_MonteCarloMillion(benchmark::State& state) {
+    const CellSpec cell = fixtures::typical_cell();
+    DesignInput d;
+    d.clay = cell.clay;
+    d.mv_m2_per_kN = 0.0008;
+    d.installation = cell.drain;
+    d.mandrel_diameter_m = mandrel_equivalent_diameter_m(0.120, 0.060);
+    d.smear_diameter_ratio = 2.0;
+    d.products = {{"band-100x4", cell.drain.equivalent_diameter_m, cell.drain.discharge_capacity_m3_per_s, {}}};
+    d.patterns = {Pattern::triangular, Pattern::square};
+    d.target_degree = 0.9;
+    d.deadline_s = units::days_to_seconds(180.0);
+    d.bounds = {0.6, 4.0};
+    const DesignResult base = run_design(d);
+    MonteCarloSpec spec;
+    spec.samples = 1000000;
+    spec.inputs = {
+        {StudyInput::ch, {DistributionKind::lognormal, d.clay.ch_m2_per_s, 0.3 * d.clay.ch_m2_per_s}},
+        {StudyInput::smear_diameter_ratio, {DistributionKind::uniform, 1.5, 3.0}},
+        {StudyInput::smear_permeability_ratio, {DistributionKind::triangular, 2.0, 3.0, 5.0}},
+        {StudyInput::discharge_capacity,
+         {DistributionKind::lognormal, d.products[0].discharge_capacity_m3_per_s, 0.3 * d.products[0].discharge_capacity_m3_per_s}}};
+    for (auto _ : state) benchmark::DoNotOptimize(monte_carlo(d, base, spec));
+}
+BENCHMARK(BM_MonteCarloMillion)->Iterations(2)->Unit(benchmark::kSecond)->UseRealTime();

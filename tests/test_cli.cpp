@@ -236,6 +236,33 @@ TEST(Cli, CurveAtDaysMatchesEngine) {
     EXPECT_EQ(std::count(csv.out.begin(), csv.out.end(), '\n'), 6);
 }
 
+TEST(Cli, SweepJsonHasEveryStudyAndIsReproducible) {
+    const std::string demo = source("demo/scenario.yaml");
+    const CommandRun a = run("sweep " + demo + " --json --samples 3000 --seed 5 --threads 2");
+    ASSERT_EQ(a.exit_code, 0) << a.err;
+    const json doc = json::parse(a.out);
+    EXPECT_EQ(doc["tornado"].size(), 2u * 2u * 4u);
+    EXPECT_EQ(doc["grid"]["cells"].size(), 2u * 2u * 11u * 11u);
+    EXPECT_EQ(doc["grid"]["x"], "smear_permeability_ratio");
+    EXPECT_EQ(doc["monte_carlo"]["samples"], 3000);
+    EXPECT_EQ(doc["monte_carlo"]["rows"].size(), 4u);
+    const CommandRun b = run("sweep " + demo + " --json --samples 3000 --seed 5 --threads 1");
+    EXPECT_EQ(a.out, b.out);  // same seed, same result, whatever the thread count
+    for (const auto& row : doc["monte_carlo"]["rows"]) {
+        EXPECT_LE(row["probability_low"].get<double>(), row["probability"].get<double>());
+        EXPECT_GE(row["probability_high"].get<double>(), row["probability"].get<double>());
+    }
+    const CommandRun csv = run("sweep " + demo + " --only tornado --csv");
+    EXPECT_EQ(csv.exit_code, 0);
+    EXPECT_EQ(csv.out.rfind("drain,pattern,input,low,high", 0), 0u);
+    const CommandRun both = run("sweep " + demo + " --csv");
+    EXPECT_EQ(both.exit_code, 2);
+    EXPECT_NE(both.err.find("exactly 1 study"), std::string::npos) << both.err;
+    const CommandRun none = run("sweep " + source("configs/one-way-drainage.yaml") + " --only monte_carlo");
+    EXPECT_EQ(none.exit_code, 2);
+    EXPECT_NE(none.err.find("uncertain"), std::string::npos) << none.err;
+}
+
 TEST(Cli, ExitCodesAndMessages) {
     struct Case {
         const char* what;

@@ -1,0 +1,178 @@
+// Studies: tornado and grid equal direct design runs; Monte Carlo exact in degenerate cases,
+// consistent with quadrature of the same probability, reproducible, thread-count independent.
+#include <gtest/gtest.h>
+
+#include <boost/math/distributions/lognormal.hpp>
+#include <boost/math/quadrature/gauss_kronrod.hpp>
+#include <boost/math/tools/toms748_solve.hpp>
+
+#include "cell_fixture.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/studies.hpp"
+
+using namespace wickgrid;
+
+namespace {
+DesignInput typical_design() {
+    const CellSpec cell = fixtures::typical_cell();
+    DesignInput d;
+    d.clay = cell.clay;
+    d.mv_m2_per_kN = 0.0008;
+    d.installation = cell.drain;
+    d.mandrel_diameter_m = mandrel_equivalent_diameter_m(0.120, 0.060);
+    d.smear_diameter_ratio = 2.0;
+    d.products = {{"band-100x4", cell.drain.equivalent_diameter_m, cell.drain.discharge_capacity_m3_per_s, 1.1}};
+    d.patterns = {Pattern::triangular, Pattern::square};
+    d.target_degree = 0.9;
+    d.deadline_s = units::days_to_seconds(240.0);
+    d.bounds = {0.6, 4.0};
+    d.increment_m = 0.05;
+    return d;
+}
+
+const DesignRow& row_of(const DesignResult& r, Pattern p) {
+    for (const auto& row : r.rows)
+        if (row.pattern == p) return row;
+    throw std::logic_error("no row");
+}
+}  // namespace
+
+TEST(Studies, TornadoEqualsDirectDesignRuns) {
+    const DesignInput base = typical_design();
+    const DesignResult result = run_design(base);
+    const std::vector<TornadoInput> inputs{
+        {StudyInput::ch, units::per_year_to_per_second(1.5), units::per_year_to_per_second(4.0)},
+        {StudyInput::smear_permeability_ratio, 1.5, 5.0},
+        {StudyInput::discharge_capacity, units::per_year_to_per_second(30.0), units::per_year_to_per_second(500.0)},
+    };
+    const auto rows = tornado_study(base, result, inputs);
+    ASSERT_EQ(rows.size(), 6u);
+    for (const auto& t : rows) {
+        const DesignResult low = run_design(with_input(base, t.input, t.low_si));
+        const DesignResult high = run_design(with_input(base, t.input, t.high_si));
+        EXPECT_EQ(row_of(low, t.pattern).spacing_limit_m, t.at_low.spacing_m);
+        EXPECT_EQ(row_of(high, t.pattern).spacing_limit_m, t.at_high.spacing_m);
+    }
+    // Sorted by swing within each pattern; ch moves kh too (kh derived from mv).
+    EXPECT_GE(rows[0].swing_m, rows[1].swing_m);
+    EXPECT_GE(rows[1].swing_m, rows[2].swing_m);
+    const DesignInput fast = with_input(base, StudyInput::ch, units::per_year_to_per_second(4.0));
+    EXPECT_NEAR(fast.clay.kh_m_per_s, units::per_year_to_per_second(4.0) * 0.0008 * 9.81, 1e-20);
+}
+
+TEST(Studies, GridEqualsDirectDesignRuns) {
+    const DesignInput base = typical_design();
+    const GridAxis x{StudyInput::smear_permeability_ratio, 1.0, 6.0, 4};
+    const GridAxis y{StudyInput::smear_diameter_ratio, 1.5, 4.0, 3};
+    const auto cells = grid_study(base, x, y);
+    ASSERT_EQ(cells.size(), 2u * 4u * 3u);
+    for (const auto& c : cells) {
+        const DesignResult direct = run_design(with_input(with_input(base, x.input, c.x_si), y.input, c.y_si));
+        EXPECT_EQ(row_of(direct, c.pattern).spacing_limit_m, c.limit.spacing_m);
+    }
+    EXPECT_THROW(grid_study(base, x, x), InputError);
+}
+
+TEST(MonteCarlo, DegenerateDistributionsGiveExactlyZeroOrOne) {
+    const DesignInput base = typical_design();
+    const DesignResult result = run_design(base);
+    MonteCarloSpec spec;
+    spec.samples = 3000;
+    spec.inputs = {{StudyInput::ch, {DistributionKind::normal, base.clay.ch_m2_per_s, 0.0}},
+                   {StudyInput::smear_permeability_ratio, {DistributionKind::uniform, 3.0, 3.0}},
+                   {StudyInput::smear_diameter_ratio, {DistributionKind::triangular, 2.0, 2.0, 2.0}}};
+    const double limit = row_of(result, Pattern::triangular).spacing_limit_m;
+    spec.spacing_m = limit - 0.01;
+    const auto below = monte_carlo(base, result, spec);
+    spec.spacing_m = limit + 0.01;
+    const auto above = monte_carlo(base, result, spec);
+    EXPECT_EQ(below.rows[0].probability, 1.0);
+    EXPECT_EQ(above.rows[0].probability, 0.0);
+    EXPECT_EQ(above.rows[0].probability_low, 0.0);
+    EXPECT_GT(above.rows[0].probability_high, 0.0);  // Clopper–Pearson: 1 − (α/2)^{1/n}
+    EXPECT_NEAR(above.rows[0].probability_high, 1.0 - std::pow(0.025, 1.0 / 3000.0), 1e-12);
+    EXPECT_NEAR(*below.rows[0].reliability_spacing_m, limit, 1e-12);
+}
+
+TEST(MonteCarlo, MatchesQuadratureOfTheSameProbability) {
+    // Only ch is uncertain (lognormal): P(target at spacing s) = P(ch >= ch*), ch* the value at
+    // which spacing s just reaches the target. Evaluated by Gauss–Kronrod quadrature of the pdf.
+    const DesignInput base = typical_design();
+    const DesignResult result = run_design(base);
+    const double mean = base.clay.ch_m2_per_s, sd = 0.3 * mean;
+    MonteCarloSpec spec;
+    spec.samples = 40000;
+    spec.seed = 11;
+    spec.inputs = {{StudyInput::ch, {DistributionKind::lognormal, mean, sd}}};
+    spec.spacing_m = row_of(result, Pattern::square).spacing_m;
+    const auto mc = monte_carlo(base, result, spec);
+    const auto& row = mc.rows[1];
+    ASSERT_EQ(row.pattern, Pattern::square);
+    const auto degree_at_ch = [&](double ch) {
+        const DesignInput varied = with_input(base, StudyInput::ch, ch);
+        return UnitCell(product_cell(varied, varied.products[0], Pattern::square, *spec.spacing_m))
+                   .at(base.deadline_s)
+                   .combined -
+               base.target_degree;
+    };
+    std::uintmax_t iterations = 200;
+    const auto root = boost::math::tools::toms748_solve(degree_at_ch, 0.2 * mean, 5.0 * mean,
+                                                        boost::math::tools::eps_tolerance<double>(50), iterations);
+    const double ch_star = 0.5 * (root.first + root.second);
+    const double sigma2 = std::log1p(sd * sd / (mean * mean));
+    const boost::math::lognormal dist(std::log(mean) - 0.5 * sigma2, std::sqrt(sigma2));
+    const double exact = boost::math::quadrature::gauss_kronrod<double, 61>::integrate(
+        [&](double ch) { return boost::math::pdf(dist, ch); }, ch_star, 20.0 * mean, 15, 1e-12);
+    EXPECT_NEAR(exact, 1.0 - boost::math::cdf(dist, ch_star), 1e-9);
+    EXPECT_GE(exact, row.probability_low);
+    EXPECT_LE(exact, row.probability_high);
+    EXPECT_LT(row.probability_high - row.probability_low, 0.02);
+}
+
+TEST(MonteCarlo, ReproducibleAndIndependentOfThreads) {
+    const DesignInput base = typical_design();
+    const DesignResult result = run_design(base);
+    MonteCarloSpec spec;
+    spec.samples = 5000;
+    spec.seed = 42;
+    spec.ch_cv_correlation = 0.7;
+    spec.inputs = {{StudyInput::ch, {DistributionKind::lognormal, base.clay.ch_m2_per_s, 0.3 * base.clay.ch_m2_per_s}},
+                   {StudyInput::cv, {DistributionKind::lognormal, base.clay.cv_m2_per_s, 0.3 * base.clay.cv_m2_per_s}},
+                   {StudyInput::discharge_capacity,
+                    {DistributionKind::uniform, units::per_year_to_per_second(50), units::per_year_to_per_second(300)}}};
+    spec.threads = 1;
+    const auto one = monte_carlo(base, result, spec);
+    spec.threads = 2;
+    const auto two = monte_carlo(base, result, spec);
+    spec.seed = 43;
+    const auto other = monte_carlo(base, result, spec);
+    for (std::size_t k = 0; k < one.rows.size(); ++k) {
+        EXPECT_EQ(one.rows[k].probability, two.rows[k].probability);
+        EXPECT_EQ(one.rows[k].reliability_spacing_m, two.rows[k].reliability_spacing_m);
+        EXPECT_NE(one.rows[k].median_spacing_m, other.rows[k].median_spacing_m);
+    }
+    std::size_t calls = 0;
+    monte_carlo(base, result, spec, [&](std::size_t done, std::size_t total) {
+        ++calls;
+        EXPECT_LE(done, total);
+    });
+    EXPECT_GE(calls, 1u);
+}
+
+TEST(MonteCarlo, BadDistributionsAreNamed) {
+    EXPECT_THROW(validate_distribution({DistributionKind::normal, 1.0, -0.1}, "ch"), InputError);
+    EXPECT_THROW(validate_distribution({DistributionKind::uniform, 2.0, 1.0}, "ch"), InputError);
+    EXPECT_THROW(validate_distribution({DistributionKind::triangular, 1.0, 3.0, 2.0}, "ch"), InputError);
+    EXPECT_THROW(validate_distribution({DistributionKind::lognormal, -1.0, 0.1}, "ch"), InputError);
+    try {
+        TruncatedDistribution({DistributionKind::uniform, -3.0, -1.0}, {1e-300, INFINITY}, "ch_m2_per_year");
+        FAIL();
+    } catch (const InputError& e) {
+        EXPECT_EQ(std::string(e.quantity()).rfind("ch_m2_per_year", 0), 0u);
+    }
+    // Truncation to the physical range is exact: a normal N(1, 1) cut at 1 is a half-normal, whose
+    // median is 1 + 0.6745 (the normal quartile, Φ⁻¹(0.75)).
+    const TruncatedDistribution t({DistributionKind::normal, 1.0, 1.0}, {1.0, INFINITY}, "kh/ks");
+    EXPECT_NEAR(t.quantile(0.5), 1.0 + 0.6744897501960817, 1e-12);
+    EXPECT_GE(t.quantile(1e-9), 1.0);
+}
