@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "wickgrid/cell.hpp"
+#include "wickgrid/settlement.hpp"
 #include "wickgrid/search.hpp"
 
 namespace wickgrid {
@@ -30,7 +31,27 @@ struct DesignInput {
     double deadline_s = 0.0;
     SpacingBounds bounds;
     double increment_m = 0.05;
+    // Staged loading and settlement (all optional). Without loading the load is instantaneous at
+    // day 0. The settlement model is the e–log profile, else mv·q·H with the clay's mv, else none
+    // (degrees only, load-weighted).
+    std::optional<LoadHistory> loading;
+    std::optional<SoilProfile> profile;
+    std::optional<double> clay_mv_m2_per_kN;
+    // Residual-settlement criterion instead of the degree: settlement after the deadline (until
+    // deadline + service, or to the end) must not exceed the limit.
+    std::optional<double> residual_limit_m;
+    std::optional<double> service_s;
+
+    bool has_settlement() const { return loading && (profile || clay_mv_m2_per_kN); }
+    bool staged() const { return loading.has_value() || residual_limit_m.has_value(); }
+    std::function<double(double)> ultimate_settlement() const;  // q (kPa) → m, or identity
 };
+
+// The load history of a design: its loading, or 1 kPa at day 0 for degree-only designs.
+LoadHistory load_history_of(const DesignInput& input);
+
+// Settlement (or load-weighted degree) history of one unit cell under the design's loading.
+SettlementHistory history_of(const DesignInput& input, const UnitCell& cell);
 
 enum class RankingBasis { cost_per_hectare, drain_length_per_hectare };
 
@@ -54,6 +75,11 @@ struct DesignRow {
     double drain_length_per_hectare_m = 0.0;
     std::optional<double> cost_per_hectare;
     std::optional<int> rank;  // 1 = best among feasible rows
+    // With a settlement model: under the permanent load, at the chosen spacing.
+    std::optional<double> ultimate_settlement_m;
+    std::optional<double> settlement_at_deadline_m;
+    std::optional<double> residual_settlement_m;
+    std::optional<double> time_to_target_s_opt;  // staged designs: when the criterion is first met
 };
 
 struct DesignResult {
@@ -78,10 +104,13 @@ namespace wickgrid {
 struct CurvePoint {
     double time_s = 0.0;
     Degrees degrees;
+    std::optional<double> settlement_m;
 };
 
-// Degree–time table of one unit cell at the given times (s, each >= 0).
+// Degree–time table of one unit cell at the given times (s, each >= 0): the step response, or
+// under the design's load history (degrees relative to the final load) with settlement.
 std::vector<CurvePoint> degree_curve(const UnitCell& cell, const std::vector<double>& times_s);
+std::vector<CurvePoint> degree_curve(const DesignInput& input, const UnitCell& cell, const std::vector<double>& times_s);
 
 // Evenly spaced times from 0 to span_s inclusive (points >= 2).
 std::vector<double> even_times_s(double span_s, int points);

@@ -7,7 +7,26 @@ namespace wickgrid {
 std::vector<CurvePoint> degree_curve(const UnitCell& cell, const std::vector<double>& times_s) {
     std::vector<CurvePoint> points;
     points.reserve(times_s.size());
-    for (const double t : times_s) points.push_back({t, cell.at(t)});
+    for (const double t : times_s) points.push_back({t, cell.at(t), std::nullopt});
+    return points;
+}
+
+std::vector<CurvePoint> degree_curve(const DesignInput& input, const UnitCell& cell, const std::vector<double>& times_s) {
+    if (!input.loading) {
+        auto points = degree_curve(cell, times_s);
+        return points;
+    }
+    const SettlementHistory history = history_of(input, cell);
+    const LoadHistory loads = load_history_of(input);
+    const SettlementHistory vertical(input.ultimate_settlement(), loads, [&cell](double t) { return cell.at(t).vertical; });
+    const SettlementHistory radial(input.ultimate_settlement(), loads, [&cell](double t) { return cell.at(t).radial; });
+    std::vector<CurvePoint> points;
+    for (const double t : times_s) {
+        require_non_negative("time (s)", t);
+        CurvePoint p{t, {vertical.degree(t), radial.degree(t), history.degree(t)}, std::nullopt};
+        if (input.has_settlement()) p.settlement_m = history.settlement_m(t);
+        points.push_back(p);
+    }
     return points;
 }
 

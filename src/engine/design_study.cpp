@@ -33,7 +33,113 @@ double round_down_spacing(double limit_m, double increment_m, double minimum_m) 
 }
 
 namespace {
+// How well a unit cell meets the design criterion: >= 0 when met.
+double margin(const DesignInput& input, const SettlementHistory& history) {
+    if (input.residual_limit_m) return *input.residual_limit_m - history.residual_m(input.deadline_s, input.service_s);
+    return history.degree(input.deadline_s) - input.target_degree;
+}
+
+double margin_at(const DesignInput& input, const CellSpec& base, double spacing_m) {
+    CellSpec spec = base;
+    spec.spacing_m = spacing_m;
+    const UnitCell cell(spec);
+    return margin(input, history_of(input, cell));
+}
+
+// Largest spacing meeting the criterion: scan the increment grid from the minimum, then bisect the
+// first failing step to far below a millimetre.
+SpacingLimit staged_limit(const DesignInput& input, const CellSpec& base) {
+    SpacingLimit limit;
+    const double lo = input.bounds.min_m, hi = input.bounds.max_m;
+    double ok = lo;
+    if (margin_at(input, base, lo) < 0.0) return limit;
+    limit.feasible = true;
+    for (int k = 1;; ++k) {
+        const double s = std::min(hi, lo + k * input.increment_m);
+        if (margin_at(input, base, s) < 0.0) {
+            double bad = s;
+            while (bad - ok > 1e-7) {
+                const double mid = 0.5 * (ok + bad);
+                (margin_at(input, base, mid) >= 0.0 ? ok : bad) = mid;
+            }
+            limit.spacing_m = ok;
+            return limit;
+        }
+        ok = s;
+        if (s >= hi) break;
+    }
+    limit.at_maximum = true;
+    limit.spacing_m = hi;
+    return limit;
+}
+
+// Earliest time at which the criterion holds for this cell (s); scans log-spaced times to 100
+// years, then bisects the first crossing.
+double staged_time_to_target(const DesignInput& input, const SettlementHistory& history) {
+    auto met = [&](double t) {
+        if (input.residual_limit_m) return history.residual_m(t, input.service_s) <= *input.residual_limit_m;
+        return history.degree(t) >= input.target_degree;
+    };
+    double before = 0.0;
+    const double first = units::seconds_per_day, last = 100.0 * units::seconds_per_year;
+    for (int i = 0; i <= 400; ++i) {
+        const double t = first * std::pow(last / first, i / 400.0);
+        if (met(t)) {
+            double after = t;
+            while (after - before > 1.0) {
+                const double mid = 0.5 * (before + after);
+                (met(mid) ? after : before) = mid;
+            }
+            return after;
+        }
+        before = t;
+    }
+    throw InputError("design criterion", input.residual_limit_m ? *input.residual_limit_m : input.target_degree,
+                     "reachable within 100 years for this unit cell");
+}
+
+DesignRow evaluate_staged(const DesignInput& input, const DrainProductSpec& product, Pattern pattern) {
+    DesignRow row;
+    row.drain = product.name;
+    row.pattern = pattern;
+    const CellSpec base = product_cell(input, product, pattern, input.bounds.min_m);
+    const SpacingLimit limit = staged_limit(input, base);
+    row.feasible = limit.feasible;
+    row.limited_by_maximum = limit.at_maximum;
+    row.spacing_limit_m = limit.spacing_m;
+    row.spacing_m = limit.feasible ? round_down_spacing(limit.spacing_m, input.increment_m, input.bounds.min_m)
+                                   : input.bounds.min_m;
+    CellSpec chosen = base;
+    chosen.spacing_m = row.spacing_m;
+    const UnitCell cell(chosen);
+    const SettlementHistory history = history_of(input, cell);
+    const auto part = [&](auto&& response) {
+        return SettlementHistory(input.ultimate_settlement(), load_history_of(input), response).degree(input.deadline_s);
+    };
+    row.at_deadline.vertical = part([&cell](double t) { return cell.at(t).vertical; });
+    row.at_deadline.radial = part([&cell](double t) { return cell.at(t).radial; });
+    row.at_deadline.combined = history.degree(input.deadline_s);
+    row.equivalent_diameter_m = chosen.drain.equivalent_diameter_m;
+    row.smear_diameter_m = chosen.drain.smear_diameter_m;
+    row.influence_diameter_m = cell.influence_diameter_m();
+    row.n = cell.n();
+    row.s = cell.s();
+    row.mu_smear = cell.mu_smear();
+    row.mu = cell.mu_depth_mean();
+    row.time_to_target_s = staged_time_to_target(input, history);
+    row.drains_per_hectare = drains_per_hectare(pattern, row.spacing_m);
+    row.drain_length_per_hectare_m = row.drains_per_hectare * chosen.drain.length_m;
+    if (product.cost_per_m) row.cost_per_hectare = row.drain_length_per_hectare_m * *product.cost_per_m;
+    if (input.has_settlement()) {
+        row.ultimate_settlement_m = history.final_m();
+        row.settlement_at_deadline_m = history.settlement_m(input.deadline_s);
+        row.residual_settlement_m = history.residual_m(input.deadline_s, input.service_s);
+    }
+    return row;
+}
+
 DesignRow evaluate(const DesignInput& input, const DrainProductSpec& product, Pattern pattern) {
+    if (input.staged()) return evaluate_staged(input, product, pattern);
     DesignRow row;
     row.drain = product.name;
     row.pattern = pattern;
@@ -65,7 +171,14 @@ DesignRow evaluate(const DesignInput& input, const DrainProductSpec& product, Pa
 }  // namespace
 
 DesignResult run_design(const DesignInput& input) {
-    require_open_unit("target degree of consolidation", input.target_degree);
+    if (input.residual_limit_m) {
+        require_non_negative("residual settlement limit (m)", *input.residual_limit_m);
+        if (!input.has_settlement())
+            throw InputError("residual settlement limit (m)", *input.residual_limit_m,
+                             "used with a loading and a settlement model (clay layers or mv)");
+    } else {
+        require_open_unit("target degree of consolidation", input.target_degree);
+    }
     require_positive("deadline (s)", input.deadline_s);
     DesignResult result;
     for (const auto& product : input.products)

@@ -1,0 +1,76 @@
+#pragma once
+// Primary consolidation settlement: one-dimensional e–log σ' (normally and over-consolidated
+// branches) or a constant mv per sublayer, summed over slices; and the settlement–time history
+// under a load history with an optional surcharge.
+#include <optional>
+#include <vector>
+
+#include "wickgrid/loading.hpp"
+
+namespace wickgrid {
+
+struct SoilLayer {
+    double thickness_m = 0.0;
+    double unit_weight_kN_per_m3 = 0.0;  // bulk unit weight
+    // e–log σ' parameters (all four, with the preconsolidation pressure or an OCR) ...
+    std::optional<double> e0, cc, cr, preconsolidation_kPa, ocr;
+    // ... or a constant coefficient of volume compressibility.
+    std::optional<double> mv_m2_per_kN;
+};
+
+struct SoilProfile {
+    std::vector<SoilLayer> layers;
+    double groundwater_depth_m = 0.0;  // below the top of the clay
+    int slices_per_layer = 10;
+};
+
+void validate_profile(const SoilProfile& profile);
+
+double profile_thickness_m(const SoilProfile& profile);
+
+struct SliceState {
+    double depth_m;          // slice centre below the top of the clay
+    double thickness_m;
+    double sigma_v0_kPa;     // initial vertical effective stress
+    double sigma_p_kPa;      // preconsolidation pressure (σ'v0 for mv layers)
+};
+
+std::vector<SliceState> slices(const SoilProfile& profile);
+
+// Primary settlement (m) of the whole profile under a uniform increase of vertical stress.
+double ultimate_settlement_m(const SoilProfile& profile, double load_kPa);
+
+// One slice by e–log σ': Δe = Cr·log(σ'p/σ'0) + Cc·log(σ'f/σ'p) (each branch where it applies),
+// settlement Δe/(1 + e0)·H; or mv·Δσ·H.
+double slice_settlement_m(const SoilLayer& layer, const SliceState& slice, double load_kPa);
+
+// Settlement against time under a load history: increments of ultimate settlement from the
+// cumulative load, each with the unit cell's step response (linear superposition). After the
+// surcharge is removed the settlement is held at its value at removal until the permanent-load
+// history catches up (rebound and secondary compression are ignored).
+class SettlementHistory {
+public:
+    // ultimate(q) gives the ultimate settlement for a total load q (kPa); for degree-only use pass
+    // the identity, so that settlement is proportional to load.
+    SettlementHistory(std::function<double(double load_kPa)> ultimate, const LoadHistory& history,
+                      StepResponse response);
+
+    double settlement_m(double time_s) const;
+    double final_m() const noexcept { return final_m_; }  // ultimate under the permanent load
+    double degree(double time_s) const { return settlement_m(time_s) / final_m_; }
+    // Settlement still to come after time t under the permanent load: until t + period, or to the
+    // end (period absent). Negative values (a surcharge that over-compressed) are reported as is.
+    double residual_m(double time_s, std::optional<double> period_s) const;
+
+private:
+    double permanent_m(double time_s) const;
+    double loaded_m(double time_s) const;
+
+    StepResponse response_;
+    std::vector<ResponseIncrement> permanent_;  // permanent stages alone
+    std::vector<ResponseIncrement> all_;        // permanent stages and the surcharge
+    std::optional<double> removal_s_;
+    double final_m_ = 0.0;
+};
+
+}  // namespace wickgrid
