@@ -18,52 +18,11 @@ using namespace wickgrid;
 namespace fs = std::filesystem;
 using nlohmann::json;
 
+#include "cli_helpers.hpp"
+
+using namespace wickgrid::cli_testing;
+
 namespace {
-struct CommandRun {
-    int exit_code;
-    std::string out;
-    std::string err;
-};
-
-std::string slurp(const fs::path& p) {
-    std::ifstream in(p, std::ios::binary);
-    std::ostringstream text;
-    text << in.rdbuf();
-    return text.str();
-}
-
-fs::path scratch() {
-    static int counter = 0;
-    const fs::path dir = fs::temp_directory_path() /
-                         ("wickgrid-cli-" + std::to_string(::getpid()) + "-" + std::to_string(counter++));
-    fs::create_directories(dir);
-    return dir;
-}
-
-CommandRun run(const std::string& args) {
-    const fs::path dir = scratch();
-    const std::string command = std::string(WICKGRID_BINARY) + " " + args + " >" + (dir / "out").string() + " 2>" +
-                                (dir / "err").string();
-    const int status = std::system(command.c_str());
-    CommandRun r{WEXITSTATUS(status), slurp(dir / "out"), slurp(dir / "err")};
-    fs::remove_all(dir);
-    return r;
-}
-
-std::string source(const std::string& relative) { return std::string(WICKGRID_SOURCE_DIR) + "/" + relative; }
-
-fs::path write_case(const std::string& text) {
-    const fs::path file = scratch() / "case.yaml";
-    std::ofstream(file) << text;
-    return file;
-}
-
-std::string demo_with(const std::string& from, const std::string& to) {
-    std::string text = slurp(source("demo/scenario.yaml"));
-    text.replace(text.find(from), from.size(), to);
-    return text;
-}
-
 const std::vector<std::string> scenario_files{"demo/scenario.yaml", "configs/one-way-drainage.yaml",
                                               "configs/both-ends-outlets.yaml", "configs/product-catalogue.yaml"};
 }  // namespace

@@ -67,7 +67,7 @@ Runner add_curve(CLI::App& app) {
                 throw InputError("--spacing", o->spacing_m, e.allowed() + " (" + e.quantity() + ")");
             }
         }();
-        report::CurveReport curve{drain.name, pattern, o->spacing_m, degree_curve(cell, times)};
+        report::CurveReport curve{drain.name, pattern, o->spacing_m, degree_curve(input, cell, times)};
         if (o->json) print_stdout(report::curve_json(curve).dump(2) + "\n");
         else if (o->csv) print_stdout(report::curve_csv(curve));
         else print_stdout(report::curve_table(curve));

@@ -39,6 +39,7 @@ int main(int argc, char** argv) {
     const cli::Runner design = cli::add_design(app);
     const cli::Runner curve = cli::add_curve(app);
     const cli::Runner sweep = cli::add_sweep(app);
+    const cli::Runner surcharge = cli::add_surcharge(app);
     try {
         app.parse(argc, argv);
     } catch (const CLI::CallForHelp& e) {
@@ -58,6 +59,7 @@ int main(int argc, char** argv) {
         if (app.got_subcommand("design")) return design();
         if (app.got_subcommand("curve")) return curve();
         if (app.got_subcommand("sweep")) return sweep();
+        if (app.got_subcommand("surcharge")) return surcharge();
     } catch (const scenario::ScenarioError& e) {
         report_error(e.mark().line > 0 ? e.what() : e.file() + ": " + e.message());
         return cli::bad_input;

@@ -28,6 +28,25 @@ using nlohmann::json;
 
 double days(double seconds) { return units::seconds_to_days(seconds); }
 
+nlohmann::json mm_or_null(const std::optional<double>& m) {
+    return m ? nlohmann::json(*m * 1000.0) : nlohmann::json(nullptr);
+}
+
+bool residual_criterion(const scenario::Scenario& s) { return s.residual_limit_m.has_value(); }
+
+nlohmann::json target_json(const scenario::Scenario& s) {
+    nlohmann::json t{{"deadline_days", s.deadline_days}};
+    if (residual_criterion(s)) {
+        t["criterion"] = "residual_settlement";
+        t["residual_settlement_mm"] = *s.residual_limit_m * 1000.0;
+        t["service_days"] = s.service_days ? nlohmann::json(*s.service_days) : nlohmann::json(nullptr);
+    } else {
+        t["criterion"] = "degree";
+        t["degree"] = s.target_degree;
+    }
+    return t;
+}
+
 std::string ranking_name(RankingBasis basis) {
     return basis == RankingBasis::cost_per_hectare ? "cost_per_hectare" : "drain_length_per_hectare";
 }
@@ -103,13 +122,18 @@ nlohmann::json design_json(const scenario::Scenario& s, const DesignResult& resu
                  {"drains_per_hectare", r.drains_per_hectare},
                  {"drain_length_per_hectare_m", r.drain_length_per_hectare_m},
                  {"cost_per_hectare", r.cost_per_hectare ? json(*r.cost_per_hectare) : json(nullptr)},
-                 {"rank", r.rank ? json(*r.rank) : json(nullptr)}};
+                 {"rank", r.rank ? json(*r.rank) : json(nullptr)},
+                 {"ultimate_settlement_mm", mm_or_null(r.ultimate_settlement_m)},
+                 {"settlement_at_deadline_mm", mm_or_null(r.settlement_at_deadline_m)},
+                 {"residual_settlement_mm", mm_or_null(r.residual_settlement_m)}};
         designs.push_back(std::move(row));
     }
     return json{{"schema", 1},
                 {"title", s.title},
                 {"scenario", s.file},
-                {"target", {{"degree", s.target_degree}, {"deadline_days", s.deadline_days}}},
+                {"target", target_json(s)},
+                {"loading", s.loading ? "staged" : "instantaneous"},
+                {"degree_basis", "relative to the final permanent load"},
                 {"radial_theory", std::string(scenario::to_string(s.radial_theory))},
                 {"smear_shape", std::string(scenario::to_string(s.smear_shape))},
                 {"ranking", ranking_name(result.ranking)},
@@ -121,7 +145,8 @@ std::string design_csv(const DesignResult& result) {
     std::ostringstream out;
     out << "drain,pattern,feasible,rank,spacing_limit_m,spacing_m,influence_diameter_m,n,s,mu,"
            "degree_vertical,degree_radial,degree,time_to_target_days,drains_per_hectare,"
-           "drain_length_per_hectare_m,cost_per_hectare\n";
+           "drain_length_per_hectare_m,cost_per_hectare,ultimate_settlement_mm,settlement_at_deadline_mm,"
+           "residual_settlement_mm\n";
     out.precision(10);
     for (const auto& r : result.rows) {
         out << escape_csv(r.drain) << ',' << to_string(r.pattern) << ',' << (r.feasible ? "true" : "false") << ','
@@ -132,12 +157,22 @@ std::string design_csv(const DesignResult& result) {
             << r.at_deadline.vertical << ',' << r.at_deadline.radial << ',' << r.at_deadline.combined << ','
             << days(r.time_to_target_s) << ',' << r.drains_per_hectare << ',' << r.drain_length_per_hectare_m << ',';
         if (r.cost_per_hectare) out << *r.cost_per_hectare;
+        for (const auto& v : {r.ultimate_settlement_m, r.settlement_at_deadline_m, r.residual_settlement_m}) {
+            out << ',';
+            if (v) out << *v * 1000.0;
+        }
         out << '\n';
     }
     return out.str();
 }
 
 namespace {
+bool any_settlement(const DesignResult& result) {
+    for (const auto& r : result.rows)
+        if (r.ultimate_settlement_m) return true;
+    return false;
+}
+
 std::vector<std::vector<std::string>> result_rows(const DesignResult& result, bool with_cost) {
     std::vector<std::vector<std::string>> rows;
     for (const auto& r : result.rows) {
@@ -159,15 +194,23 @@ std::vector<std::vector<std::string>> result_rows(const DesignResult& result, bo
             fixed(r.drain_length_per_hectare_m, 0),
         };
         if (with_cost) row.push_back(r.cost_per_hectare ? fixed(*r.cost_per_hectare, 0) : "-");
+        if (any_settlement(result))
+            for (const auto& v : {r.ultimate_settlement_m, r.settlement_at_deadline_m, r.residual_settlement_m})
+                row.push_back(v ? fixed(*v * 1000.0, 0) : "-");
         rows.push_back(std::move(row));
     }
     return rows;
 }
 
-std::vector<std::string> result_header(bool with_cost) {
+std::vector<std::string> result_header(const DesignResult& result, bool with_cost) {
     std::vector<std::string> h{"drain", "pattern", "rank", "limit m", "spacing m", "De m", "n", "s", "μ",
                                "Uv %", "Ur %", "U %", "t90 days", "drains/ha", "drain m/ha"};
     if (with_cost) h.push_back("cost/ha");
+    if (any_settlement(result)) {
+        h.push_back("s_final mm");
+        h.push_back("s_deadline mm");
+        h.push_back("residual mm");
+    }
     return h;
 }
 
@@ -177,8 +220,22 @@ bool any_cost(const DesignResult& result) {
     return false;
 }
 
+std::string target_label(const scenario::Scenario& s) {
+    return residual_criterion(s) ? std::string("t_residual") : "t" + fixed(100.0 * s.target_degree, 0);
+}
+
+std::string criterion_text(const scenario::Scenario& s) {
+    if (residual_criterion(s))
+        return "residual settlement at most " + fixed(*s.residual_limit_m * 1000.0, 0) + " mm after day " +
+               fixed(s.deadline_days, 0) +
+               (s.service_days ? " over " + fixed(*s.service_days, 0) + " days of service" : std::string(" (to the end of primary consolidation)"));
+    return "U = " + fixed(100.0 * s.target_degree, 1) + " % by day " + fixed(s.deadline_days, 0);
+}
 std::string recommendation(const scenario::Scenario& s, const DesignResult& result) {
     const DesignRow* best = best_row(result);
+ if (!best && residual_criterion(s))
+        return "No drain product and pattern meets the criterion (" + criterion_text(s) + ") within spacings of " +
+               fixed(s.spacing.min_m, 2) + "–" + fixed(s.spacing.max_m, 2) + " m.";
     if (!best)
         return "No drain product and pattern reaches U = " + fixed(100.0 * s.target_degree, 0) + " % by day " +
                fixed(s.deadline_days, 0) + " within spacings of " + fixed(s.spacing.min_m, 2) + "–" +
@@ -191,25 +248,26 @@ std::string recommendation(const scenario::Scenario& s, const DesignResult& resu
                        "), reaching U = " + fixed(100.0 * best->at_deadline.combined, 1) + " % at day " +
                        fixed(s.deadline_days, 0) + " and the target at day " +
                        fixed(days(best->time_to_target_s), 1) + ".";
+    if (best->residual_settlement_m)
+        text += " Settlement: " + fixed(*best->settlement_at_deadline_m * 1000.0, 0) + " mm of " +
+                fixed(*best->ultimate_settlement_m * 1000.0, 0) + " mm by the deadline, " +
+                fixed(*best->residual_settlement_m * 1000.0, 0) + " mm still to come.";
     if (best->limited_by_maximum)
         text += " The target is met even at the largest spacing considered; a wider spacing may also work.";
     return text;
 }
 
-std::string target_label(const scenario::Scenario& s) {
-    return "t" + fixed(100.0 * s.target_degree, 0);
-}
 }  // namespace
 
 std::string design_table(const scenario::Scenario& s, const DesignResult& result) {
     std::ostringstream out;
     out << s.title << "\n";
-    out << "target U = " << fixed(100.0 * s.target_degree, 1) << " % by day " << fixed(s.deadline_days, 0)
-        << "; spacings " << fixed(s.spacing.min_m, 2) << "–" << fixed(s.spacing.max_m, 2) << " m in steps of "
+    out << "criterion: " << criterion_text(s) << (s.loading ? "; staged loading" : "") << "; spacings " << fixed(s.spacing.min_m, 2) << "–" << fixed(s.spacing.max_m, 2) << " m in steps of "
         << fixed(s.increment_m, 2) << " m\n\n";
-    auto header = result_header(any_cost(result));
+    auto header = result_header(result, any_cost(result));
     header[12] = target_label(s) + " days";
     out << table(header, result_rows(result, any_cost(result)));
+    if (s.loading) out << "\nDegrees are relative to the final permanent load, under the load history.";
     out << "\nDegrees are at the deadline at the chosen spacing; " << target_label(s)
         << " is the time to the target there. '+' marks a limit capped at the largest spacing; '*' an "
            "infeasible row evaluated at the minimum spacing.\n";
@@ -225,7 +283,7 @@ std::string design_markdown(const scenario::Scenario& s, const DesignResult& res
     out << "Scenario file: `" << s.file << "`. Produced by wickgrid " << "0.1.0" << ".\n\n";
     out << "## Result\n\n" << recommendation(s, result) << "\n\n";
     out << "## Inputs\n\n| quantity | value |\n|---|---|\n";
-    out << "| target average degree of consolidation | " << fixed(100.0 * s.target_degree, 1) << " % |\n";
+    out << "| design criterion | " << criterion_text(s) << " |\n";
     out << "| deadline from the start of loading | " << fixed(s.deadline_days, 0) << " days |\n";
     out << "| clay thickness | " << fixed(s.clay.thickness_m, 2) << " m |\n";
     out << "| vertical drainage | " << scenario::to_string(s.clay.drainage) << " |\n";
@@ -249,8 +307,35 @@ std::string design_markdown(const scenario::Scenario& s, const DesignResult& res
             << (d.method ? std::string(to_string(*d.method)) : std::string("given")) << " | "
             << fixed(units::per_second_to_per_year(d.discharge_capacity_m3_per_s), 1) << " | "
             << (d.cost_per_m ? fixed(*d.cost_per_m, 2) : std::string("-")) << " |\n";
+    if (s.loading) {
+        out << "\n| load stage | start day | end day | pressure (kPa) |\n|---|---|---|---|\n";
+        for (std::size_t i = 0; i < s.loading->stages.size(); ++i) {
+            const auto& st = s.loading->stages[i];
+            out << "| " << i + 1 << " | " << fixed(days(st.start_s), 0) << " | " << fixed(days(st.end_s), 0) << " | "
+                << fixed(st.pressure_kPa, 1) << " |\n";
+        }
+        if (s.loading->surcharge) {
+            const auto& su = *s.loading->surcharge;
+            out << "| surcharge (removed day " << fixed(days(su.removal_s), 0) << ") | " << fixed(days(su.start_s), 0)
+                << " | " << fixed(days(su.end_s), 0) << " | " << fixed(su.pressure_kPa, 1) << " |\n";
+        }
+    }
+    if (s.profile) {
+        out << "\n| clay layer | thickness (m) | γ (kN/m³) | compressibility |\n|---|---|---|---|\n";
+        for (std::size_t i = 0; i < s.profile->layers.size(); ++i) {
+            const auto& l = s.profile->layers[i];
+            out << "| " << i + 1 << " | " << fixed(l.thickness_m, 2) << " | " << fixed(l.unit_weight_kN_per_m3, 1) << " | ";
+            if (l.mv_m2_per_kN) out << "mv = " << *l.mv_m2_per_kN << " m²/kN";
+            else
+                out << "e0 = " << fixed(*l.e0, 2) << ", Cc = " << fixed(*l.cc, 3) << ", Cr = " << fixed(*l.cr, 3) << ", "
+                    << (l.ocr ? "OCR = " + fixed(*l.ocr, 2) : "σ'p = " + fixed(*l.preconsolidation_kPa, 1) + " kPa");
+            out << " |\n";
+        }
+        out << "\nGroundwater " << fixed(s.profile->groundwater_depth_m, 2) << " m below the top of the clay; "
+            << s.profile->slices_per_layer << " slices per layer.\n";
+    }
     out << "\n## Results\n\n";
-    auto header = result_header(with_cost);
+    auto header = result_header(result, with_cost);
     header[12] = target_label(s) + " days";
     out << "|";
     for (const auto& h : header) out << ' ' << h << " |";
@@ -281,9 +366,17 @@ std::string design_markdown(const scenario::Scenario& s, const DesignResult& res
            "(1994) 0.5a + 0.7b; mandrel by equal area; influence diameter 1.05 s (triangular) or 1.128 s "
            "(square), Barron (1948).\n"
            "- kh = ch·mv·γw (γw = 9.81 kN/m³) where kh is not given.\n"
+           "- Staged loading (when given): linear superposition of the unit cell's response to each load "
+           "increment, ramps integrated by adaptive Gauss–Kronrod quadrature (checked against Olson 1977); "
+           "degrees are relative to the final permanent load. Settlement: one-dimensional e–log σ' "
+           "(compression index Cc above σ'p, recompression index Cr below) or mv per layer, summed over slices; "
+           "each increment weighted by the ultimate settlement it adds. After a surcharge is removed the "
+           "settlement is held until the permanent-load history catches up: rebound and secondary "
+           "compression are ignored.\n"
            "- Limiting spacing: the largest spacing at which U reaches the target at the deadline, solved with "
            "TOMS 748 (Alefeld, Potra & Shi 1995); the chosen spacing is rounded down to the increment.\n\n";
-    out << "## Assumptions\n\nInstantaneous loading at day 0; one uniform clay layer; drains fully penetrating "
+    out << "## Assumptions\n\n" << (s.loading ? "Loading as tabled above" : "Instantaneous loading at day 0")
+        << "; uniform consolidation coefficients over the clay; drains fully penetrating "
            "the clay; equal-strain radial flow; linear, small-strain consolidation with constant coefficients; "
            "no secondary compression.\n\n";
     out << "## Cautions\n\n";
@@ -297,7 +390,8 @@ nlohmann::json curve_json(const CurveReport& curve) {
         points.push_back({{"time_days", days(p.time_s)},
                           {"degree_vertical", p.degrees.vertical},
                           {"degree_radial", p.degrees.radial},
-                          {"degree", p.degrees.combined}});
+                          {"degree", p.degrees.combined},
+                          {"settlement_mm", mm_or_null(p.settlement_m)}});
     return json{{"drain", curve.drain},
                 {"pattern", std::string(to_string(curve.pattern))},
                 {"spacing_m", curve.spacing_m},
@@ -307,22 +401,30 @@ nlohmann::json curve_json(const CurveReport& curve) {
 std::string curve_csv(const CurveReport& curve) {
     std::ostringstream out;
     out.precision(10);
-    out << "time_days,degree_vertical,degree_radial,degree\n";
-    for (const auto& p : curve.points)
-        out << days(p.time_s) << ',' << p.degrees.vertical << ',' << p.degrees.radial << ',' << p.degrees.combined
-            << '\n';
+    const bool settle = !curve.points.empty() && curve.points.front().settlement_m.has_value();
+    out << "time_days,degree_vertical,degree_radial,degree" << (settle ? ",settlement_mm" : "") << "\n";
+    for (const auto& p : curve.points) {
+        out << days(p.time_s) << ',' << p.degrees.vertical << ',' << p.degrees.radial << ',' << p.degrees.combined;
+        if (settle) out << ',' << *p.settlement_m * 1000.0;
+        out << '\n';
+    }
     return out.str();
 }
 
 std::string curve_table(const CurveReport& curve) {
     std::vector<std::vector<std::string>> rows;
-    for (const auto& p : curve.points)
+    const bool settle = !curve.points.empty() && curve.points.front().settlement_m.has_value();
+    for (const auto& p : curve.points) {
         rows.push_back({fixed(days(p.time_s), 1), fixed(100.0 * p.degrees.vertical, 2),
                         fixed(100.0 * p.degrees.radial, 2), fixed(100.0 * p.degrees.combined, 2)});
+        if (settle) rows.back().push_back(fixed(*p.settlement_m * 1000.0, 1));
+    }
     std::ostringstream out;
     out << "drain " << curve.drain << ", " << to_string(curve.pattern) << " pattern at " << fixed(curve.spacing_m, 3)
         << " m\n\n";
-    out << table({"day", "Uv %", "Ur %", "U %"}, rows, 0);
+    std::vector<std::string> header{"day", "Uv %", "Ur %", "U %"};
+    if (settle) header.push_back("settlement mm");
+    out << table(header, rows, 0);
     return out.str();
 }
 

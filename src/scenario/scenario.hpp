@@ -75,6 +75,13 @@ struct Scenario {
     SpacingBounds spacing;
     double increment_m = 0.05;
     StudyRequests studies;
+    // Staged loading and settlement (optional).
+    std::optional<double> fill_unit_weight_kN_per_m3;
+    std::optional<LoadHistory> loading;
+    std::optional<double> surcharge_max_height_m;
+    std::optional<SoilProfile> profile;
+    std::optional<double> residual_limit_m;
+    std::optional<double> service_days;
     std::map<std::string, Mark> marks;  // key path → where its value is
 
     DesignInput design_input() const;

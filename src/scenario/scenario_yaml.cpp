@@ -184,7 +184,7 @@ private:
 
 const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "drains", "drain_length_m",
                                         "drain_outlets", "installation", "patterns", "spacing", "studies",
-                                        "uncertain"};
+                                        "uncertain", "fill_unit_weight_kN_per_m3", "loading"};
 const std::vector<std::string> study_input_names{"ch_m2_per_year", "cv_m2_per_year", "kh_m_per_s",
                                                  "smear_diameter_ratio", "smear_permeability_ratio",
                                                  "discharge_capacity_m3_per_year"};
@@ -199,17 +199,93 @@ const std::vector<std::string> theory_names{"hansbo_1981", "equal_strain_integra
 void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "target");
     r.expect_map(node, "target");
-    r.allow_keys(node, "target", {"degree", "deadline_days"});
-    s.target_degree = r.number(node, "target", "degree", {0.0, false, 1.0, false, ""});
+    r.allow_keys(node, "target", {"degree", "deadline_days", "residual_settlement_mm", "service_days"});
+    if (node["degree"] && node["residual_settlement_mm"])
+        r.fail(node["residual_settlement_mm"], "target.residual_settlement_mm",
+               "give either 'degree' or 'residual_settlement_mm' as the design criterion, not both");
+    if (node["residual_settlement_mm"]) {
+        s.residual_limit_m = units::mm_to_m(r.number(node, "target", "residual_settlement_mm", non_negative("mm")));
+        s.service_days = r.optional_number(node, "target", "service_days", positive("days"));
+        s.target_degree = 0.9;  // not the criterion; kept for reports of the degree reached
+    } else {
+        if (node["service_days"])
+            r.fail(node["service_days"], "target.service_days", "goes with 'residual_settlement_mm' only");
+        s.target_degree = r.number(node, "target", "degree", {0.0, false, 1.0, false, ""});
+    }
     s.deadline_days = r.number(node, "target", "deadline_days", positive("days"));
+}
+
+void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
+    const YAML::Node node = clay["layers"];
+    r.remember("clay.layers", node);
+    if (!node.IsSequence() || node.size() == 0) r.fail(node, "clay.layers", "must be a list of at least one layer");
+    SoilProfile profile;
+    profile.groundwater_depth_m = r.optional_number(clay, "clay", "groundwater_depth_m", non_negative("m")).value_or(0.0);
+    const double per_layer = r.optional_number(clay, "clay", "slices_per_layer", {1.0, true, 1000.0, true, "(whole number)"}).value_or(10.0);
+    if (std::floor(per_layer) != per_layer) r.fail(clay["slices_per_layer"], "clay.slices_per_layer", "must be a whole number");
+    profile.slices_per_layer = static_cast<int>(per_layer);
+    for (std::size_t i = 0; i < node.size(); ++i) {
+        const std::string path = "clay.layers[" + std::to_string(i) + "]";
+        const YAML::Node l = node[i];
+        r.expect_map(l, path);
+        r.allow_keys(l, path, {"thickness_m", "unit_weight_kN_per_m3", "e0", "cc", "cr", "preconsolidation_kPa", "ocr",
+                               "mv_m2_per_kN"});
+        SoilLayer layer;
+        layer.thickness_m = r.number(l, path, "thickness_m", positive("m"));
+        layer.unit_weight_kN_per_m3 = r.number(l, path, "unit_weight_kN_per_m3", positive("kN/m³"));
+        layer.mv_m2_per_kN = r.optional_number(l, path, "mv_m2_per_kN", positive("m²/kN"));
+        if (layer.mv_m2_per_kN) {
+            for (const char* key : {"e0", "cc", "cr", "preconsolidation_kPa", "ocr"})
+                if (l[key]) r.fail(l[key], path + "." + key, "a layer takes either mv_m2_per_kN or e0/cc/cr, not both");
+        } else {
+            layer.e0 = r.number(l, path, "e0", positive(""));
+            layer.cc = r.number(l, path, "cc", positive(""));
+            layer.cr = r.number(l, path, "cr", non_negative(""));
+            if (*layer.cr > *layer.cc) r.fail(l["cr"], path + ".cr", "must not exceed cc (recompression is stiffer than virgin compression)");
+            if (l["preconsolidation_kPa"] && l["ocr"])
+                r.fail(l["ocr"], path + ".ocr", "give either 'preconsolidation_kPa' or 'ocr', not both");
+            if (!l["preconsolidation_kPa"] && !l["ocr"])
+                r.fail(l, path, "missing key 'preconsolidation_kPa' or 'ocr' in '" + path + "'");
+            layer.preconsolidation_kPa = r.optional_number(l, path, "preconsolidation_kPa", positive("kPa"));
+            layer.ocr = r.optional_number(l, path, "ocr", {1.0, true, inf, false, ""});
+        }
+        profile.layers.push_back(layer);
+    }
+    try {
+        validate_profile(profile);
+    } catch (const InputError& e) {
+        r.fail(node, "clay.layers", e.what());
+    }
+    // A preconsolidation pressure below the in-situ stress would be under-consolidated clay.
+    const auto all = slices(profile);
+    for (std::size_t i = 0, k = 0; i < profile.layers.size(); ++i)
+        for (int j = 0; j < profile.slices_per_layer; ++j, ++k)
+            if (profile.layers[i].preconsolidation_kPa && *profile.layers[i].preconsolidation_kPa < all[k].sigma_v0_kPa - 1e-9) {
+                const std::string path = "clay.layers[" + std::to_string(i) + "].preconsolidation_kPa";
+                r.fail(node[i]["preconsolidation_kPa"], path,
+                       format_value(*profile.layers[i].preconsolidation_kPa) +
+                           " kPa is below the in-situ effective stress " + format_value(all[k].sigma_v0_kPa) +
+                           " kPa at " + format_value(all[k].depth_m) + " m; under-consolidated clay is not supported");
+            }
+    s.profile = profile;
 }
 
 void read_clay(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "clay");
     r.expect_map(node, "clay");
     r.allow_keys(node, "clay", {"thickness_m", "cv_m2_per_year", "ch_m2_per_year", "mv_m2_per_kN", "kh_m_per_s",
-                                "vertical_drainage"});
-    s.clay.thickness_m = r.number(node, "clay", "thickness_m", positive("m"));
+                                "vertical_drainage", "layers", "groundwater_depth_m", "slices_per_layer"});
+    if (node["layers"]) read_layers(r, node, s);
+    if (s.profile && !node["thickness_m"]) {
+        s.clay.thickness_m = profile_thickness_m(*s.profile);
+        s.marks["clay.thickness_m"] = s.mark_of("clay.layers");
+    } else {
+        s.clay.thickness_m = r.number(node, "clay", "thickness_m", positive("m"));
+    }
+    if (s.profile && std::fabs(profile_thickness_m(*s.profile) - s.clay.thickness_m) > 1e-9 * s.clay.thickness_m)
+        r.fail(node["thickness_m"], "clay.thickness_m",
+               format_value(s.clay.thickness_m) + " is not allowed: it must equal the sum of the layer thicknesses, " +
+                   format_value(profile_thickness_m(*s.profile)) + " m");
     s.clay.cv_m2_per_s = units::per_year_to_per_second(r.number(node, "clay", "cv_m2_per_year", positive("m²/year")));
     s.clay.ch_m2_per_s = units::per_year_to_per_second(r.number(node, "clay", "ch_m2_per_year", positive("m²/year")));
     s.mv_m2_per_kN = r.optional_number(node, "clay", "mv_m2_per_kN", positive("m²/kN"));
@@ -513,6 +589,70 @@ void read_uncertain(const Reader& r, const YAML::Node& root, Scenario& s) {
     s.studies.monte_carlo = mc;
 }
 
+// A pressure from `pressure_kPa` or from `height_m` of fill.
+double stage_pressure(const Reader& r, const YAML::Node& node, const std::string& path, const Scenario& s) {
+    if (node["height_m"] && node["pressure_kPa"])
+        r.fail(node["pressure_kPa"], path + ".pressure_kPa", "give either 'height_m' or 'pressure_kPa', not both");
+    if (node["height_m"]) {
+        const double h = r.number(node, path, "height_m", positive("m"));
+        if (!s.fill_unit_weight_kN_per_m3)
+            r.fail(node["height_m"], path + ".height_m", "a fill height needs 'fill_unit_weight_kN_per_m3' at the top level");
+        return h * *s.fill_unit_weight_kN_per_m3;
+    }
+    if (!node["pressure_kPa"]) r.fail(node, path, "missing key 'height_m' or 'pressure_kPa' in '" + path + "'");
+    return r.number(node, path, "pressure_kPa", positive("kPa"));
+}
+
+void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
+    s.fill_unit_weight_kN_per_m3 = r.optional_number(root, "", "fill_unit_weight_kN_per_m3", positive("kN/m³"));
+    if (!root["loading"]) return;
+    const YAML::Node node = root["loading"];
+    r.expect_map(node, "loading");
+    r.allow_keys(node, "loading", {"stages", "surcharge"});
+    const YAML::Node stages = r.required(node, "loading", "stages");
+    if (!stages.IsSequence() || stages.size() == 0) r.fail(stages, "loading.stages", "must be a list of at least one stage");
+    LoadHistory h;
+    for (std::size_t i = 0; i < stages.size(); ++i) {
+        const std::string path = "loading.stages[" + std::to_string(i) + "]";
+        const YAML::Node st = stages[i];
+        r.expect_map(st, path);
+        r.allow_keys(st, path, {"start_day", "end_day", "height_m", "pressure_kPa"});
+        LoadStage stage;
+        const double start = r.number(st, path, "start_day", non_negative("days"));
+        const double end = r.optional_number(st, path, "end_day", {start, true, inf, false, "days (not before start_day)"}).value_or(start);
+        stage.start_s = units::days_to_seconds(start);
+        stage.end_s = units::days_to_seconds(end);
+        stage.pressure_kPa = stage_pressure(r, st, path, s);
+        h.stages.push_back(stage);
+    }
+    if (const YAML::Node sc = node["surcharge"]) {
+        const std::string path = "loading.surcharge";
+        r.expect_map(sc, path);
+        r.allow_keys(sc, path, {"start_day", "end_day", "removal_day", "height_m", "pressure_kPa", "max_height_m"});
+        Surcharge sur;
+        const double start = r.number(sc, path, "start_day", non_negative("days"));
+        const double end = r.optional_number(sc, path, "end_day", {start, true, inf, false, "days (not before start_day)"}).value_or(start);
+        const double removal = r.number(sc, path, "removal_day", {end, false, inf, false, "days (after end_day)"});
+        sur.start_s = units::days_to_seconds(start);
+        sur.end_s = units::days_to_seconds(end);
+        sur.removal_s = units::days_to_seconds(removal);
+        sur.pressure_kPa = stage_pressure(r, sc, path, s);
+        s.surcharge_max_height_m = r.optional_number(sc, path, "max_height_m", positive("m"));
+        h.surcharge = sur;
+    }
+    s.loading = h;
+}
+
+void check_settlement_criterion(const Reader& r, const Scenario& s) {
+    if (!s.residual_limit_m) return;
+    if (!s.loading)
+        r.fail_at(s.mark_of("target.residual_settlement_mm"), "target.residual_settlement_mm",
+                  "a residual settlement criterion needs a 'loading' block (the load that causes settlement)");
+    if (!s.profile && !s.mv_m2_per_kN)
+        r.fail_at(s.mark_of("target.residual_settlement_mm"), "target.residual_settlement_mm",
+                  "a residual settlement criterion needs 'clay.layers' or 'clay.mv_m2_per_kN' for the settlement");
+}
+
 Scenario read(const YAML::Node& root, const std::string& file) {
     Scenario s;
     s.file = file;
@@ -525,6 +665,8 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     s.title = root["title"] ? r.text(root["title"], "title") : file;
     read_target(r, root, s);
     read_clay(r, root, s);
+    read_loading(r, root, s);
+    check_settlement_criterion(r, s);
     read_drains(r, root, s);
     s.drain_length_m = r.optional_number(root, "", "drain_length_m", positive("m")).value_or(s.clay.thickness_m);
     if (!root["drain_length_m"]) s.marks["drain_length_m"] = s.mark_of("clay.thickness_m");
@@ -574,6 +716,11 @@ DesignInput Scenario::design_input() const {
     in.deadline_s = units::days_to_seconds(deadline_days);
     in.bounds = spacing;
     in.increment_m = increment_m;
+    in.loading = loading;
+    in.profile = profile;
+    if (!profile) in.clay_mv_m2_per_kN = mv_m2_per_kN;
+    in.residual_limit_m = residual_limit_m;
+    if (service_days) in.service_s = units::days_to_seconds(*service_days);
     return in;
 }
 

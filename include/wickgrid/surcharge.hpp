@@ -1,0 +1,26 @@
+#pragma once
+// Surcharge design by the classic preloading criterion: at removal, the settlement under the
+// permanent load plus surcharge equals the final primary settlement under the permanent load
+// alone (Johnson 1970, from memory as the usual reference). Rebound on removal and secondary
+// compression are ignored.
+#include "wickgrid/design.hpp"
+
+namespace wickgrid {
+
+struct SurchargeResult {
+    double pressure_kPa = 0.0;
+    double start_s = 0.0;
+    double end_s = 0.0;
+    double removal_s = 0.0;
+    double final_m = 0.0;                  // final primary settlement under the permanent load
+    double settlement_at_removal_m = 0.0;  // under permanent + surcharge, at removal
+    bool needed = true;                    // false: the permanent load alone reaches final by removal
+};
+
+// The surcharge pressure for removal at timing.removal_s (timing.pressure_kPa is ignored).
+SurchargeResult surcharge_for_removal(const DesignInput& input, const UnitCell& cell, const Surcharge& timing);
+
+// The removal time for the surcharge given in timing (timing.removal_s is ignored).
+SurchargeResult removal_for_surcharge(const DesignInput& input, const UnitCell& cell, const Surcharge& timing);
+
+}  // namespace wickgrid

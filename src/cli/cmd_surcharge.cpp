@@ -1,0 +1,119 @@
+// wickgrid surcharge FILE: surcharge needed for a removal day, or removal day for a surcharge.
+#include <spdlog/spdlog.h>
+
+#include <nlohmann/json.hpp>
+#include <sstream>
+
+#include "commands.hpp"
+#include "report/design_report.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/surcharge.hpp"
+#include "wickgrid/units.hpp"
+
+namespace wickgrid::cli {
+
+namespace {
+struct SurchargeOptions {
+    std::string file;
+    std::string drain;
+    std::string pattern;
+    double spacing_m = 0.0;
+    std::string find = "pressure";
+    std::optional<double> removal_day;
+    std::optional<double> max_height_m;
+    bool json = false;
+};
+
+const char* const ignores[] = {"secondary compression", "rebound when the surcharge is removed",
+                               "the stiffness gained by the clay during surcharging (linear theory)"};
+}  // namespace
+
+Runner add_surcharge(CLI::App& app) {
+    auto* cmd = app.add_subcommand("surcharge", "Surcharge needed for a removal day, or the removal day for a surcharge");
+    auto o = std::make_shared<SurchargeOptions>();
+    cmd->add_option("FILE", o->file, "Scenario file with a 'loading' block and a settlement model")->required();
+    cmd->add_option("--drain", o->drain, "Drain product name")->required();
+    cmd->add_option("--pattern", o->pattern, "triangular or square")->required()->check(CLI::IsMember({"triangular", "square"}));
+    cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(CLI::PositiveNumber);
+    cmd->add_option("--find", o->find, "pressure (for the removal day) or removal_day (for the surcharge in the file)")
+        ->check(CLI::IsMember({"pressure", "removal_day"}));
+    cmd->add_option("--removal-day", o->removal_day, "Removal day (overrides loading.surcharge.removal_day)")
+        ->check(CLI::PositiveNumber);
+    cmd->add_option("--max-height", o->max_height_m, "Warn when the surcharge fill exceeds this height (m)")
+        ->check(CLI::PositiveNumber);
+    cmd->add_flag("--json", o->json, "JSON on stdout");
+    return [o] {
+        const auto s = scenario::load_scenario(o->file);
+        if (!s.loading)
+            throw scenario::ScenarioError(s.file, {1, 1}, "loading", "surcharge design needs a 'loading' block with the permanent stages");
+        const DesignInput input = s.design_input();
+        const auto& drain = s.drain(o->drain);
+        const auto product = std::find_if(input.products.begin(), input.products.end(),
+                                          [&](const DrainProductSpec& p) { return p.name == drain.name; });
+        const Pattern pattern = o->pattern == "square" ? Pattern::square : Pattern::triangular;
+        UnitCell cell = [&] {
+            try {
+                return UnitCell(product_cell(input, *product, pattern, o->spacing_m));
+            } catch (const InputError& e) {
+                throw InputError("--spacing", o->spacing_m, e.allowed() + " (" + e.quantity() + ")");
+            }
+        }();
+        Surcharge timing;
+        if (s.loading->surcharge) {
+            timing = *s.loading->surcharge;
+        } else {
+            timing.start_s = timing.end_s = s.loading->end_of_construction_s();
+        }
+        if (o->removal_day) timing.removal_s = units::days_to_seconds(*o->removal_day);
+        SurchargeResult result;
+        if (o->find == "pressure") {
+            if (!s.loading->surcharge && !o->removal_day)
+                throw InputError("--removal-day", 0.0, "given when the scenario has no loading.surcharge block");
+            result = surcharge_for_removal(input, cell, timing);
+        } else {
+            if (!s.loading->surcharge)
+                throw scenario::ScenarioError(s.file, {1, 1}, "loading.surcharge",
+                                              "--find removal_day needs the surcharge (height or pressure) in 'loading.surcharge'");
+            result = removal_for_surcharge(input, cell, timing);
+        }
+        const std::optional<double> limit = o->max_height_m ? o->max_height_m : s.surcharge_max_height_m;
+        std::optional<double> height;
+        if (s.fill_unit_weight_kN_per_m3) height = result.pressure_kPa / *s.fill_unit_weight_kN_per_m3;
+        const bool exceeds = limit && height && *height > *limit;
+        if (exceeds) spdlog::warn("the surcharge fill of {:.2f} m exceeds the limit of {:.2f} m", *height, *limit);
+        using nlohmann::json;
+        if (o->json) {
+            json doc{{"drain", drain.name}, {"pattern", o->pattern}, {"spacing_m", o->spacing_m}, {"find", o->find},
+                     {"needed", result.needed}, {"surcharge_kPa", result.pressure_kPa},
+                     {"surcharge_height_m", height ? json(*height) : json(nullptr)},
+                     {"start_day", units::seconds_to_days(result.start_s)}, {"end_day", units::seconds_to_days(result.end_s)},
+                     {"removal_day", units::seconds_to_days(result.removal_s)},
+                     {"final_settlement_mm", result.final_m * 1000.0},
+                     {"settlement_at_removal_mm", result.settlement_at_removal_m * 1000.0},
+                     {"height_limit_m", limit ? json(*limit) : json(nullptr)}, {"exceeds_limit", exceeds},
+                     {"ignores", json::array({ignores[0], ignores[1], ignores[2]})}};
+            print_stdout(doc.dump(2) + "\n");
+            return static_cast<int>(ok);
+        }
+        std::ostringstream out;
+        out << s.title << "\ndrain " << drain.name << ", " << o->pattern << " pattern at " << report::fixed(o->spacing_m, 2)
+            << " m\n\n";
+        if (!result.needed)
+            out << "No surcharge is needed: the permanent load alone reaches its final primary settlement ("
+                << report::fixed(result.final_m * 1000.0, 0) << " mm) by day " << report::fixed(units::seconds_to_days(result.removal_s), 0) << ".\n";
+        else
+            out << "Surcharge " << report::fixed(result.pressure_kPa, 1) << " kPa"
+                << (height ? " (" + report::fixed(*height, 2) + " m of fill)" : std::string()) << ", placed from day "
+                << report::fixed(units::seconds_to_days(result.start_s), 0) << " to day "
+                << report::fixed(units::seconds_to_days(result.end_s), 0) << ", removed at day "
+                << report::fixed(units::seconds_to_days(result.removal_s), 1) << ": settlement at removal "
+                << report::fixed(result.settlement_at_removal_m * 1000.0, 0) << " mm = final primary settlement under the permanent load.\n";
+        if (exceeds) out << "WARNING: the surcharge height exceeds the limit of " << report::fixed(*limit, 2) << " m.\n";
+        out << "The method ignores " << ignores[0] << ", " << ignores[1] << " and " << ignores[2] << ".\n";
+        print_stdout(out.str());
+        return static_cast<int>(ok);
+    };
+}
+
+}  // namespace wickgrid::cli

@@ -1,0 +1,153 @@
+// Staged loading, settlement criteria and surcharge through the scenario layer and the CLI.
+#include <gtest/gtest.h>
+
+#include <nlohmann/json.hpp>
+
+#include "cli_helpers.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/surcharge.hpp"
+#include "wickgrid/units.hpp"
+
+using namespace wickgrid;
+using namespace wickgrid::cli_testing;
+using nlohmann::json;
+
+namespace {
+const std::string staged = "configs/staged-surcharge.yaml";
+
+std::string staged_with(const std::string& from, const std::string& to) {
+    std::string text = slurp(source(staged));
+    const auto at = text.find(from);
+    if (at == std::string::npos) throw std::logic_error("edit not found: " + from);
+    return text.replace(at, from.size(), to);
+}
+}  // namespace
+
+TEST(Staged, DesignRowsAgreeWithEngineAndMeetTheResidualLimit) {
+    const CommandRun r = run("design " + source(staged) + " --json");
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const json doc = json::parse(r.out);
+    EXPECT_EQ(doc["target"]["criterion"], "residual_settlement");
+    EXPECT_EQ(doc["loading"], "staged");
+    const auto s = scenario::load_scenario(source(staged));
+    const DesignInput input = s.design_input();
+    // Permanent load: 4 m of fill at 20 kN/m³ = 80 kPa.
+    EXPECT_NEAR(input.loading->permanent_kPa(), 80.0, 1e-12);
+    const double ultimate = ultimate_settlement_m(*input.profile, 80.0);
+    for (const auto& row : doc["designs"]) {
+        ASSERT_TRUE(row["feasible"].get<bool>());
+        EXPECT_NEAR(row["ultimate_settlement_mm"].get<double>(), ultimate * 1000.0, 1e-9);
+        EXPECT_LE(row["residual_settlement_mm"].get<double>(), 60.0 + 1e-9);
+        const Pattern p = row["pattern"] == "square" ? Pattern::square : Pattern::triangular;
+        // Just beyond the limit the residual exceeds 60 mm; just inside it does not.
+        for (double delta : {-1e-4, 1e-4}) {
+            const UnitCell cell(product_cell(input, input.products[0], p, row["spacing_limit_m"].get<double>() + delta));
+            const double residual = history_of(input, cell).residual_m(input.deadline_s, input.service_s);
+            if (delta < 0) EXPECT_LE(residual, 0.060);
+            else EXPECT_GT(residual, 0.060);
+        }
+    }
+}
+
+TEST(Staged, OneInstantStageEqualsTheStepDesign) {
+    // A single instantaneous stage at day 0 is the step loading of the plain design.
+    const std::string text = slurp(source("demo/scenario.yaml"));
+    const auto plain = scenario::parse_scenario(text, "plain.yaml");
+    const auto loaded = scenario::parse_scenario(text + "\nloading:\n  stages:\n    - {start_day: 0, pressure_kPa: 50}\n", "loaded.yaml");
+    const auto a = run_design(plain.design_input()), b = run_design(loaded.design_input());
+    for (std::size_t i = 0; i < a.rows.size(); ++i) {
+        EXPECT_NEAR(a.rows[i].spacing_limit_m, b.rows[i].spacing_limit_m, 2e-7);
+        EXPECT_EQ(a.rows[i].spacing_m, b.rows[i].spacing_m);
+        EXPECT_NEAR(a.rows[i].at_deadline.combined, b.rows[i].at_deadline.combined, 1e-12);
+        // mv·q·H for the single-layer clay: 0.0008 × 50 × 14 = 0.56 m.
+        EXPECT_NEAR(*b.rows[i].ultimate_settlement_m, 0.56, 1e-12);
+    }
+}
+
+TEST(Staged, SurchargePressureAndRemovalDayAreInverse) {
+    const auto s = scenario::load_scenario(source(staged));
+    const DesignInput input = s.design_input();
+    const UnitCell cell(product_cell(input, input.products[0], Pattern::square, 1.5));
+    Surcharge timing = *s.loading->surcharge;
+    const SurchargeResult sized = surcharge_for_removal(input, cell, timing);
+    ASSERT_TRUE(sized.needed);
+    EXPECT_NEAR(sized.settlement_at_removal_m, sized.final_m, 1e-9);
+    timing.pressure_kPa = sized.pressure_kPa;
+    const SurchargeResult back = removal_for_surcharge(input, cell, timing);
+    EXPECT_NEAR(units::seconds_to_days(back.removal_s), units::seconds_to_days(s.loading->surcharge->removal_s), 1e-3);
+    // More surcharge, earlier removal.
+    timing.pressure_kPa = 2.0 * sized.pressure_kPa;
+    EXPECT_LT(removal_for_surcharge(input, cell, timing).removal_s, back.removal_s);
+}
+
+TEST(Staged, SurchargeCommandWarnsAboveTheLimit) {
+    const CommandRun r = run("surcharge " + source(staged) +
+                             " --drain band-100x4 --pattern triangular --spacing 1.6 --max-height 1.0 --json");
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const json doc = json::parse(r.out);
+    EXPECT_TRUE(doc["exceeds_limit"].get<bool>());
+    EXPECT_NE(r.err.find("exceeds the limit"), std::string::npos);
+    EXPECT_NEAR(doc["surcharge_height_m"].get<double>() * 20.0, doc["surcharge_kPa"].get<double>(), 1e-9);
+    EXPECT_EQ(doc["ignores"].size(), 3u);
+    const CommandRun none = run("surcharge " + source("demo/scenario.yaml") + " --drain band-100x4 --pattern square --spacing 1");
+    EXPECT_EQ(none.exit_code, 2);
+    EXPECT_NE(none.err.find("loading"), std::string::npos);
+}
+
+TEST(Staged, CurveHasSettlement) {
+    const CommandRun r = run("curve " + source(staged) + " --drain band-100x4 --pattern square --spacing 1.5 --at-days 0,100,300 --json");
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const json points = json::parse(r.out)["points"];
+    EXPECT_EQ(points[0]["settlement_mm"].get<double>(), 0.0);
+    EXPECT_GT(points[2]["settlement_mm"].get<double>(), points[1]["settlement_mm"].get<double>());
+    const CommandRun csv = run("curve " + source(staged) + " --drain band-100x4 --pattern square --spacing 1.5 --points 3 --csv");
+    EXPECT_EQ(csv.out.rfind("time_days,degree_vertical,degree_radial,degree,settlement_mm\n", 0), 0u);
+}
+
+TEST(Staged, LoadingAndLayerErrorsAreLocated) {
+    struct Row {
+        const char* what;
+        std::string from, to, key_path, message;
+    };
+    const std::vector<Row> rows{
+        {"stage without load", "{start_day: 45, end_day: 60, height_m: 1.5}", "{start_day: 45, end_day: 60}",
+         "loading.stages[1]", "'height_m' or 'pressure_kPa'"},
+        {"height without fill weight", "fill_unit_weight_kN_per_m3: 20.0\n", "", "loading.stages[0].height_m",
+         "fill_unit_weight_kN_per_m3"},
+        {"end before start", "{start_day: 90, end_day: 100, height_m: 1.0}", "{start_day: 90, end_day: 80, height_m: 1.0}",
+         "loading.stages[2].end_day", "not before start_day"},
+        {"removal before end", "removal_day: 250", "removal_day: 115", "loading.surcharge.removal_day", "after end_day"},
+        {"both criteria", "  residual_settlement_mm: 60", "  degree: 0.9\n  residual_settlement_mm: 60",
+         "target.residual_settlement_mm", "not both"},
+        {"surcharge without removal", ", removal_day: 250", "", "loading.surcharge.removal_day", "missing key 'removal_day'"},
+        {"misspelt loading key", "  surcharge: {", "  surcharges: {", "loading.surcharges", "did you mean 'surcharge'"},
+        {"cr above cc", "cc: 0.45, cr: 0.06", "cc: 0.45, cr: 0.6", "clay.layers[0].cr", "must not exceed cc"},
+        {"ocr below one", "cr: 0.11, ocr: 1.2}", "cr: 0.11, ocr: 0.8}", "clay.layers[1].ocr", "at least 1"},
+        {"missing preconsolidation", "cr: 0.11, ocr: 1.2}", "cr: 0.11}", "clay.layers[1]", "'preconsolidation_kPa' or 'ocr'"},
+        {"thickness mismatch", "  groundwater_depth_m: 0.8", "  groundwater_depth_m: 0.8\n  thickness_m: 15", "clay.thickness_m",
+         "sum of the layer thicknesses"},
+        {"under-consolidated", "cr: 0.09, ocr: 1.1}", "cr: 0.09, preconsolidation_kPa: 40}",
+         "clay.layers[2].preconsolidation_kPa", "below the in-situ effective stress"},
+    };
+    for (const auto& row : rows) {
+        try {
+            scenario::parse_scenario(staged_with(row.from, row.to), "case.yaml");
+            ADD_FAILURE() << row.what << ": accepted";
+        } catch (const scenario::ScenarioError& e) {
+            EXPECT_EQ(e.key_path(), row.key_path) << row.what << ": " << e.what();
+            EXPECT_NE(e.message().find(row.message), std::string::npos) << row.what << ": " << e.what();
+            EXPECT_GT(e.mark().line, 0) << row.what;
+        }
+    }
+    // A residual criterion with no loading at all is refused at the criterion.
+    const std::string no_loading = slurp(source("demo/scenario.yaml"));
+    std::string text = no_loading;
+    text.replace(text.find("  degree: 0.90"), std::string("  degree: 0.90").size(), "  residual_settlement_mm: 50");
+    try {
+        scenario::parse_scenario(text, "case.yaml");
+        FAIL();
+    } catch (const scenario::ScenarioError& e) {
+        EXPECT_EQ(e.key_path(), "target.residual_settlement_mm");
+        EXPECT_NE(e.message().find("needs a 'loading' block"), std::string::npos) << e.what();
+    }
+}
