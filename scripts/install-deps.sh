@@ -1,8 +1,13 @@
 #!/usr/bin/env bash
 # Installs the Debian 12 packages wickgrid needs, only those missing (idempotent).
+# With --test, also what the test suite needs: SciPy for the oracle, Chromium and Pillow for the
+# report render check.
 set -euo pipefail
 packages=(g++ cmake ninja-build libboost-math-dev libyaml-cpp-dev libspdlog-dev libcli11-dev
-          nlohmann-json3-dev libgtest-dev libbenchmark-dev python3 python3-scipy python3-numpy)
+          nlohmann-json3-dev libgtest-dev libbenchmark-dev)
+if [ "${1:-}" = "--test" ]; then
+  packages+=(python3 python3-scipy python3-numpy python3-pil chromium)
+fi
 missing=()
 for p in "${packages[@]}"; do
   dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")

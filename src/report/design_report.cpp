@@ -51,11 +51,15 @@ std::string ranking_name(RankingBasis basis) {
     return basis == RankingBasis::cost_per_hectare ? "cost_per_hectare" : "drain_length_per_hectare";
 }
 
+}  // namespace
+
 const DesignRow* best_row(const DesignResult& result) {
     for (const auto& row : result.rows)
         if (row.rank && *row.rank == 1) return &row;
     return nullptr;
 }
+
+namespace {
 
 std::string escape_csv(const std::string& text) {
     if (text.find_first_of(",\"\n") == std::string::npos) return text;
@@ -224,6 +228,8 @@ std::string target_label(const scenario::Scenario& s) {
     return residual_criterion(s) ? std::string("t_residual") : "t" + fixed(100.0 * s.target_degree, 0);
 }
 
+}  // namespace
+
 std::string criterion_text(const scenario::Scenario& s) {
     if (residual_criterion(s))
         return "residual settlement at most " + fixed(*s.residual_limit_m * 1000.0, 0) + " mm after day " +
@@ -231,6 +237,8 @@ std::string criterion_text(const scenario::Scenario& s) {
                (s.service_days ? " over " + fixed(*s.service_days, 0) + " days of service" : std::string(" (to the end of primary consolidation)"));
     return "U = " + fixed(100.0 * s.target_degree, 1) + " % by day " + fixed(s.deadline_days, 0);
 }
+
+
 std::string recommendation(const scenario::Scenario& s, const DesignResult& result) {
     const DesignRow* best = best_row(result);
  if (!best && residual_criterion(s))
@@ -257,6 +265,8 @@ std::string recommendation(const scenario::Scenario& s, const DesignResult& resu
     return text;
 }
 
+namespace {
+
 }  // namespace
 
 std::string design_table(const scenario::Scenario& s, const DesignResult& result) {
@@ -274,6 +284,39 @@ std::string design_table(const scenario::Scenario& s, const DesignResult& result
     out << recommendation(s, result) << "\n";
     out << "Estimates from idealised theory: confirm parameters by site investigation and by monitoring.\n";
     return out.str();
+}
+
+std::vector<std::string> method_notes(const scenario::Scenario& s) {
+    std::vector<std::string> notes{
+        "Vertical flow: Terzaghi (1925), average degree Uv(Tv), Tv = cv·t/d², d = H (one drained face) or H/2 (two).",
+        "Radial flow: Hansbo (1981), Ur = 1 − exp(−8Th/μ), Th = ch·t/De², with smear (ln(n/s) + (kh/ks)·ln s − 0.75) "
+        "and well resistance π·z(2l − z)·kh/qw; for other smear profiles the equal-strain integral (profile shapes after "
+        "Walker & Indraratna 2006); Barron (1948) for the ideal drain.",
+        "Well resistance: the radial degree is the mean of the local degree Ur(z) over the drain, with z from the nearest "
+        "outlet (Gauss–Legendre quadrature).",
+        "Combination: Carrillo (1942), 1 − U = (1 − Uv)(1 − Ur).",
+        "Equivalent drain diameter: Hansbo (1979) 2(a+b)/π, Rixner et al. (1986) (a+b)/2 or Long & Covo (1994) 0.5a + 0.7b; "
+        "mandrel by equal area; influence diameter 1.05 s (triangular) or 1.128 s (square), Barron (1948).",
+        "kh = ch·mv·γw (γw = 9.81 kN/m³) where kh is not given.",
+        "Limiting spacing: the largest spacing at which the criterion is met at the deadline, solved with TOMS 748 "
+        "(Alefeld, Potra & Shi 1995) or, under staged loading, a scan of the spacing increments refined by bisection; "
+        "the chosen spacing is rounded down to the increment.",
+    };
+    if (s.loading || s.residual_limit_m)
+        notes.push_back(
+            "Staged loading: linear superposition of the unit cell's response to each load increment, ramps integrated "
+            "by adaptive Gauss–Kronrod quadrature (checked against Olson 1977); degrees are relative to the final "
+            "permanent load. Settlement: one-dimensional e–log σ' (compression index Cc above σ'p, recompression index "
+            "Cr below) or mv per layer, summed over slices; each increment weighted by the ultimate settlement it adds. "
+            "After a surcharge is removed the settlement is held until the permanent-load history catches up: rebound "
+            "and secondary compression are ignored.");
+    return notes;
+}
+
+std::string assumptions(const scenario::Scenario& s) {
+    return std::string(s.loading ? "Loading as tabled in the inputs" : "Instantaneous loading at day 0") +
+           "; uniform consolidation coefficients over the clay; drains fully penetrating the clay; equal-strain radial "
+           "flow; linear, small-strain consolidation with constant coefficients; no secondary compression.";
 }
 
 std::string design_markdown(const scenario::Scenario& s, const DesignResult& result) {
@@ -352,33 +395,9 @@ std::string design_markdown(const scenario::Scenario& s, const DesignResult& res
         << (result.ranking == RankingBasis::cost_per_hectare ? "cost per hectare" : "drain metres per hectare")
         << ". '+' marks a limit capped at the largest spacing considered; '*' an infeasible row, evaluated at "
            "the minimum spacing.\n\n";
-    out << "## Method and sources\n\n"
-           "- Vertical flow: Terzaghi (1925), average degree Uv(Tv), Tv = cv·t/d², d = H (one drained face) or "
-           "H/2 (two).\n"
-           "- Radial flow: Hansbo (1981), Ur = 1 − exp(−8Th/μ), Th = ch·t/De², with smear "
-           "(ln(n/s) + (kh/ks)·ln s − 0.75) and well resistance π·z(2l − z)·kh/qw; for other smear profiles "
-           "the equal-strain integral (profile shapes after Walker & Indraratna 2006); Barron (1948) for the "
-           "ideal drain.\n"
-           "- Well resistance: the radial degree is the mean of the local degree Ur(z) over the drain, with z "
-           "from the nearest outlet (Gauss–Legendre quadrature).\n"
-           "- Combination: Carrillo (1942), 1 − U = (1 − Uv)(1 − Ur).\n"
-           "- Equivalent drain diameter: Hansbo (1979) 2(a+b)/π, Rixner et al. (1986) (a+b)/2 or Long & Covo "
-           "(1994) 0.5a + 0.7b; mandrel by equal area; influence diameter 1.05 s (triangular) or 1.128 s "
-           "(square), Barron (1948).\n"
-           "- kh = ch·mv·γw (γw = 9.81 kN/m³) where kh is not given.\n"
-           "- Staged loading (when given): linear superposition of the unit cell's response to each load "
-           "increment, ramps integrated by adaptive Gauss–Kronrod quadrature (checked against Olson 1977); "
-           "degrees are relative to the final permanent load. Settlement: one-dimensional e–log σ' "
-           "(compression index Cc above σ'p, recompression index Cr below) or mv per layer, summed over slices; "
-           "each increment weighted by the ultimate settlement it adds. After a surcharge is removed the "
-           "settlement is held until the permanent-load history catches up: rebound and secondary "
-           "compression are ignored.\n"
-           "- Limiting spacing: the largest spacing at which U reaches the target at the deadline, solved with "
-           "TOMS 748 (Alefeld, Potra & Shi 1995); the chosen spacing is rounded down to the increment.\n\n";
-    out << "## Assumptions\n\n" << (s.loading ? "Loading as tabled above" : "Instantaneous loading at day 0")
-        << "; uniform consolidation coefficients over the clay; drains fully penetrating "
-           "the clay; equal-strain radial flow; linear, small-strain consolidation with constant coefficients; "
-           "no secondary compression.\n\n";
+    out << "## Method and sources\n\n";
+    for (const auto& line : method_notes(s)) out << "- " << line << "\n";
+    out << "\n## Assumptions\n\n" << assumptions(s) << "\n\n";
     out << "## Cautions\n\n";
     for (const char* c : cautions) out << "- " << c << "\n";
     return out.str();

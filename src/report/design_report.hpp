@@ -25,6 +25,13 @@ nlohmann::json curve_json(const CurveReport& curve);
 std::string curve_csv(const CurveReport& curve);
 std::string curve_table(const CurveReport& curve);
 
+// Shared text of the design notes (Markdown and HTML).
+std::vector<std::string> method_notes(const scenario::Scenario& s);
+std::string assumptions(const scenario::Scenario& s);
+std::string criterion_text(const scenario::Scenario& s);
+std::string recommendation(const scenario::Scenario& s, const DesignResult& result);
+const DesignRow* best_row(const DesignResult& result);
+
 // The cautions every report carries.
 extern const char* const cautions[4];
 

@@ -1,0 +1,143 @@
+#!/usr/bin/env python3
+"""Report checks: well-formed HTML and SVG (parsed by xml.etree and html.parser), numbers equal to
+`design --json`, no external references, and a render in Debian's headless Chromium to PNG and PDF
+that must not be blank and must not request anything from the network (read from Chromium's
+NetLog; a control page that does load a loopback URL proves the detector sees requests)."""
+import html.parser
+import json
+import os
+import re
+import shutil
+import subprocess
+import sys
+import tempfile
+import xml.etree.ElementTree as ET
+
+BINARY, SOURCE = sys.argv[1], sys.argv[2]
+SVG_NS = "{http://www.w3.org/2000/svg}"
+failures = []
+passed = 0
+
+
+def check(condition, message):
+    global passed
+    if condition:
+        passed += 1
+    else:
+        failures.append(message)
+
+
+def wickgrid(*args):
+    return subprocess.run([BINARY, *args], capture_output=True, text=True)
+
+
+def chromium_flags(profile):
+    return ["--headless", "--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking",
+            "--disable-component-update", "--disable-sync", "--disable-quic", f"--user-data-dir={profile}"]
+
+
+def page_requests(netlog_path):
+    """Network URLs requested by pages (browser-internal requests have no origin)."""
+    with open(netlog_path) as f:
+        text = f.read()
+    if not text.rstrip().endswith("}"):  # Chromium may leave the closing brackets off when killed
+        text = text.rstrip().rstrip(",") + "]}"
+    log = json.loads(text)
+    names = {v: k for k, v in log["constants"]["logEventTypes"].items()}
+    urls = []
+    for e in log["events"]:
+        p = e.get("params", {})
+        if names.get(e["type"]) == "URL_REQUEST_START_JOB" and p.get("initiator") != "not an origin":
+            if re.match(r"^(https?|wss?|ftp)://", p.get("url", "")):
+                urls.append(p["url"])
+    return urls
+
+
+def render(chromium, page, work, tag):
+    png, pdf, netlog = (os.path.join(work, f"{tag}.{ext}") for ext in ("png", "pdf", "netlog.json"))
+    profile = tempfile.mkdtemp(prefix="wickgrid-chromium-")
+    base = [chromium, *chromium_flags(profile), f"--log-net-log={netlog}", "--window-size=1100,1600"]
+    shot = subprocess.run([*base, f"--screenshot={png}", "file://" + page], capture_output=True, text=True, timeout=120)
+    requests = page_requests(netlog) if os.path.exists(netlog) else None
+    printed = subprocess.run([chromium, *chromium_flags(profile), f"--print-to-pdf={pdf}", "file://" + page],
+                             capture_output=True, text=True, timeout=120)
+    shutil.rmtree(profile, ignore_errors=True)
+    return shot, printed, png, pdf, requests
+
+
+def not_blank(png):
+    from PIL import Image
+    with Image.open(png) as img:
+        colours = img.convert("RGB").getcolors(maxcolors=1 << 20)
+        return colours is not None and len(colours) > 20
+
+
+def main():
+    work = tempfile.mkdtemp(prefix="wickgrid-report-")
+    for scenario in ("demo/scenario.yaml", "configs/staged-surcharge.yaml"):
+        out = os.path.join(work, os.path.basename(scenario).replace(".yaml", ""))
+        r = wickgrid("report", os.path.join(SOURCE, scenario), "--out", out)
+        check(r.returncode == 0, f"report {scenario}: exit {r.returncode}: {r.stderr}")
+        page = os.path.join(out, "report.html")
+        text = open(page, encoding="utf-8").read()
+        root = ET.fromstring(text)  # well-formed as XML
+        html.parser.HTMLParser().feed(text)  # and as HTML
+        check(root.tag == "html", f"{scenario}: root element {root.tag}")
+        svgs = [f for f in os.listdir(out) if f.endswith(".svg")]
+        check(len(svgs) >= 3, f"{scenario}: only {len(svgs)} charts")
+        for f in svgs:
+            svg = ET.parse(os.path.join(out, f)).getroot()
+            check(svg.tag == SVG_NS + "svg", f"{f}: root {svg.tag}")
+            check(svg.find(SVG_NS + "title") is not None, f"{f}: no title")
+            check(any(t.text for t in svg.iter(SVG_NS + "text")), f"{f}: no axis text")
+        # Nothing external: no URLs other than the SVG namespace, no src/href attributes.
+        external = [u for u in re.findall(r"(?:https?|ftp)://[^\s\"'<>)]+", text) if u != "http://www.w3.org/2000/svg"]
+        check(not external, f"{scenario}: external references {external[:3]}")
+        check(not re.search(r"\s(src|href)=", text), f"{scenario}: src/href attribute")
+        for word in ("Cautions", "Method and sources", "Hansbo (1981)", "site investigation", "RECOMMENDED"):
+            check(word in text, f"{scenario}: '{word}' missing")
+        # Numbers equal those of design --json.
+        doc = json.loads(wickgrid("design", os.path.join(SOURCE, scenario), "--json").stdout)
+        rows = {(d["drain"], d["pattern"]): d for d in doc["designs"]}
+        compared = 0
+        for tr in root.iter("tr"):
+            key = (tr.get("data-drain"), tr.get("data-pattern"))
+            if key not in rows:
+                continue
+            for td in tr.iter("td"):
+                field = td.get("data-key")
+                if field is None:
+                    continue
+                expected = rows[key][field]
+                got = float(td.get("data-value"))
+                check(abs(got - expected) <= 1e-9 * max(1.0, abs(expected)), f"{scenario} {key} {field}: {got} vs {expected}")
+                compared += 1
+        check(compared >= 20, f"{scenario}: only {compared} numbers compared")
+
+    chromium = shutil.which("chromium")
+    check(chromium is not None, "chromium is not installed (scripts/install-deps.sh --test installs it)")
+    if chromium:
+        page = os.path.join(work, "scenario", "report.html")
+        shot, printed, png, pdf, requests = render(chromium, page, work, "report")
+        check(shot.returncode == 0 and os.path.exists(png), f"screenshot failed: {shot.stderr[-400:]}")
+        check(printed.returncode == 0 and os.path.exists(pdf), f"PDF failed: {printed.stderr[-400:]}")
+        if os.path.exists(png):
+            check(not_blank(png), "the rendered PNG is blank")
+        if os.path.exists(pdf):
+            check(open(pdf, "rb").read(5) == b"%PDF-" and os.path.getsize(pdf) > 10000, "the PDF is empty")
+        check(requests == [], f"the report requested {requests}")
+        # Control: a page that loads a loopback URL is seen by the same detector.
+        control = os.path.join(work, "control.html")
+        with open(control, "w") as f:
+            f.write('<html><body><img src="http://127.0.0.1:9/probe.png"/>control</body></html>')
+        _, _, _, _, seen = render(chromium, control, work, "control")
+        check(bool(seen), "the network detector missed the control page's request")
+    shutil.rmtree(work, ignore_errors=True)
+    for f in failures:
+        print("FAIL:", f)
+    print(f"report: {passed} passed, {len(failures)} failed")
+    return 1 if failures else 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())
