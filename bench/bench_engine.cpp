@@ -5,6 +5,7 @@
 #include "cell_fixture.hpp"
 #include "wickgrid/search.hpp"
 #include "wickgrid/studies.hpp"
+#include "wickgrid/numerical.hpp"
 
 using namespace wickgrid;
 
@@ -76,3 +77,10 @@ static void BM_MonteCarloMillion(benchmark::State& state) {
     for (auto _ : state) benchmark::DoNotOptimize(monte_carlo(d, base, spec));
 }
 BENCHMARK(BM_MonteCarloMillion)->Iterations(2)->Unit(benchmark::kSecond)->UseRealTime();
+
+// The numerical unit cell: 40 × 80 cells (plus the drain conduit) marched to U = 0.99.
+static void BM_NumericalTo99(benchmark::State& state) {
+    const NumericalCellSpec spec = numerical_spec(fixtures::typical_cell());
+    for (auto _ : state) benchmark::DoNotOptimize(NumericalCell(spec, {}).time_to_degree_s(0.99));
+}
+BENCHMARK(BM_NumericalTo99)->Unit(benchmark::kMillisecond);

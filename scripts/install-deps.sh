@@ -4,7 +4,7 @@
 # report render check.
 set -euo pipefail
 packages=(g++ cmake ninja-build libboost-math-dev libyaml-cpp-dev libspdlog-dev libcli11-dev
-          nlohmann-json3-dev libgtest-dev libbenchmark-dev)
+          nlohmann-json3-dev libgtest-dev libbenchmark-dev libeigen3-dev)
 if [ "${1:-}" = "--test" ]; then
   packages+=(python3 python3-scipy python3-numpy python3-pil chromium)
 fi
