@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "wickgrid/cell.hpp"
+#include "wickgrid/numerical.hpp"
 #include "wickgrid/settlement.hpp"
 #include "wickgrid/search.hpp"
 
@@ -42,6 +43,12 @@ struct DesignInput {
     std::optional<double> residual_limit_m;
     std::optional<double> service_s;
 
+    // The numerical unit cell instead of the closed form (layered clay, partially penetrating
+    // drains). numerical_layers empty: one layer from `clay`.
+    bool numerical = false;
+    NumericalMesh numerical_mesh{20, 40, 0.005, 0.0};
+    std::vector<NumericalLayer> numerical_layers;
+
     bool has_settlement() const { return loading && (profile || clay_mv_m2_per_kN); }
     bool staged() const { return loading.has_value() || residual_limit_m.has_value(); }
     std::function<double(double)> ultimate_settlement() const;  // q (kPa) → m, or identity
@@ -49,6 +56,10 @@ struct DesignInput {
 
 // The load history of a design: its loading, or 1 kPa at day 0 for degree-only designs.
 LoadHistory load_history_of(const DesignInput& input);
+
+// The numerical unit cell of one product at one spacing (layers, partial drains, loading).
+NumericalCellSpec numerical_cell(const DesignInput& input, const DrainProductSpec& product, Pattern pattern,
+                                 double spacing_m);
 
 // Settlement (or load-weighted degree) history of one unit cell under the design's loading.
 SettlementHistory history_of(const DesignInput& input, const UnitCell& cell);

@@ -23,6 +23,7 @@ Runner add_curve(CLI::App& app);
 Runner add_sweep(CLI::App& app);
 Runner add_surcharge(CLI::App& app);
 Runner add_report(CLI::App& app);
+Runner add_verify(CLI::App& app);
 
 // Prints stdout text whole (one write) so a broken pipe never leaves half a JSON document.
 void print_stdout(const std::string& text);

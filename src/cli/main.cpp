@@ -41,6 +41,7 @@ int main(int argc, char** argv) {
     const cli::Runner sweep = cli::add_sweep(app);
     const cli::Runner surcharge = cli::add_surcharge(app);
     const cli::Runner report_cmd = cli::add_report(app);
+    const cli::Runner verify = cli::add_verify(app);
     try {
         app.parse(argc, argv);
     } catch (const CLI::CallForHelp& e) {
@@ -62,6 +63,7 @@ int main(int argc, char** argv) {
         if (app.got_subcommand("sweep")) return sweep();
         if (app.got_subcommand("surcharge")) return surcharge();
         if (app.got_subcommand("report")) return report_cmd();
+        if (app.got_subcommand("verify")) return verify();
     } catch (const scenario::ScenarioError& e) {
         report_error(e.mark().line > 0 ? e.what() : e.file() + ": " + e.message());
         return cli::bad_input;

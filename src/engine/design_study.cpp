@@ -1,7 +1,10 @@
 // The design study: largest-spacing search per product and pattern, rounding and ranking.
 #include <algorithm>
+#include <boost/math/tools/toms748_solve.hpp>
+#include <cstdint>
 #include <cmath>
 
+#include "wickgrid/combine.hpp"
 #include "wickgrid/design.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/units.hpp"
@@ -10,6 +13,14 @@ namespace wickgrid {
 
 bool DesignResult::any_feasible() const {
     return std::any_of(rows.begin(), rows.end(), [](const DesignRow& r) { return r.feasible; });
+}
+
+NumericalCellSpec numerical_cell(const DesignInput& input, const DrainProductSpec& product, Pattern pattern,
+                                 double spacing_m) {
+    const CellSpec cell = product_cell(input, product, pattern, spacing_m);
+    NumericalCellSpec spec = numerical_spec(cell, input.loading);
+    if (!input.numerical_layers.empty()) spec.layers = input.numerical_layers;
+    return spec;
 }
 
 CellSpec product_cell(const DesignInput& input, const DrainProductSpec& product, Pattern pattern,
@@ -138,7 +149,63 @@ DesignRow evaluate_staged(const DesignInput& input, const DrainProductSpec& prod
     return row;
 }
 
+// Geometry columns of a row without building a closed-form cell (which refuses partial drains).
+void geometry_columns(const DesignInput& input, const CellSpec& chosen, DesignRow& row) {
+    row.equivalent_diameter_m = chosen.drain.equivalent_diameter_m;
+    row.smear_diameter_m = chosen.drain.smear_diameter_m;
+    row.influence_diameter_m = influence_diameter_m(chosen.pattern, chosen.spacing_m);
+    row.n = row.influence_diameter_m / chosen.drain.equivalent_diameter_m;
+    row.s = chosen.drain.smear_diameter_m / chosen.drain.equivalent_diameter_m;
+    row.mu_smear = smear_mu(chosen.drain, row.n, chosen.spacing_m);
+    const double l = chosen.drain.outlets == DrainOutlets::top ? chosen.drain.length_m : 0.5 * chosen.drain.length_m;
+    row.mu = mu_depth_mean(row.mu_smear, 3.141592653589793 * input.clay.kh_m_per_s / chosen.drain.discharge_capacity_m3_per_s, l);
+}
+
+double numerical_degree(const DesignInput& input, const NumericalCellSpec& spec) {
+    return NumericalCell(spec, input.numerical_mesh).solve({input.deadline_s}).front().degree_settlement;
+}
+
+DesignRow evaluate_numerical(const DesignInput& input, const DrainProductSpec& product, Pattern pattern) {
+    DesignRow row;
+    row.drain = product.name;
+    row.pattern = pattern;
+    auto margin = [&](double spacing) {
+        return numerical_degree(input, numerical_cell(input, product, pattern, spacing)) - input.target_degree;
+    };
+    const double lo = input.bounds.min_m, hi = input.bounds.max_m;
+    const double f_lo = margin(lo);
+    if (f_lo >= 0.0) {
+        row.feasible = true;
+        const double f_hi = margin(hi);
+        if (f_hi >= 0.0) {
+            row.limited_by_maximum = true;
+            row.spacing_limit_m = hi;
+        } else {
+            std::uintmax_t iterations = 60;
+            const auto r = boost::math::tools::toms748_solve(margin, lo, hi, f_lo, f_hi,
+                                                             [](double a, double b) { return b - a < 1e-5; }, iterations);
+            row.spacing_limit_m = r.first;  // the side that still meets the target
+        }
+    }
+    row.spacing_m = row.feasible ? round_down_spacing(row.spacing_limit_m, input.increment_m, lo) : lo;
+    const CellSpec chosen = product_cell(input, product, pattern, row.spacing_m);
+    geometry_columns(input, chosen, row);
+    NumericalCellSpec spec = numerical_cell(input, product, pattern, row.spacing_m);
+    const NumericalCell cell(spec, input.numerical_mesh);
+    row.at_deadline.combined = cell.solve({input.deadline_s}).front().degree_settlement;
+    spec.has_drain = false;
+    row.at_deadline.vertical = numerical_degree(input, spec);
+    // The radial degree that Carrillo's rule would need to give the combined degree.
+    row.at_deadline.radial = 1.0 - (1.0 - row.at_deadline.combined) / (1.0 - row.at_deadline.vertical);
+    row.time_to_target_s = cell.time_to_degree_s(input.target_degree);
+    row.drains_per_hectare = drains_per_hectare(pattern, row.spacing_m);
+    row.drain_length_per_hectare_m = row.drains_per_hectare * chosen.drain.length_m;
+    if (product.cost_per_m) row.cost_per_hectare = row.drain_length_per_hectare_m * *product.cost_per_m;
+    return row;
+}
+
 DesignRow evaluate(const DesignInput& input, const DrainProductSpec& product, Pattern pattern) {
+    if (input.numerical) return evaluate_numerical(input, product, pattern);
     if (input.staged()) return evaluate_staged(input, product, pattern);
     DesignRow row;
     row.drain = product.name;
@@ -171,6 +238,9 @@ DesignRow evaluate(const DesignInput& input, const DrainProductSpec& product, Pa
 }  // namespace
 
 DesignResult run_design(const DesignInput& input) {
+    if (input.numerical && input.residual_limit_m)
+        throw InputError("residual settlement limit (m)", *input.residual_limit_m,
+                         "used with the closed-form method; the numerical method designs for a degree");
     if (input.residual_limit_m) {
         require_non_negative("residual settlement limit (m)", *input.residual_limit_m);
         if (!input.has_settlement())

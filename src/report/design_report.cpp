@@ -137,6 +137,7 @@ nlohmann::json design_json(const scenario::Scenario& s, const DesignResult& resu
                 {"scenario", s.file},
                 {"target", target_json(s)},
                 {"loading", s.loading ? "staged" : "instantaneous"},
+                {"method", s.numerical ? "numerical" : "analytical"},
                 {"degree_basis", "relative to the final permanent load"},
                 {"radial_theory", std::string(scenario::to_string(s.radial_theory))},
                 {"smear_shape", std::string(scenario::to_string(s.smear_shape))},
@@ -302,6 +303,11 @@ std::vector<std::string> method_notes(const scenario::Scenario& s) {
         "(Alefeld, Potra & Shi 1995) or, under staged loading, a scan of the spacing increments refined by bisection; "
         "the chosen spacing is rounded down to the increment.",
     };
+    if (s.numerical)
+        notes.push_back(
+            "Method: numerical unit cell (axisymmetric finite volumes, coupled radial and vertical flow, the drain as a "
+            "conduit of capacity qw, layered cv/ch/mv, drains that may stop short of the clay base; backward Euler). "
+            "Uv is the numerical cell without a drain; Ur is the radial degree that Carrillo's rule would need to give U.");
     if (s.loading || s.residual_limit_m)
         notes.push_back(
             "Staged loading: linear superposition of the unit cell's response to each load increment, ramps integrated "
@@ -341,7 +347,7 @@ std::string design_markdown(const scenario::Scenario& s, const DesignResult& res
     out << "| smear zone | ds = " << fixed(s.smear_diameter_ratio, 2) << " × dm = "
         << fixed(s.smear_diameter_ratio * s.mandrel_diameter_m * 1000.0, 1) << " mm, kh/ks = "
         << fixed(s.smear_permeability_ratio, 2) << ", profile " << scenario::to_string(s.smear_shape) << " |\n";
-    out << "| radial theory | " << scenario::to_string(s.radial_theory) << " |\n";
+    out << "| radial theory | " << scenario::to_string(s.radial_theory) << (s.numerical ? ", method numerical" : "") << " |\n";
     out << "| spacings considered | " << fixed(s.spacing.min_m, 2) << "–" << fixed(s.spacing.max_m, 2)
         << " m, rounded down to " << fixed(s.increment_m, 2) << " m |\n\n";
     out << "| drain | dw (mm) | from | qw (m³/year) | cost per m |\n|---|---|---|---|---|\n";

@@ -82,6 +82,10 @@ struct Scenario {
     std::optional<SoilProfile> profile;
     std::optional<double> residual_limit_m;
     std::optional<double> service_days;
+    // Method of the design search.
+    bool numerical = false;
+    NumericalMesh numerical_mesh{20, 40, 0.005, 0.0};
+    std::vector<std::optional<double>> layer_cv_m2_per_s, layer_ch_m2_per_s;  // per clay layer, if given
     std::map<std::string, Mark> marks;  // key path → where its value is
 
     DesignInput design_input() const;

@@ -184,7 +184,8 @@ private:
 
 const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "drains", "drain_length_m",
                                         "drain_outlets", "installation", "patterns", "spacing", "studies",
-                                        "uncertain", "fill_unit_weight_kN_per_m3", "loading"};
+                                        "uncertain", "fill_unit_weight_kN_per_m3", "loading", "method",
+                                        "numerical_mesh"};
 const std::vector<std::string> study_input_names{"ch_m2_per_year", "cv_m2_per_year", "kh_m_per_s",
                                                  "smear_diameter_ratio", "smear_permeability_ratio",
                                                  "discharge_capacity_m3_per_year"};
@@ -229,7 +230,11 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
         const YAML::Node l = node[i];
         r.expect_map(l, path);
         r.allow_keys(l, path, {"thickness_m", "unit_weight_kN_per_m3", "e0", "cc", "cr", "preconsolidation_kPa", "ocr",
-                               "mv_m2_per_kN"});
+                               "mv_m2_per_kN", "cv_m2_per_year", "ch_m2_per_year"});
+        const auto cv = r.optional_number(l, path, "cv_m2_per_year", positive("m²/year"));
+        const auto ch = r.optional_number(l, path, "ch_m2_per_year", positive("m²/year"));
+        s.layer_cv_m2_per_s.push_back(cv ? std::optional<double>(units::per_year_to_per_second(*cv)) : std::nullopt);
+        s.layer_ch_m2_per_s.push_back(ch ? std::optional<double>(units::per_year_to_per_second(*ch)) : std::nullopt);
         SoilLayer layer;
         layer.thickness_m = r.number(l, path, "thickness_m", positive("m"));
         layer.unit_weight_kN_per_m3 = r.number(l, path, "unit_weight_kN_per_m3", positive("kN/m³"));
@@ -407,11 +412,15 @@ void read_spacing(const Reader& r, const YAML::Node& root, Scenario& s) {
 
 // Physical checks that join several keys, reported at the key a user would change.
 void check_physics(const Reader& r, Scenario& s) {
-    if (std::fabs(s.drain_length_m - s.clay.thickness_m) > 1e-9 * s.clay.thickness_m)
+    if (s.numerical && !(s.drain_length_m <= s.clay.thickness_m * (1 + 1e-12)))
+        r.fail_at(s.mark_of("drain_length_m"), "drain_length_m",
+                  format_value(s.drain_length_m) + " is not allowed: it must be at most clay.thickness_m = " +
+                      format_value(s.clay.thickness_m) + " m");
+    if (!s.numerical && std::fabs(s.drain_length_m - s.clay.thickness_m) > 1e-9 * s.clay.thickness_m)
         r.fail_at(s.mark_of("drain_length_m"), "drain_length_m",
                   format_value(s.drain_length_m) + " is not allowed: it must equal clay.thickness_m = " +
                       format_value(s.clay.thickness_m) +
-                      " m (drains that stop short of the clay base are not supported yet)");
+                      " m (drains that stop short of the clay base need 'method: numerical')");
     const double ds = s.smear_diameter_ratio * s.mandrel_diameter_m;
     for (std::size_t i = 0; i < s.drains.size(); ++i) {
         const auto& d = s.drains[i];
@@ -436,7 +445,8 @@ void check_physics(const Reader& r, Scenario& s) {
         for (const Pattern p : s.patterns)
             for (const double spacing : {s.spacing.min_m, s.spacing.max_m}) {
                 try {
-                    UnitCell cell(product_cell(input, input.products[i], p, spacing));
+                    if (s.numerical) NumericalCell cell(numerical_cell(input, input.products[i], p, spacing), input.numerical_mesh);
+                    else UnitCell cell(product_cell(input, input.products[i], p, spacing));
                 } catch (const InputError& e) {
                     const std::string key = spacing == s.spacing.min_m ? "spacing.min_m" : "spacing.max_m";
                     r.fail_at(s.mark_of(key), key,
@@ -643,6 +653,30 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
     s.loading = h;
 }
 
+void read_method(const Reader& r, const YAML::Node& root, Scenario& s) {
+    if (root["method"]) s.numerical = r.choice(root["method"], "method", {"analytical", "numerical"}) == 1;
+    if (const YAML::Node m = root["numerical_mesh"]) {
+        r.expect_map(m, "numerical_mesh");
+        r.allow_keys(m, "numerical_mesh", {"radial_cells", "vertical_cells", "max_degree_step"});
+        const auto whole = [&](const char* key, double low, double high, int fallback) {
+            const auto v = r.optional_number(m, "numerical_mesh", key, {low, true, high, true, "(whole number)"});
+            if (v && std::floor(*v) != *v) r.fail(m[key], std::string("numerical_mesh.") + key, "must be a whole number");
+            return v ? static_cast<int>(*v) : fallback;
+        };
+        s.numerical_mesh.radial_cells = whole("radial_cells", 4, 2000, 20);
+        s.numerical_mesh.vertical_cells = whole("vertical_cells", 2, 4000, 40);
+        s.numerical_mesh.max_degree_step =
+            r.optional_number(m, "numerical_mesh", "max_degree_step", {0.0, false, 0.1, true, ""}).value_or(0.005);
+    }
+    if (s.numerical && s.residual_limit_m)
+        r.fail_at(s.mark_of("target.residual_settlement_mm"), "target.residual_settlement_mm",
+                  "'method: numerical' designs for a degree; use 'degree' or the analytical method");
+    for (std::size_t i = 0; i < s.layer_cv_m2_per_s.size(); ++i)
+        if ((s.layer_cv_m2_per_s[i] || s.layer_ch_m2_per_s[i]) && !s.numerical)
+            r.fail_at(s.mark_of("clay.layers"), "clay.layers[" + std::to_string(i) + "]",
+                      "layer cv/ch values need 'method: numerical' (the closed form takes one cv and ch for the clay)");
+}
+
 void check_settlement_criterion(const Reader& r, const Scenario& s) {
     if (!s.residual_limit_m) return;
     if (!s.loading)
@@ -667,6 +701,7 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     read_clay(r, root, s);
     read_loading(r, root, s);
     check_settlement_criterion(r, s);
+    read_method(r, root, s);
     read_drains(r, root, s);
     s.drain_length_m = r.optional_number(root, "", "drain_length_m", positive("m")).value_or(s.clay.thickness_m);
     if (!root["drain_length_m"]) s.marks["drain_length_m"] = s.mark_of("clay.thickness_m");
@@ -721,6 +756,26 @@ DesignInput Scenario::design_input() const {
     if (!profile) in.clay_mv_m2_per_kN = mv_m2_per_kN;
     in.residual_limit_m = residual_limit_m;
     if (service_days) in.service_s = units::days_to_seconds(*service_days);
+    in.numerical = numerical;
+    in.numerical_mesh = numerical_mesh;
+    if (numerical && profile) {
+        // Layer mv for storage: given, or the secant of the e–log curve under the final load
+        // (a 50 kPa probe without loading), so that each layer keeps its share of settlement.
+        const double q = loading ? loading->permanent_kPa() : 50.0;
+        const auto all = slices(*profile);
+        std::size_t k = 0;
+        for (std::size_t i = 0; i < profile->layers.size(); ++i) {
+            const SoilLayer& layer = profile->layers[i];
+            double settle = 0.0;
+            for (int j = 0; j < profile->slices_per_layer; ++j) settle += slice_settlement_m(layer, all[k++], q);
+            NumericalLayer n;
+            n.thickness_m = layer.thickness_m;
+            n.mv_m2_per_kN = layer.mv_m2_per_kN ? *layer.mv_m2_per_kN : settle / (q * layer.thickness_m);
+            n.cv_m2_per_s = layer_cv_m2_per_s[i].value_or(clay.cv_m2_per_s);
+            n.ch_m2_per_s = layer_ch_m2_per_s[i].value_or(clay.ch_m2_per_s);
+            in.numerical_layers.push_back(n);
+        }
+    }
     return in;
 }
 

@@ -1,0 +1,91 @@
+// The numerical method through scenarios and the CLI: design with layers and partial drains, verify.
+#include <gtest/gtest.h>
+
+#include <nlohmann/json.hpp>
+
+#include "cli_helpers.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/units.hpp"
+
+using namespace wickgrid;
+using namespace wickgrid::cli_testing;
+using nlohmann::json;
+
+TEST(NumericalMethod, LayeredPartialDesignMeetsTheTarget) {
+    const std::string file = source("configs/layered-partial-numerical.yaml");
+    const CommandRun r = run("design " + file + " --json");
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const json doc = json::parse(r.out);
+    EXPECT_EQ(doc["method"], "numerical");
+    const auto s = scenario::load_scenario(file);
+    const DesignInput input = s.design_input();
+    ASSERT_EQ(input.numerical_layers.size(), 2u);
+    EXPECT_NEAR(input.numerical_layers[1].ch_m2_per_s * units::seconds_per_year, 4.0, 1e-12);
+    for (const auto& row : doc["designs"]) {
+        const Pattern p = row["pattern"] == "square" ? Pattern::square : Pattern::triangular;
+        auto degree = [&](double spacing) {
+            return NumericalCell(numerical_cell(input, input.products[0], p, spacing), input.numerical_mesh)
+                .solve({input.deadline_s})
+                .front()
+                .degree_settlement;
+        };
+        EXPECT_NEAR(degree(row["spacing_m"].get<double>()), row["degree"].get<double>(), 1e-12);
+        EXPECT_GE(row["degree"].get<double>(), 0.8);
+        EXPECT_LT(degree(row["spacing_limit_m"].get<double>() + 1e-3), 0.8);
+    }
+}
+
+TEST(NumericalMethod, FullDrainsUniformClayCloseToTheClosedForm) {
+    const std::string text = slurp(source("demo/scenario.yaml"));
+    const auto analytical = scenario::parse_scenario(text, "a.yaml");
+    const auto numerical = scenario::parse_scenario(text + "\nmethod: numerical\n", "n.yaml");
+    const auto a = run_design(analytical.design_input()), n = run_design(numerical.design_input());
+    for (std::size_t i = 0; i < a.rows.size(); ++i)
+        EXPECT_NEAR(n.rows[i].spacing_limit_m / a.rows[i].spacing_limit_m, 1.0, 0.03) << i;  // equal vs free strain
+}
+
+TEST(NumericalMethod, VerifyReportsDifferencesAndWarns) {
+    const CommandRun r = run("verify " + source("demo/scenario.yaml") + " --json --radial-cells 20 --vertical-cells 40");
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const json doc = json::parse(r.out);
+    ASSERT_EQ(doc["rows"].size(), 4u);
+    for (const auto& row : doc["rows"]) {
+        EXPECT_LT(row["max_difference"].get<double>(), 0.02);
+        EXPECT_FALSE(row["warning"].get<bool>());
+        EXPECT_GT(row["plane_strain_kh_m_per_s"].get<double>(), 0.0);
+        EXPECT_EQ(row["points"].size(), 25u);
+    }
+    const CommandRun strict = run("verify " + source("demo/scenario.yaml") + " --threshold 0.0001 --radial-cells 10 --vertical-cells 20");
+    EXPECT_EQ(strict.exit_code, 0);
+    EXPECT_NE(strict.err.find("differ by"), std::string::npos) << strict.err;
+    EXPECT_NE(strict.out.find("WARNING"), std::string::npos);
+}
+
+TEST(NumericalMethod, ScenarioErrorsNameTheMethod) {
+    const std::string demo = slurp(source("demo/scenario.yaml"));
+    struct Row {
+        std::string text, key, message;
+    };
+    std::string partial = demo;
+    partial.replace(partial.find("drain_length_m: 14.0"), 20, "drain_length_m: 10.0");
+    const std::string layered = slurp(source("configs/layered-partial-numerical.yaml"));
+    std::string analytical_layers = layered;
+    analytical_layers.replace(analytical_layers.find("method: numerical"), 17, "method: analytical");
+    std::string bad_method = layered;
+    bad_method.replace(bad_method.find("method: numerical"), 17, "method: numerics");
+    const std::vector<Row> rows{
+        {partial, "drain_length_m", "need 'method: numerical'"},
+        {analytical_layers, "clay.layers[0]", "need 'method: numerical'"},
+        {bad_method, "method", "did you mean 'numerical'"},
+        {layered + "\nnumerical_mesh_extra: 1\n", "numerical_mesh_extra", "did you mean 'numerical_mesh'"},
+    };
+    for (const auto& row : rows) {
+        try {
+            scenario::parse_scenario(row.text, "case.yaml");
+            ADD_FAILURE() << row.key << ": accepted";
+        } catch (const scenario::ScenarioError& e) {
+            EXPECT_EQ(e.key_path(), row.key) << e.what();
+            EXPECT_NE(e.message().find(row.message), std::string::npos) << e.what();
+        }
+    }
+}
