@@ -82,7 +82,7 @@ TEST(Scenario, EveryErrorIsLocatedAndNamed) {
          "drains[0].discharge_capacity_m3_per_year", "greater than 0", "discharge_capacity_m3_per_year: 0"},
         {"duplicate drain", "name: band-100x6-hiflow", "name: band-100x4", "drains[1].name", "used twice", ""},
         {"partial penetration", "drain_length_m: 14.0", "drain_length_m: 10.0", "drain_length_m",
-         "not supported yet", "drain_length_m: 10.0"},
+         "need 'method: numerical'", "drain_length_m: 10.0"},
         {"bad outlets", "drain_outlets: top", "drain_outlets: bottom", "drain_outlets", "top, top_and_bottom",
          "drain_outlets: bottom"},
         {"smear smaller than drain", "smear_diameter_ratio: 2.0", "smear_diameter_ratio: 0.5",
