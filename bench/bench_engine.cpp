@@ -53,18 +53,7 @@ BENCHMARK(BM_SpacingSolverReused);
 // The Monte Carlo case: 1,000,000 samples of (ch, smear ratios, qw), a full largest-spacing
 // search for each of two patterns, on all cores. Wall time.
 static void BM_MonteCarloMillion(benchmark::State& state) {
-    const CellSpec cell = fixtures::typical_cell();
-    DesignInput d;
-    d.clay = cell.clay;
-    d.mv_m2_per_kN = 0.0008;
-    d.installation = cell.drain;
-    d.mandrel_diameter_m = mandrel_equivalent_diameter_m(0.120, 0.060);
-    d.smear_diameter_ratio = 2.0;
-    d.products = {{"band-100x4", cell.drain.equivalent_diameter_m, cell.drain.discharge_capacity_m3_per_s, {}}};
-    d.patterns = {Pattern::triangular, Pattern::square};
-    d.target_degree = 0.9;
-    d.deadline_s = units::days_to_seconds(180.0);
-    d.bounds = {0.6, 4.0};
+    const DesignInput d = fixtures::typical_design(180.0);
     const DesignResult base = run_design(d);
     MonteCarloSpec spec;
     spec.samples = 1000000;

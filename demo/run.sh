@@ -7,6 +7,7 @@ cmake -S . -B build/release -G Ninja -DCMAKE_BUILD_TYPE=Release
 cmake --build build/release -j "$(nproc)" --target wickgrid
 status=0
 ./build/release/wickgrid design demo/scenario.yaml --out demo-output || status=$?
+./build/release/wickgrid report demo/scenario.yaml --out demo-output > /dev/null
 echo
-echo "Design note, JSON and CSV written to demo-output/ (design.md, design.json, design.csv)."
+echo "Written to demo-output/: design.md (design note), design.json, design.csv, report.html and its charts."
 exit "$status"

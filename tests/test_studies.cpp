@@ -13,22 +13,7 @@
 using namespace wickgrid;
 
 namespace {
-DesignInput typical_design() {
-    const CellSpec cell = fixtures::typical_cell();
-    DesignInput d;
-    d.clay = cell.clay;
-    d.mv_m2_per_kN = 0.0008;
-    d.installation = cell.drain;
-    d.mandrel_diameter_m = mandrel_equivalent_diameter_m(0.120, 0.060);
-    d.smear_diameter_ratio = 2.0;
-    d.products = {{"band-100x4", cell.drain.equivalent_diameter_m, cell.drain.discharge_capacity_m3_per_s, 1.1}};
-    d.patterns = {Pattern::triangular, Pattern::square};
-    d.target_degree = 0.9;
-    d.deadline_s = units::days_to_seconds(240.0);
-    d.bounds = {0.6, 4.0};
-    d.increment_m = 0.05;
-    return d;
-}
+DesignInput typical_design() { return fixtures::typical_design(); }
 
 const DesignRow& row_of(const DesignResult& r, Pattern p) {
     for (const auto& row : r.rows)

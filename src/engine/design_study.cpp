@@ -44,6 +44,13 @@ double round_down_spacing(double limit_m, double increment_m, double minimum_m) 
 }
 
 namespace {
+// Drains, drain metres and cost per hectare at the chosen spacing.
+void density_columns(const DrainProductSpec& product, const CellSpec& chosen, DesignRow& row) {
+    row.drains_per_hectare = drains_per_hectare(chosen.pattern, chosen.spacing_m);
+    row.drain_length_per_hectare_m = row.drains_per_hectare * chosen.drain.length_m;
+    if (product.cost_per_m) row.cost_per_hectare = row.drain_length_per_hectare_m * *product.cost_per_m;
+}
+
 // How well a unit cell meets the design criterion: >= 0 when met.
 double margin(const DesignInput& input, const SettlementHistory& history) {
     if (input.residual_limit_m) return *input.residual_limit_m - history.residual_m(input.deadline_s, input.service_s);
@@ -138,9 +145,7 @@ DesignRow evaluate_staged(const DesignInput& input, const DrainProductSpec& prod
     row.mu_smear = cell.mu_smear();
     row.mu = cell.mu_depth_mean();
     row.time_to_target_s = staged_time_to_target(input, history);
-    row.drains_per_hectare = drains_per_hectare(pattern, row.spacing_m);
-    row.drain_length_per_hectare_m = row.drains_per_hectare * chosen.drain.length_m;
-    if (product.cost_per_m) row.cost_per_hectare = row.drain_length_per_hectare_m * *product.cost_per_m;
+    density_columns(product, chosen, row);
     if (input.has_settlement()) {
         row.ultimate_settlement_m = history.final_m();
         row.settlement_at_deadline_m = history.settlement_m(input.deadline_s);
@@ -198,9 +203,7 @@ DesignRow evaluate_numerical(const DesignInput& input, const DrainProductSpec& p
     // The radial degree that Carrillo's rule would need to give the combined degree.
     row.at_deadline.radial = 1.0 - (1.0 - row.at_deadline.combined) / (1.0 - row.at_deadline.vertical);
     row.time_to_target_s = cell.time_to_degree_s(input.target_degree);
-    row.drains_per_hectare = drains_per_hectare(pattern, row.spacing_m);
-    row.drain_length_per_hectare_m = row.drains_per_hectare * chosen.drain.length_m;
-    if (product.cost_per_m) row.cost_per_hectare = row.drain_length_per_hectare_m * *product.cost_per_m;
+    density_columns(product, chosen, row);
     return row;
 }
 
@@ -230,9 +233,7 @@ DesignRow evaluate(const DesignInput& input, const DrainProductSpec& product, Pa
     row.mu = cell.mu_depth_mean();
     row.at_deadline = cell.at(input.deadline_s);
     row.time_to_target_s = time_to_degree_s(cell, input.target_degree);
-    row.drains_per_hectare = drains_per_hectare(pattern, row.spacing_m);
-    row.drain_length_per_hectare_m = row.drains_per_hectare * chosen.drain.length_m;
-    if (product.cost_per_m) row.cost_per_hectare = row.drain_length_per_hectare_m * *product.cost_per_m;
+    density_columns(product, chosen, row);
     return row;
 }
 }  // namespace
