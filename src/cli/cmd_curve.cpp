@@ -48,8 +48,6 @@ Runner add_curve(CLI::App& app) {
         const auto& drain = s.drain(o->drain);
         const DesignInput input = s.design_input();
         const Pattern pattern = o->pattern == "square" ? Pattern::square : Pattern::triangular;
-        const auto product = std::find_if(input.products.begin(), input.products.end(),
-                                          [&](const DrainProductSpec& p) { return p.name == drain.name; });
         std::vector<double> times;
         for (const double d : o->at_days) {
             if (!(std::isfinite(d) && d >= 0.0))
@@ -60,13 +58,7 @@ Runner add_curve(CLI::App& app) {
             const double until = o->until_days > 0.0 ? o->until_days : 1.5 * s.deadline_days;
             times = even_times_s(units::days_to_seconds(until), o->points);
         }
-        UnitCell cell = [&] {
-            try {
-                return UnitCell(product_cell(input, *product, pattern, o->spacing_m));
-            } catch (const InputError& e) {
-                throw InputError("--spacing", o->spacing_m, e.allowed() + " (" + e.quantity() + ")");
-            }
-        }();
+        const UnitCell cell = cell_from_options(input, drain.name, pattern, o->spacing_m);
         report::CurveReport curve{drain.name, pattern, o->spacing_m, degree_curve(input, cell, times)};
         if (o->json) print_stdout(report::curve_json(curve).dump(2) + "\n");
         else if (o->csv) print_stdout(report::curve_csv(curve));

@@ -1,6 +1,7 @@
 // wickgrid design FILE: largest practical spacing per drain product and pattern.
 #include <spdlog/spdlog.h>
 
+#include <algorithm>
 #include <cstdio>
 #include <filesystem>
 
@@ -8,8 +9,19 @@
 #include "report/atomic_file.hpp"
 #include "report/design_report.hpp"
 #include "scenario/scenario.hpp"
+#include "wickgrid/errors.hpp"
 
 namespace wickgrid::cli {
+
+UnitCell cell_from_options(const DesignInput& input, const std::string& drain, Pattern pattern, double spacing_m) {
+    const auto product = std::find_if(input.products.begin(), input.products.end(),
+                                      [&](const DrainProductSpec& p) { return p.name == drain; });
+    try {
+        return UnitCell(product_cell(input, *product, pattern, spacing_m));
+    } catch (const InputError& e) {
+        throw InputError("--spacing", spacing_m, e.allowed() + " (" + e.quantity() + ")");
+    }
+}
 
 void print_stdout(const std::string& text) {
     std::fwrite(text.data(), 1, text.size(), stdout);

@@ -49,16 +49,8 @@ Runner add_surcharge(CLI::App& app) {
             throw scenario::ScenarioError(s.file, {1, 1}, "loading", "surcharge design needs a 'loading' block with the permanent stages");
         const DesignInput input = s.design_input();
         const auto& drain = s.drain(o->drain);
-        const auto product = std::find_if(input.products.begin(), input.products.end(),
-                                          [&](const DrainProductSpec& p) { return p.name == drain.name; });
         const Pattern pattern = o->pattern == "square" ? Pattern::square : Pattern::triangular;
-        UnitCell cell = [&] {
-            try {
-                return UnitCell(product_cell(input, *product, pattern, o->spacing_m));
-            } catch (const InputError& e) {
-                throw InputError("--spacing", o->spacing_m, e.allowed() + " (" + e.quantity() + ")");
-            }
-        }();
+        const UnitCell cell = cell_from_options(input, drain.name, pattern, o->spacing_m);
         Surcharge timing;
         if (s.loading->surcharge) {
             timing = *s.loading->surcharge;

@@ -5,6 +5,8 @@
 #include <functional>
 #include <string>
 
+#include "wickgrid/design.hpp"
+
 namespace wickgrid::cli {
 
 enum ExitCode : int {
@@ -24,6 +26,11 @@ Runner add_sweep(CLI::App& app);
 Runner add_surcharge(CLI::App& app);
 Runner add_report(CLI::App& app);
 Runner add_verify(CLI::App& app);
+
+// The unit cell a command's --drain/--pattern/--spacing options name; engine refusals of the
+// spacing are reported against --spacing.
+wickgrid::UnitCell cell_from_options(const wickgrid::DesignInput& input, const std::string& drain,
+                                     wickgrid::Pattern pattern, double spacing_m);
 
 // Prints stdout text whole (one write) so a broken pipe never leaves half a JSON document.
 void print_stdout(const std::string& text);

@@ -51,6 +51,17 @@ void density_columns(const DrainProductSpec& product, const CellSpec& chosen, De
     if (product.cost_per_m) row.cost_per_hectare = row.drain_length_per_hectare_m * *product.cost_per_m;
 }
 
+// Geometry columns of a row from its closed-form unit cell.
+void cell_columns(const UnitCell& cell, DesignRow& row) {
+    row.equivalent_diameter_m = cell.spec().drain.equivalent_diameter_m;
+    row.smear_diameter_m = cell.spec().drain.smear_diameter_m;
+    row.influence_diameter_m = cell.influence_diameter_m();
+    row.n = cell.n();
+    row.s = cell.s();
+    row.mu_smear = cell.mu_smear();
+    row.mu = cell.mu_depth_mean();
+}
+
 // How well a unit cell meets the design criterion: >= 0 when met.
 double margin(const DesignInput& input, const SettlementHistory& history) {
     if (input.residual_limit_m) return *input.residual_limit_m - history.residual_m(input.deadline_s, input.service_s);
@@ -137,13 +148,7 @@ DesignRow evaluate_staged(const DesignInput& input, const DrainProductSpec& prod
     row.at_deadline.vertical = part([&cell](double t) { return cell.at(t).vertical; });
     row.at_deadline.radial = part([&cell](double t) { return cell.at(t).radial; });
     row.at_deadline.combined = history.degree(input.deadline_s);
-    row.equivalent_diameter_m = chosen.drain.equivalent_diameter_m;
-    row.smear_diameter_m = chosen.drain.smear_diameter_m;
-    row.influence_diameter_m = cell.influence_diameter_m();
-    row.n = cell.n();
-    row.s = cell.s();
-    row.mu_smear = cell.mu_smear();
-    row.mu = cell.mu_depth_mean();
+    cell_columns(cell, row);
     row.time_to_target_s = staged_time_to_target(input, history);
     density_columns(product, chosen, row);
     if (input.has_settlement()) {
@@ -224,13 +229,7 @@ DesignRow evaluate(const DesignInput& input, const DrainProductSpec& product, Pa
     CellSpec chosen = base;
     chosen.spacing_m = row.spacing_m;
     const UnitCell cell(chosen);
-    row.equivalent_diameter_m = chosen.drain.equivalent_diameter_m;
-    row.smear_diameter_m = chosen.drain.smear_diameter_m;
-    row.influence_diameter_m = cell.influence_diameter_m();
-    row.n = cell.n();
-    row.s = cell.s();
-    row.mu_smear = cell.mu_smear();
-    row.mu = cell.mu_depth_mean();
+    cell_columns(cell, row);
     row.at_deadline = cell.at(input.deadline_s);
     row.time_to_target_s = time_to_degree_s(cell, input.target_degree);
     density_columns(product, chosen, row);
