@@ -248,6 +248,7 @@ TEST(Cli, ExitCodesAndMessages) {
          "--at-days = -5"},
         {"unwritable out", "design " + demo + " --out " + demo + "/sub", 3, "cannot create the output folder"},
         {"help", "design --help", 0, ""},
+        {"verbose after the command", "design " + demo + " --json -v", 0, "info"},
     };
     for (const auto& c : cases) {
         const CommandRun r = run(c.args);

@@ -93,7 +93,11 @@ Runner add_verify(CLI::App& app) {
         } else {
             table << "\nThe closed form is equal strain (Hansbo 1981) combined by Carrillo (1942); the numerical cell is "
                      "free strain with coupled radial and vertical flow and the drain as a conduit. Differences of "
-                     "about 0.01 in U are expected between the two.\n";
+                     "about 0.01 in U are expected between the two"
+                  << (s.loading && s.loading->surcharge
+                          ? "; with a surcharge, also the closed form's rule of holding settlement after removal"
+                          : "")
+                  << ".\nEstimates from idealised theory: confirm parameters by site investigation and by monitoring.\n";
             print_stdout(table.str());
         }
         return static_cast<int>(ok);

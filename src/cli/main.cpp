@@ -30,6 +30,7 @@ int main(int argc, char** argv) {
                  "Finds, for each drain product and pattern, the largest spacing that reaches the target "
                  "degree of consolidation by the deadline."};
     app.require_subcommand(1);
+    app.fallthrough();  // -v and -q also after the command name
     int verbosity = 0;
     bool quiet = false;
     app.add_flag("-v,--verbose", verbosity, "More log messages on stderr (repeat for debug)");
