@@ -76,9 +76,13 @@ std::vector<double> nice_ticks(double lo, double hi, int count) {
     };
     const double range = nice(hi - lo, false);
     const double step = nice(range / std::max(1, count - 1), true);
+    // From the last tick at or below lo to the first at or above hi, so the axis ends on ticks.
     std::vector<double> ticks;
-    for (double t = std::floor(lo / step) * step; t <= hi + 0.5 * step; t += step)
-        if (t >= lo - 1e-9 * step && t <= hi + 1e-9 * step) ticks.push_back(std::fabs(t) < 1e-12 * step ? 0.0 : t);
+    const double first = std::floor(lo / step + 1e-9) * step;
+    for (int k = 0; first + k * step < hi + step * (1 - 1e-9) && k < 1000; ++k) {
+        const double t = first + k * step;
+        ticks.push_back(std::fabs(t) < 1e-12 * step ? 0.0 : t);
+    }
     return ticks;
 }
 
@@ -189,6 +193,8 @@ std::string render(const RangeChart& chart) {
     lo -= pad;
     hi += pad;
     const auto ticks = nice_ticks(lo, hi, 6);
+    lo = ticks.front();
+    hi = ticks.back();
     const Axis ax{lo, hi, false, 250, width - right - 10};
     std::ostringstream o;
     o << header(chart.title, h) << "<g font-family=\"sans-serif\" font-size=\"11\" fill=\"#33424d\">\n";
