@@ -5,6 +5,8 @@
 
 #include "cli_helpers.hpp"
 #include "scenario/scenario.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/studies.hpp"
 #include "wickgrid/surcharge.hpp"
 #include "wickgrid/units.hpp"
 
@@ -150,4 +152,20 @@ TEST(Staged, LoadingAndLayerErrorsAreLocated) {
         EXPECT_EQ(e.key_path(), "target.residual_settlement_mm");
         EXPECT_NE(e.message().find("needs a 'loading' block"), std::string::npos) << e.what();
     }
+}
+
+TEST(Staged, StudiesHonourTheCriterionAndLoading) {
+    const auto s = scenario::load_scenario(source(staged));
+    const DesignInput input = s.design_input();
+    const DesignResult base = run_design(input);
+    const auto rows = tornado_study(input, base, {{StudyInput::smear_permeability_ratio, 2.0, 4.0}});
+    for (const auto& t : rows) {
+        const DesignResult direct = run_design(with_input(input, t.input, t.high_si));
+        for (const auto& r : direct.rows)
+            if (r.pattern == t.pattern) EXPECT_EQ(r.spacing_limit_m, t.at_high.spacing_m);
+    }
+    MonteCarloSpec mc;
+    mc.samples = 10;
+    mc.inputs = {{StudyInput::smear_permeability_ratio, {DistributionKind::uniform, 2.0, 4.0}}};
+    EXPECT_THROW(monte_carlo(input, base, mc), InputError);
 }

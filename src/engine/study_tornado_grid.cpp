@@ -22,6 +22,35 @@ const DrainProductSpec& product_named(const DesignInput& input, const std::strin
     return *std::find_if(input.products.begin(), input.products.end(),
                          [&](const DrainProductSpec& p) { return p.name == name; });
 }
+
+// The spacing limit under the design's own criterion, loading and method.
+SpacingLimit limit_for(const DesignInput& input, const DrainProductSpec& product, Pattern pattern) {
+    if (!input.staged() && !input.numerical)
+        return largest_spacing(product_cell(input, product, pattern, input.bounds.min_m), input.target_degree,
+                               input.deadline_s, input.bounds);
+    DesignInput one = input;
+    one.products = {product};
+    one.patterns = {pattern};
+    const DesignRow row = run_design(one).rows.front();
+    SpacingLimit limit;
+    limit.feasible = row.feasible;
+    limit.at_maximum = row.limited_by_maximum;
+    limit.spacing_m = row.spacing_limit_m;
+    limit.degree_at_minimum = row.feasible ? 0.0 : row.at_deadline.combined;
+    return limit;
+}
+
+// The degree at the deadline at one spacing, under the design's loading and method.
+double degree_for(const DesignInput& input, const DrainProductSpec& product, Pattern pattern, double spacing_m) {
+    if (input.numerical)
+        return NumericalCell(numerical_cell(input, product, pattern, spacing_m), input.numerical_mesh)
+            .solve({input.deadline_s})
+            .front()
+            .degree_settlement;
+    const UnitCell cell(product_cell(input, product, pattern, spacing_m));
+    if (input.staged()) return history_of(input, cell).degree(input.deadline_s);
+    return cell.at(input.deadline_s).combined;
+}
 }  // namespace
 
 std::vector<TornadoRow> tornado_study(const DesignInput& base, const DesignResult& base_result,
@@ -46,11 +75,8 @@ std::vector<TornadoRow> tornado_study(const DesignInput& base, const DesignResul
             auto run = [&](double value, SpacingLimit& limit, double& degree) {
                 const DesignInput varied = with_input(base, in.input, value);
                 const DrainProductSpec& product = product_named(varied, design.drain);
-                limit = largest_spacing(product_cell(varied, product, design.pattern, varied.bounds.min_m),
-                                        varied.target_degree, varied.deadline_s, varied.bounds);
-                degree = UnitCell(product_cell(varied, product, design.pattern, design.spacing_m))
-                             .at(varied.deadline_s)
-                             .combined;
+                limit = limit_for(varied, product, design.pattern);
+                degree = degree_for(varied, product, design.pattern, design.spacing_m);
             };
             run(in.low_si, row.at_low, row.degree_low);
             run(in.high_si, row.at_high, row.degree_high);
@@ -88,8 +114,7 @@ std::vector<GridCell> grid_study(const DesignInput& base, const GridAxis& x, con
                     const DesignInput varied = with_input(with_input(base, x.input, xv), y.input, yv);
                     const DrainProductSpec& p = product_named(varied, product.name);
                     GridCell cell{product.name, pattern, xv, yv, {}};
-                    cell.limit = largest_spacing(product_cell(varied, p, pattern, varied.bounds.min_m),
-                                                 varied.target_degree, varied.deadline_s, varied.bounds);
+                    cell.limit = limit_for(varied, p, pattern);
                     cells.push_back(cell);
                 }
     return cells;
