@@ -161,8 +161,11 @@ TEST(Staged, StudiesHonourTheCriterionAndLoading) {
     const auto rows = tornado_study(input, base, {{StudyInput::smear_permeability_ratio, 2.0, 4.0}});
     for (const auto& t : rows) {
         const DesignResult direct = run_design(with_input(input, t.input, t.high_si));
-        for (const auto& r : direct.rows)
-            if (r.pattern == t.pattern) EXPECT_EQ(r.spacing_limit_m, t.at_high.spacing_m);
+        for (const auto& r : direct.rows) {
+            if (r.pattern == t.pattern) {
+                EXPECT_EQ(r.spacing_limit_m, t.at_high.spacing_m);
+            }
+        }
     }
     MonteCarloSpec mc;
     mc.samples = 10;
