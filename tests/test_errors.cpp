@@ -76,6 +76,7 @@ TEST(NamedFailures, EveryBadInputIsNamed) {
         {"time < 0", [] { UnitCell(typical_cell()).at(-1.0); }, "time"},
         {"target >= 1", [] { time_to_degree_s(UnitCell(typical_cell()), 1.0); }, "target degree"},
         {"deadline <= 0", [] { largest_spacing(typical_cell(), 0.9, 0.0, {0.8, 4.0}); }, "deadline"},
+        {"unknown product", [] { fixtures::typical_design().product("band-200x9"); }, "drain product 'band-200x9'"},
         {"bounds reversed", [] { largest_spacing(typical_cell(), 0.9, 1e7, {2.0, 1.0}); }, "maximum spacing"},
     };
     for (const auto& row : rows) {

@@ -49,6 +49,9 @@ struct DesignInput {
     NumericalMesh numerical_mesh{20, 40, 0.005, 0.0};
     std::vector<NumericalLayer> numerical_layers;
 
+    // The product of that name (InputError naming it if there is none).
+    const DrainProductSpec& product(const std::string& name) const;
+
     bool has_settlement() const { return loading && (profile || clay_mv_m2_per_kN); }
     bool staged() const { return loading.has_value() || residual_limit_m.has_value(); }
     std::function<double(double)> ultimate_settlement() const;  // q (kPa) → m, or identity

@@ -14,10 +14,9 @@
 namespace wickgrid::cli {
 
 UnitCell cell_from_options(const DesignInput& input, const std::string& drain, Pattern pattern, double spacing_m) {
-    const auto product = std::find_if(input.products.begin(), input.products.end(),
-                                      [&](const DrainProductSpec& p) { return p.name == drain; });
+    const DrainProductSpec& product = input.product(drain);
     try {
-        return UnitCell(product_cell(input, *product, pattern, spacing_m));
+        return UnitCell(product_cell(input, product, pattern, spacing_m));
     } catch (const InputError& e) {
         throw InputError("--spacing", spacing_m, e.allowed() + " (" + e.quantity() + ")");
     }

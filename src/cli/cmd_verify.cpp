@@ -49,9 +49,8 @@ Runner add_verify(CLI::App& app) {
               << " cells) beside the closed form, at the chosen spacings\n\n";
         bool any_warning = false;
         for (const auto& row : result.rows) {
-            const auto product = std::find_if(input.products.begin(), input.products.end(),
-                                              [&](const DrainProductSpec& p) { return p.name == row.drain; });
-            const CellSpec spec = product_cell(input, *product, row.pattern, row.spacing_m);
+            const DrainProductSpec& product = input.product(row.drain);
+            const CellSpec spec = product_cell(input, product, row.pattern, row.spacing_m);
             const UnitCell cell(spec);
             const auto analytic = degree_curve(input, cell, times);
             const NumericalCell numeric(numerical_spec(spec, input.loading), mesh);

@@ -11,6 +11,12 @@
 
 namespace wickgrid {
 
+const DrainProductSpec& DesignInput::product(const std::string& name) const {
+    const auto it = std::find_if(products.begin(), products.end(), [&](const DrainProductSpec& p) { return p.name == name; });
+    if (it == products.end()) throw InputError("drain product '" + name + "'", 0.0, "one of the design's products");
+    return *it;
+}
+
 bool DesignResult::any_feasible() const {
     return std::any_of(rows.begin(), rows.end(), [](const DesignRow& r) { return r.feasible; });
 }

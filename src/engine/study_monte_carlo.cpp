@@ -77,9 +77,8 @@ MonteCarloResult monte_carlo(const DesignInput& base_input, const DesignResult& 
 
     std::vector<Combination> combos;
     for (const DesignRow& row : base_result.rows) {
-        const auto product = std::find_if(base.products.begin(), base.products.end(),
-                                          [&](const DrainProductSpec& p) { return p.name == row.drain; });
-        combos.push_back({product_cell(base, *product, row.pattern, base.bounds.min_m),
+        const DrainProductSpec& product = base.product(row.drain);
+        combos.push_back({product_cell(base, product, row.pattern, base.bounds.min_m),
                           spec.spacing_m.value_or(row.spacing_m)});
     }
 

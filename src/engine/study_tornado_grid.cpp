@@ -18,11 +18,6 @@ void check_in_range(const DesignInput& base, StudyInput input, double value) {
                                   : std::string()));
 }
 
-const DrainProductSpec& product_named(const DesignInput& input, const std::string& name) {
-    return *std::find_if(input.products.begin(), input.products.end(),
-                         [&](const DrainProductSpec& p) { return p.name == name; });
-}
-
 // The spacing limit under the design's own criterion, loading and method.
 SpacingLimit limit_for(const DesignInput& input, const DrainProductSpec& product, Pattern pattern) {
     if (!input.staged() && !input.numerical)
@@ -74,7 +69,7 @@ std::vector<TornadoRow> tornado_study(const DesignInput& base, const DesignResul
             row.high_si = in.high_si;
             auto run = [&](double value, SpacingLimit& limit, double& degree) {
                 const DesignInput varied = with_input(base, in.input, value);
-                const DrainProductSpec& product = product_named(varied, design.drain);
+                const DrainProductSpec& product = varied.product(design.drain);
                 limit = limit_for(varied, product, design.pattern);
                 degree = degree_for(varied, product, design.pattern, design.spacing_m);
             };
@@ -112,7 +107,7 @@ std::vector<GridCell> grid_study(const DesignInput& base, const GridAxis& x, con
             for (const double yv : ys)
                 for (const double xv : xs) {
                     const DesignInput varied = with_input(with_input(base, x.input, xv), y.input, yv);
-                    const DrainProductSpec& p = product_named(varied, product.name);
+                    const DrainProductSpec& p = varied.product(product.name);
                     GridCell cell{product.name, pattern, xv, yv, {}};
                     cell.limit = limit_for(varied, p, pattern);
                     cells.push_back(cell);

@@ -13,10 +13,6 @@ namespace wickgrid::report {
 namespace {
 double days(double s) { return units::seconds_to_days(s); }
 
-const DrainProductSpec& product_of(const DesignInput& in, const std::string& name) {
-    return *std::find_if(in.products.begin(), in.products.end(), [&](const DrainProductSpec& p) { return p.name == name; });
-}
-
 // The rows the charts follow: the recommended product (or the first) in every pattern.
 std::vector<const DesignRow*> chart_rows(const DesignResult& result) {
     const DesignRow* best = best_row(result);
@@ -25,6 +21,17 @@ std::vector<const DesignRow*> chart_rows(const DesignResult& result) {
     for (const auto& r : result.rows)
         if (r.drain == drain) rows.push_back(&r);
     return rows;
+}
+
+// A line chart against time with the deadline marked.
+LineChart time_chart(const scenario::Scenario& s, std::string title, std::string x_label, std::string y_label) {
+    LineChart c;
+    c.title = std::move(title);
+    c.x_label = std::move(x_label);
+    c.y_label = std::move(y_label);
+    c.marker_x = s.deadline_days;
+    c.marker_label = "deadline";
+    return c;
 }
 
 std::vector<double> curve_times(double deadline_s, bool log_time) {
@@ -39,18 +46,16 @@ std::vector<double> curve_times(double deadline_s, bool log_time) {
 }
 
 Chart degree_chart(const scenario::Scenario& s, const DesignInput& in, const DesignRow& row, bool log_time) {
-    const UnitCell cell(product_cell(in, product_of(in, row.drain), row.pattern, row.spacing_m));
+    const UnitCell cell(product_cell(in, in.product(row.drain), row.pattern, row.spacing_m));
     const auto points = degree_curve(in, cell, curve_times(in.deadline_s, log_time));
-    LineChart c;
-    c.title = "Degree of consolidation, " + row.drain + ", " + std::string(to_string(row.pattern)) + " at " +
-              fixed(row.spacing_m, 2) + " m";
-    c.x_label = log_time ? "time since start of loading (days, logarithmic)" : "time since start of loading (days)";
-    c.y_label = "degree of consolidation (%)";
+    LineChart c = time_chart(s,
+                             "Degree of consolidation, " + row.drain + ", " + std::string(to_string(row.pattern)) +
+                                 " at " + fixed(row.spacing_m, 2) + " m",
+                             log_time ? "time since start of loading (days, logarithmic)" : "time since start of loading (days)",
+                             "degree of consolidation (%)");
     c.log_x = log_time;
     c.y_min = 0.0;
     c.y_max = 100.0;
-    c.marker_x = s.deadline_days;
-    c.marker_label = "deadline";
     Series uv{"Uv vertical", {}, {}, 2}, ur{"Ur radial", {}, {}, 1}, u{"U combined", {}, {}, 0};
     for (const auto& p : points) {
         for (Series* ser : {&uv, &ur, &u}) ser->x.push_back(days(p.time_s));
@@ -71,16 +76,11 @@ Chart degree_chart(const scenario::Scenario& s, const DesignInput& in, const Des
 }
 
 Chart settlement_chart(const scenario::Scenario& s, const DesignInput& in, const std::vector<const DesignRow*>& rows) {
-    LineChart c;
-    c.title = "Settlement, " + rows.front()->drain;
-    c.x_label = "time since start of loading (days)";
-    c.y_label = "settlement (mm)";
-    c.marker_x = s.deadline_days;
-    c.marker_label = "deadline";
+    LineChart c = time_chart(s, "Settlement, " + rows.front()->drain, "time since start of loading (days)", "settlement (mm)");
     const auto times = curve_times(in.deadline_s, false);
     int style = 0;
     for (const DesignRow* row : rows) {
-        const UnitCell cell(product_cell(in, product_of(in, row->drain), row->pattern, row->spacing_m));
+        const UnitCell cell(product_cell(in, in.product(row->drain), row->pattern, row->spacing_m));
         const SettlementHistory history = history_of(in, cell);
         Series ser{std::string(to_string(row->pattern)) + " " + fixed(row->spacing_m, 2) + " m", {}, {}, style++};
         for (const double t : times) {
@@ -97,19 +97,15 @@ Chart settlement_chart(const scenario::Scenario& s, const DesignInput& in, const
 }
 
 Chart design_chart(const scenario::Scenario& s, const DesignInput& in, const std::vector<const DesignRow*>& rows) {
-    LineChart c;
-    c.title = "Required spacing against available time, " + rows.front()->drain;
-    c.x_label = "time available from the start of loading (days)";
-    c.y_label = "largest spacing meeting the criterion (m)";
-    c.marker_x = s.deadline_days;
-    c.marker_label = "deadline";
+    LineChart c = time_chart(s, "Required spacing against available time, " + rows.front()->drain,
+                             "time available from the start of loading (days)", "largest spacing meeting the criterion (m)");
     int style = 0;
     for (const DesignRow* row : rows) {
         Series ser{std::string(to_string(row->pattern)), {}, {}, style++};
         for (int i = 0; i <= 24; ++i) {
             DesignInput varied = in;
             varied.deadline_s = in.deadline_s * (0.3 + 1.7 * i / 24.0);
-            varied.products = {product_of(in, row->drain)};
+            varied.products = {in.product(row->drain)};
             varied.patterns = {row->pattern};
             const DesignResult r = run_design(varied);
             if (!r.rows.front().feasible) continue;
