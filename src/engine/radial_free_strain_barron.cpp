@@ -1,7 +1,8 @@
 // Barron (1948) free-strain radial consolidation of an ideal drain: eigen-expansion in the
 // cylinder functions U0, U1 (Boost.Math Bessel J and Y), plus the short-time expansion of flow into
-// a cylinder (from the Laplace transform, large-argument K1/K0 series, Carslaw & Jaeger 1959 §13.5)
-// where the series would need too many terms.
+// a cylinder where the series would need too many terms. That expansion is derived here from the
+// Laplace transform with the large-argument K1/K0 series (the problem is the one of Carslaw & Jaeger
+// 1959, Conduction of Heat in Solids, ch. 13, from memory); the tests check it against the series.
 #include <boost/math/constants/constants.hpp>
 #include <boost/math/special_functions/bessel.hpp>
 #include <boost/math/tools/toms748_solve.hpp>
