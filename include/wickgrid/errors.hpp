@@ -20,6 +20,23 @@ private:
     std::string allowed_;
 };
 
+// A criterion that cannot be evaluated or reached with valid inputs (a root finder that did not
+// converge within its cap, a target beyond the search horizon, a method asked outside its validity).
+// Distinct from InputError: the inputs are each allowed, the question has no answer here.
+class EvaluationError : public std::runtime_error {
+public:
+    EvaluationError(std::string what_failed, std::string reason);
+    const std::string& what_failed() const noexcept { return what_failed_; }
+    const std::string& reason() const noexcept { return reason_; }
+
+private:
+    std::string what_failed_;
+    std::string reason_;
+};
+
+// Throws EvaluationError when a root finder used up its iteration cap.
+void require_converged(std::string_view what, unsigned long long iterations_used, unsigned long long cap);
+
 // Formats a value the way the error messages show it (6 significant digits, "nan"/"inf" spelled).
 std::string format_value(double value);
 

@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "wickgrid/cell.hpp"
+#include "wickgrid/defaults.hpp"
 #include "wickgrid/loading.hpp"
 
 namespace wickgrid {
@@ -38,9 +39,9 @@ struct NumericalCellSpec {
 };
 
 struct NumericalMesh {
-    int radial_cells = 40;
-    int vertical_cells = 80;
-    double max_degree_step = 0.005;  // largest change of U in one time step
+    int radial_cells = defaults::numerical_radial_cells;
+    int vertical_cells = defaults::numerical_vertical_cells;
+    double max_degree_step = defaults::numerical_max_degree_step;  // largest change of U in one time step
     double first_step_s = 0.0;       // 0: chosen from the cell's time scales
 };
 
@@ -60,6 +61,11 @@ public:
     std::vector<NumericalPoint> solve(const std::vector<double>& times_s) const;
     // First time at which the settlement degree reaches target (0 < target < 1).
     double time_to_degree_s(double target) const;
+    // The state after every time step of the cell's own adaptive march (stops only at load events,
+    // never at output times), from t = 0 until past until_s. At a load jump both the state before and
+    // after it are listed (equal times). Degrees between the listed times follow by linear
+    // interpolation, so that any set of output times gives the same values (see cell_model.hpp).
+    std::vector<NumericalPoint> march(double until_s) const;
     std::size_t unknowns() const noexcept { return unknowns_; }
     std::size_t steps_taken() const noexcept { return steps_; }
 

@@ -5,6 +5,7 @@
 #include <optional>
 #include <vector>
 
+#include "wickgrid/defaults.hpp"
 #include "wickgrid/loading.hpp"
 
 namespace wickgrid {
@@ -16,12 +17,14 @@ struct SoilLayer {
     std::optional<double> e0, cc, cr, preconsolidation_kPa, ocr;
     // ... or a constant coefficient of volume compressibility.
     std::optional<double> mv_m2_per_kN;
+    // Consolidation coefficients of this layer (numerical method); absent: the clay's.
+    std::optional<double> cv_m2_per_s, ch_m2_per_s;
 };
 
 struct SoilProfile {
     std::vector<SoilLayer> layers;
     double groundwater_depth_m = 0.0;  // below the top of the clay
-    int slices_per_layer = 10;
+    int slices_per_layer = defaults::slices_per_layer;
 };
 
 void validate_profile(const SoilProfile& profile);
@@ -43,6 +46,11 @@ double ultimate_settlement_m(const SoilProfile& profile, double load_kPa);
 // One slice by e–log σ': Δe = Cr·log(σ'p/σ'0) + Cc·log(σ'f/σ'p) (each branch where it applies),
 // settlement Δe/(1 + e0)·H; or mv·Δσ·H.
 double slice_settlement_m(const SoilLayer& layer, const SliceState& slice, double load_kPa);
+
+// Secant coefficient of volume compressibility of one layer under a uniform load increase (m²/kN):
+// the layer's settlement by its slices divided by load × thickness; a given mv is returned as is.
+// Throws InputError for a layer index out of range or a load that is not positive.
+double secant_mv_m2_per_kN(const SoilProfile& profile, std::size_t layer, double load_kPa);
 
 // Settlement against time under a load history: increments of ultimate settlement from the
 // cumulative load, each with the unit cell's step response (linear superposition). After the

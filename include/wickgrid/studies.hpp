@@ -20,7 +20,8 @@ enum class StudyInput {
     kh,                        // horizontal permeability (replaces the derived value)
     smear_diameter_ratio,      // ds/dm
     smear_permeability_ratio,  // kh/ks
-    discharge_capacity,        // qw of every drain product
+    discharge_capacity,        // qw of the drain product (a site with one product only)
+    discharge_capacity_factor, // a factor on each product's own qw (keeps the products apart)
 };
 
 std::string_view to_string(StudyInput input);  // the scenario key, e.g. "ch_m2_per_year"
@@ -29,8 +30,9 @@ std::string_view to_string(StudyInput input);  // the scenario key, e.g. "ch_m2_
 double study_value_from_si(StudyInput input, double si);
 double study_value_to_si(StudyInput input, double scenario_value);
 
-// A copy of the design input with one input set (SI value).
-DesignInput with_input(const DesignInput& base, StudyInput input, double value_si);
+// A copy of the site with one input set (SI value). Throws InputError for discharge_capacity on a
+// site with several products (one value would override them all: vary the factor instead).
+Site with_input(const Site& base, StudyInput input, double value_si);
 
 // Physical range an input may take in this design (SI): used to check study values and to
 // truncate distributions. Lower bound inclusive, upper exclusive.
@@ -38,7 +40,7 @@ struct InputRange {
     double low;
     double high;
 };
-InputRange physical_range(const DesignInput& base, StudyInput input);
+InputRange physical_range(const Site& base, StudyInput input);
 
 struct TornadoInput {
     StudyInput input;
@@ -52,20 +54,24 @@ struct TornadoRow {
     StudyInput input = StudyInput::ch;
     double low_si = 0.0, high_si = 0.0;
     SpacingLimit at_low, at_high;          // required spacing with the input low / high
-    double degree_low = 0.0, degree_high = 0.0;  // degree at the base chosen spacing
-    double swing_m = 0.0;                  // |spacing at high − spacing at low| (0 where infeasible)
+    // The criterion's own measure at the base chosen spacing and the deadline: the degree (degree
+    // criterion) or the residual settlement in m (residual-settlement criterion).
+    CriterionKind measure = CriterionKind::degree;
+    double measure_low = 0.0, measure_high = 0.0;
+    // |spacing at high − spacing at low|; none when either end has no feasible spacing.
+    std::optional<double> swing_m;
 };
 
-// Rows for every product × pattern × input, sorted by swing (largest first) within each
-// product × pattern, products and patterns in design order.
-std::vector<TornadoRow> tornado_study(const DesignInput& base, const DesignResult& base_result,
+// Rows for every product × pattern × input, within each product × pattern the inputs with an
+// infeasible end first, then by swing (largest first); products and patterns in design order.
+std::vector<TornadoRow> tornado_study(const Site& base, const DesignResult& base_result,
                                       const std::vector<TornadoInput>& inputs);
 
 struct GridAxis {
     StudyInput input = StudyInput::smear_permeability_ratio;
     double from_si = 1.0;
     double to_si = 6.0;
-    int steps = 11;  // >= 2 values from..to inclusive
+    int steps = defaults::grid_steps;  // >= 2 values from..to inclusive
     std::vector<double> values() const;
 };
 
@@ -76,7 +82,7 @@ struct GridCell {
     SpacingLimit limit;
 };
 
-std::vector<GridCell> grid_study(const DesignInput& base, const GridAxis& x, const GridAxis& y);
+std::vector<GridCell> grid_study(const Site& base, const GridAxis& x, const GridAxis& y);
 
 enum class DistributionKind { normal, lognormal, uniform, triangular };
 std::string_view to_string(DistributionKind kind);
@@ -118,8 +124,8 @@ struct MonteCarloSpec {
     std::size_t samples = 10000;
     std::uint64_t seed = 1;
     unsigned threads = 0;  // 0: all hardware threads
-    double reliability = 0.9;
-    double confidence = 0.95;
+    double reliability = defaults::monte_carlo_reliability;
+    double confidence = defaults::monte_carlo_confidence;
     std::optional<double> spacing_m;  // evaluate here; default: each design's chosen spacing
 };
 
@@ -145,9 +151,10 @@ struct MonteCarloResult {
 using Progress = std::function<void(std::size_t done, std::size_t total)>;
 
 // Draws the uncertain inputs per sample and runs a full largest-spacing search for every product
-// and pattern. Samples are drawn in fixed chunks seeded from (seed, chunk), so results do not
+// and pattern (the closed form's exact fast search: a degree criterion under one instantaneous
+// load; other sites get EvaluationError, as they are not sampled yet). Samples are drawn in fixed chunks seeded from (seed, chunk), so results do not
 // depend on the number of threads.
-MonteCarloResult monte_carlo(const DesignInput& base, const DesignResult& base_result, const MonteCarloSpec& spec,
+MonteCarloResult monte_carlo(const Site& base, const DesignResult& base_result, const MonteCarloSpec& spec,
                              const Progress& progress = {});
 
 }  // namespace wickgrid

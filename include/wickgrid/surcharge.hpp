@@ -3,7 +3,7 @@
 // permanent load plus surcharge equals the final primary settlement under the permanent load
 // alone (Johnson 1970, from memory as the usual reference). Rebound on removal and secondary
 // compression are ignored.
-#include "wickgrid/design.hpp"
+#include "wickgrid/cell_model.hpp"
 
 namespace wickgrid {
 
@@ -17,10 +17,21 @@ struct SurchargeResult {
     bool needed = true;                    // false: the permanent load alone reaches final by removal
 };
 
-// The surcharge pressure for removal at timing.removal_s (timing.pressure_kPa is ignored).
-SurchargeResult surcharge_for_removal(const DesignInput& input, const UnitCell& cell, const Surcharge& timing);
+// One drain product × pattern × spacing on a site; every settlement comes from the site's cell model
+// with the surcharge placed in its load history.
+struct SurchargeCell {
+    const Site& site;
+    const DrainProductSpec& product;
+    Pattern pattern;
+    double spacing_m;
+};
 
-// The removal time for the surcharge given in timing (timing.removal_s is ignored).
-SurchargeResult removal_for_surcharge(const DesignInput& input, const UnitCell& cell, const Surcharge& timing);
+// The surcharge pressure for removal at timing.removal_s (timing.pressure_kPa is ignored). Throws
+// InputError without a settlement model, EvaluationError when no surcharge below 5000 kPa does it.
+SurchargeResult surcharge_for_removal(const SurchargeCell& cell, const Surcharge& timing);
+
+// The removal time for the surcharge given in timing (timing.removal_s is ignored). Throws
+// EvaluationError when the surcharge cannot reach the final settlement within the search horizon.
+SurchargeResult removal_for_surcharge(const SurchargeCell& cell, const Surcharge& timing);
 
 }  // namespace wickgrid

@@ -1,8 +1,5 @@
 // wickgrid check FILE: validate a scenario without designing.
-#include <spdlog/spdlog.h>
-
 #include "commands.hpp"
-#include "scenario/scenario.hpp"
 
 namespace wickgrid::cli {
 
@@ -12,8 +9,9 @@ Runner add_check(CLI::App& app) {
     cmd->add_option("FILE", *file, "Scenario file (YAML)")->required();
     return [file] {
         const auto s = scenario::load_scenario(*file);
-        print_stdout(*file + ": valid scenario '" + s.title + "': " + std::to_string(s.drains.size()) +
-                     " drain product(s) × " + std::to_string(s.patterns.size()) + " pattern(s)\n");
+        print_stdout(*file + ": valid scenario '" + s.title + "': " + std::to_string(s.site.products.size()) +
+                     " drain product(s) × " + std::to_string(s.site.range.patterns.size()) + " pattern(s), method " +
+                     std::string(to_string(s.site.method.method)) + "\n");
         return static_cast<int>(ok);
     };
 }

@@ -1,10 +1,9 @@
-// wickgrid curve FILE --drain NAME --pattern P --spacing S: degree–time table of one unit cell.
-#include <algorithm>
+// wickgrid curve FILE --drain NAME --pattern P --spacing S: degree–time table of one unit cell, by
+// the scenario's own method, loading and settlement model.
 #include <cmath>
 
 #include "commands.hpp"
 #include "report/design_report.hpp"
-#include "scenario/scenario.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/units.hpp"
 
@@ -17,7 +16,7 @@ struct CurveOptions {
     std::string pattern;
     double spacing_m = 0.0;
     std::vector<double> at_days;
-    int points = 31;
+    int points = defaults::curve_points;
     double until_days = 0.0;
     bool json = false;
     bool csv = false;
@@ -29,12 +28,9 @@ Runner add_curve(CLI::App& app) {
     auto o = std::make_shared<CurveOptions>();
     cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
     cmd->add_option("--drain", o->drain, "Drain product name from the scenario")->required();
-    cmd->add_option("--pattern", o->pattern, "triangular or square")
-        ->required()
-        ->check(CLI::IsMember({"triangular", "square"}));
+    cmd->add_option("--pattern", o->pattern, "triangular or square")->required()->check(pattern_check());
     cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(CLI::PositiveNumber);
-    auto* at = cmd->add_option("--at-days", o->at_days, "Comma-separated times (days), e.g. 30,60,90")
-                   ->delimiter(',');
+    auto* at = cmd->add_option("--at-days", o->at_days, "Comma-separated times (days), e.g. 30,60,90")->delimiter(',');
     cmd->add_option("--points", o->points, "Number of evenly spaced times (default 31)")
         ->check(CLI::Range(2, 100000))
         ->excludes(at);
@@ -45,24 +41,25 @@ Runner add_curve(CLI::App& app) {
     cmd->add_flag("--csv", o->csv, "CSV on stdout")->excludes(json);
     return [o] {
         const auto s = scenario::load_scenario(o->file);
-        const auto& drain = s.drain(o->drain);
-        const DesignInput input = s.design_input();
-        const Pattern pattern = o->pattern == "square" ? Pattern::square : Pattern::triangular;
         std::vector<double> times;
         for (const double d : o->at_days) {
-            if (!(std::isfinite(d) && d >= 0.0))
-                throw InputError("--at-days", d, "a list of times of at least 0 days");
+            if (!(std::isfinite(d) && d >= 0.0)) throw InputError("--at-days", d, "a list of times of at least 0 days");
+            if (!times.empty() && units::days_to_seconds(d) < times.back())
+                throw InputError("--at-days", d, "in ascending order");
             times.push_back(units::days_to_seconds(d));
         }
         if (times.empty()) {
-            const double until = o->until_days > 0.0 ? o->until_days : 1.5 * s.deadline_days;
-            times = even_times_s(units::days_to_seconds(until), o->points);
+            const double until = o->until_days > 0.0 ? units::days_to_seconds(o->until_days)
+                                                     : defaults::curve_span_of_deadline * s.site.criterion.deadline_s;
+            times = even_times_s(until, o->points);
         }
-        const UnitCell cell = cell_from_options(input, drain.name, pattern, o->spacing_m);
-        report::CurveReport curve{drain.name, pattern, o->spacing_m, degree_curve(input, cell, times)};
-        if (o->json) print_stdout(report::curve_json(curve).dump(2) + "\n");
+        const Pattern pattern = pattern_option(o->pattern);
+        const auto model = model_from_options(s, o->drain, pattern, o->spacing_m);
+        const results::Curve curve{s.drain(o->drain).name, pattern, o->spacing_m, model->method(),
+                                   degree_curve(*model, times)};
+        if (o->json) print_stdout(report::curve_json(s.site, curve).dump(2) + "\n");
         else if (o->csv) print_stdout(report::curve_csv(curve));
-        else print_stdout(report::curve_table(curve));
+        else print_stdout(report::curve_table(s.site, curve));
         return static_cast<int>(ok);
     };
 }

@@ -1,12 +1,7 @@
 // wickgrid report FILE --out DIR: the HTML design report with its charts.
-#include <spdlog/spdlog.h>
-
-#include <filesystem>
-
 #include "commands.hpp"
-#include "report/atomic_file.hpp"
 #include "report/html_report.hpp"
-#include "scenario/scenario.hpp"
+#include "report/study_report.hpp"
 
 namespace wickgrid::cli {
 
@@ -27,22 +22,17 @@ Runner add_report(CLI::App& app) {
     cmd->footer("Studies in the scenario ('studies:' one-at-a-time and grid) are charted too. Exit codes as for design.");
     return [o] {
         const auto s = scenario::load_scenario(o->file);
-        const DesignInput input = s.design_input();
-        const DesignResult result = run_design(input);
-        report::SweepResults studies;
-        studies.grid_x = s.studies.grid_x;
-        studies.grid_y = s.studies.grid_y;
-        if (!s.studies.tornado.empty()) studies.tornado = tornado_study(input, result, s.studies.tornado);
-        if (s.studies.grid_given) studies.grid = grid_study(input, s.studies.grid_x, s.studies.grid_y);
-        const auto bundle = report::build_report(s, result, studies, {o->time_axis == "log"});
-        namespace fs = std::filesystem;
-        report::ensure_directory(o->out_dir);
-        const fs::path dir(o->out_dir);
-        report::write_file_atomically((dir / "report.html").string(), bundle.html);
-        for (const auto& chart : bundle.charts) report::write_file_atomically((dir / chart.file).string(), chart.svg);
-        print_stdout("wrote " + (dir / "report.html").string() + " and " + std::to_string(bundle.charts.size()) +
-                     " chart(s)\n");
-        return static_cast<int>(result.any_feasible() ? ok : no_feasible_design);
+        results::DesignRecord record = results::design_record(s, {true, o->time_axis == "log"});
+        record.studies.grid_x = s.studies.grid_x;
+        record.studies.grid_y = s.studies.grid_y;
+        if (!s.studies.tornado.empty()) record.studies.tornado = tornado_study(s.site, record.result, s.studies.tornado);
+        if (s.studies.grid_given) record.studies.grid = grid_study(s.site, s.studies.grid_x, s.studies.grid_y);
+        const auto bundle = report::build_report(record);
+        std::vector<std::pair<std::string, std::string>> files{{"report.html", bundle.html}};
+        for (const auto& chart : bundle.charts) files.emplace_back(chart.file, chart.svg);
+        write_outputs(o->out_dir, o->file, files);
+        print_stdout("wrote " + o->out_dir + "/report.html and " + std::to_string(bundle.charts.size()) + " chart(s)\n");
+        return static_cast<int>(record.result.any_feasible() ? ok : no_feasible_design);
     };
 }
 

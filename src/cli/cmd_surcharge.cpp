@@ -6,7 +6,7 @@
 
 #include "commands.hpp"
 #include "report/design_report.hpp"
-#include "scenario/scenario.hpp"
+#include "wickgrid/names.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/surcharge.hpp"
 #include "wickgrid/units.hpp"
@@ -34,7 +34,7 @@ Runner add_surcharge(CLI::App& app) {
     auto o = std::make_shared<SurchargeOptions>();
     cmd->add_option("FILE", o->file, "Scenario file with a 'loading' block and a settlement model")->required();
     cmd->add_option("--drain", o->drain, "Drain product name")->required();
-    cmd->add_option("--pattern", o->pattern, "triangular or square")->required()->check(CLI::IsMember({"triangular", "square"}));
+    cmd->add_option("--pattern", o->pattern, "triangular or square")->required()->check(pattern_check());
     cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(CLI::PositiveNumber);
     cmd->add_option("--find", o->find, "pressure (for the removal day) or removal_day (for the surcharge in the file)")
         ->check(CLI::IsMember({"pressure", "removal_day"}));
@@ -45,29 +45,32 @@ Runner add_surcharge(CLI::App& app) {
     cmd->add_flag("--json", o->json, "JSON on stdout");
     return [o] {
         const auto s = scenario::load_scenario(o->file);
-        if (!s.loading)
-            throw scenario::ScenarioError(s.file, {1, 1}, "loading", "surcharge design needs a 'loading' block with the permanent stages");
-        const DesignInput input = s.design_input();
+        const Site& site = s.site;
+        if (!site.loading) s.fail_at("loading", "surcharge design needs a 'loading' block with the permanent stages");
+        if (!site.has_settlement())
+            s.fail_at("clay", "surcharge design needs a settlement model: 'clay.layers' or 'clay.mv_m2_per_kN'");
+        const Pattern pattern = pattern_option(o->pattern);
+        model_from_options(s, o->drain, pattern, o->spacing_m);  // the spacing, checked against --spacing
+        const SurchargeCell cell{site, site.product(s.drain(o->drain).name), pattern, o->spacing_m};
         const auto& drain = s.drain(o->drain);
-        const Pattern pattern = o->pattern == "square" ? Pattern::square : Pattern::triangular;
-        const UnitCell cell = cell_from_options(input, drain.name, pattern, o->spacing_m);
         Surcharge timing;
-        if (s.loading->surcharge) {
-            timing = *s.loading->surcharge;
+        if (site.loading->surcharge) {
+            timing = *site.loading->surcharge;
         } else {
-            timing.start_s = timing.end_s = s.loading->end_of_construction_s();
+            timing.start_s = timing.end_s = site.loading->end_of_construction_s();
         }
         if (o->removal_day) timing.removal_s = units::days_to_seconds(*o->removal_day);
         SurchargeResult result;
         if (o->find == "pressure") {
-            if (!s.loading->surcharge && !o->removal_day)
-                throw InputError("--removal-day", 0.0, "given when the scenario has no loading.surcharge block");
-            result = surcharge_for_removal(input, cell, timing);
+            if (!site.loading->surcharge && !o->removal_day)
+                throw UsageError("--removal-day", "is required with --find pressure when the scenario has no "
+                                                  "'loading.surcharge' block (the day the surcharge comes off)");
+            result = surcharge_for_removal(cell, timing);
         } else {
-            if (!s.loading->surcharge)
-                throw scenario::ScenarioError(s.file, {1, 1}, "loading.surcharge",
-                                              "--find removal_day needs the surcharge (height or pressure) in 'loading.surcharge'");
-            result = removal_for_surcharge(input, cell, timing);
+            if (!site.loading->surcharge)
+                s.fail_at("loading.surcharge",
+                          "--find removal_day needs the surcharge (height or pressure) in 'loading.surcharge'");
+            result = removal_for_surcharge(cell, timing);
         }
         const std::optional<double> limit = o->max_height_m ? o->max_height_m : s.surcharge_max_height_m;
         std::optional<double> height;
@@ -84,7 +87,9 @@ Runner add_surcharge(CLI::App& app) {
                      {"final_settlement_mm", result.final_m * 1000.0},
                      {"settlement_at_removal_mm", result.settlement_at_removal_m * 1000.0},
                      {"height_limit_m", limit ? json(*limit) : json(nullptr)}, {"exceeds_limit", exceeds},
-                     {"ignores", json::array({ignores[0], ignores[1], ignores[2]})}};
+                     {"method", std::string(to_string(site.method.method))},
+                     {"ignores", json::array({ignores[0], ignores[1], ignores[2]})},
+                     {"cautions", results::cautions()}};
             print_stdout(doc.dump(2) + "\n");
             return static_cast<int>(ok);
         }

@@ -9,7 +9,6 @@
 #include "commands.hpp"
 #include "report/atomic_file.hpp"
 #include "report/study_report.hpp"
-#include "scenario/scenario.hpp"
 #include "wickgrid/errors.hpp"
 
 namespace wickgrid::cli {
@@ -61,53 +60,48 @@ Runner add_sweep(CLI::App& app) {
     cmd->add_flag("--csv", o->csv, "CSV on stdout (needs exactly one study, see --only)")->excludes(json);
     cmd->add_option("--out", o->out_dir, "Also write sweep.json and one CSV per study into this folder");
     return [o] {
-        auto s = scenario::load_scenario(o->file);
-        const DesignInput input = s.design_input();
-        const DesignResult base = run_design(input);
-        report::SweepResults r;
-        r.grid_x = s.studies.grid_x;
-        r.grid_y = s.studies.grid_y;
+        const auto s = scenario::load_scenario(o->file);
+        const Site& site = s.site;
         const bool tornado = wanted(*o, "tornado") && !s.studies.tornado.empty();
         const bool monte = wanted(*o, "monte_carlo") && s.studies.monte_carlo.has_value();
         if (!o->only.empty()) {
             if (wanted(*o, "tornado") && s.studies.tornado.empty())
-                throw scenario::ScenarioError(s.file, {1, 1}, "studies.tornado",
-                                              "--only tornado needs a 'studies: tornado:' block in the scenario");
+                throw UsageError("--only tornado", "needs a 'studies: tornado:' block in " + s.file);
             if (wanted(*o, "monte_carlo") && !s.studies.monte_carlo)
-                throw scenario::ScenarioError(s.file, {1, 1}, "uncertain",
-                                              "--only monte_carlo needs an 'uncertain:' block in the scenario");
+                throw UsageError("--only monte_carlo", "needs an 'uncertain:' block in " + s.file);
         }
         const bool grid = wanted(*o, "grid");
         if (o->csv && (tornado + grid + monte) != 1)
-            throw InputError("--csv with studies", static_cast<double>(tornado + grid + monte),
-                             "exactly 1 study: choose one with --only, or use --json or --out");
-        if (tornado) r.tornado = tornado_study(input, base, s.studies.tornado);
-        if (grid) r.grid = grid_study(input, s.studies.grid_x, s.studies.grid_y);
+            throw UsageError("--csv", "writes exactly 1 study, and " + std::to_string(tornado + grid + monte) +
+                                          " are asked: choose one with --only, or use --json or --out");
+        results::DesignRecord record = results::design_record(s);
+        results::Studies& r = record.studies;
+        r.grid_x = s.studies.grid_x;
+        r.grid_y = s.studies.grid_y;
+        if (tornado) r.tornado = tornado_study(site, record.result, s.studies.tornado);
+        if (grid) r.grid = grid_study(site, s.studies.grid_x, s.studies.grid_y);
         if (monte) {
             MonteCarloSpec spec = *s.studies.monte_carlo;
             if (o->samples) spec.samples = *o->samples;
             if (o->seed) spec.seed = *o->seed;
             spec.threads = o->threads;
-            s.studies.monte_carlo = spec;
-            spdlog::info("Monte Carlo: {} samples × {} designs", spec.samples, base.rows.size());
-            r.monte_carlo = monte_carlo(input, base, spec, progress_bar());
+            spdlog::info("Monte Carlo: {} samples × {} designs", spec.samples, record.result.rows.size());
+            r.monte_carlo = monte_carlo(site, record.result, spec, progress_bar());
+            r.monte_carlo_spec = spec;
         }
-        const std::string json_text = report::sweep_json(s, r).dump(2) + "\n";
+        const std::string json_text = report::sweep_json(record).dump(2) + "\n";
         if (!o->out_dir.empty()) {
-            namespace fs = std::filesystem;
-            report::ensure_directory(o->out_dir);
-            const fs::path dir(o->out_dir);
-            report::write_file_atomically((dir / "sweep.json").string(), json_text);
-            if (r.tornado) report::write_file_atomically((dir / "tornado.csv").string(), report::tornado_csv(*r.tornado));
-            if (r.grid) report::write_file_atomically((dir / "grid.csv").string(), report::grid_csv(*r.grid, r.grid_x, r.grid_y));
-            if (r.monte_carlo)
-                report::write_file_atomically((dir / "monte_carlo.csv").string(), report::monte_carlo_csv(*r.monte_carlo));
+            std::vector<std::pair<std::string, std::string>> files{{"sweep.json", json_text}};
+            if (r.tornado) files.emplace_back("tornado.csv", report::tornado_csv(site, *r.tornado));
+            if (r.grid) files.emplace_back("grid.csv", report::grid_csv(*r.grid, r.grid_x, r.grid_y));
+            if (r.monte_carlo) files.emplace_back("monte_carlo.csv", report::monte_carlo_csv(*r.monte_carlo));
+            write_outputs(o->out_dir, o->file, files);
         }
         if (o->json) print_stdout(json_text);
-        else if (o->csv) print_stdout(r.tornado ? report::tornado_csv(*r.tornado)
+        else if (o->csv) print_stdout(r.tornado ? report::tornado_csv(site, *r.tornado)
                                       : r.grid  ? report::grid_csv(*r.grid, r.grid_x, r.grid_y)
                                                 : report::monte_carlo_csv(*r.monte_carlo));
-        else print_stdout(report::sweep_table(s, r));
+        else print_stdout(report::sweep_table(record));
         return static_cast<int>(ok);
     };
 }

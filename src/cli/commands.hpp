@@ -1,20 +1,31 @@
 #pragma once
-// The command-line front end: each command parses its options, calls the scenario layer and the
-// engine, and hands the results to the writers. Exit codes are shared.
+// The command-line front end: each command parses its options, loads the scenario (the site),
+// asks the engine through the result layer and hands the record to the writers. Exit codes and
+// option helpers are shared.
 #include <CLI/CLI.hpp>
 #include <functional>
+#include <memory>
+#include <stdexcept>
 #include <string>
 
-#include "wickgrid/design.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/cell_model.hpp"
 
 namespace wickgrid::cli {
 
 enum ExitCode : int {
     ok = 0,
-    no_feasible_design = 1,
-    bad_input = 2,
-    output_failed = 3,
-    internal_error = 4,
+    no_feasible_design = 1,  // no product and pattern meets the criterion (outputs are still written)
+    bad_input = 2,           // a bad scenario file (located) or a bad command line
+    output_failed = 3,       // an output could not be written
+    internal_error = 4,      // an unexpected failure (a library error wickgrid did not foresee)
+    cannot_evaluate = 5,     // valid inputs, but the question has no answer here (EvaluationError)
+};
+
+// A command-line usage error: names the option and what is wrong, with no file location.
+class UsageError : public std::runtime_error {
+public:
+    UsageError(const std::string& option, const std::string& message) : std::runtime_error(option + ": " + message) {}
 };
 
 // Registers a subcommand; the returned function runs it after parsing.
@@ -27,12 +38,20 @@ Runner add_surcharge(CLI::App& app);
 Runner add_report(CLI::App& app);
 Runner add_verify(CLI::App& app);
 
-// The unit cell a command's --drain/--pattern/--spacing options name; engine refusals of the
-// spacing are reported against --spacing.
-wickgrid::UnitCell cell_from_options(const wickgrid::DesignInput& input, const std::string& drain,
-                                     wickgrid::Pattern pattern, double spacing_m);
+// The --pattern option's check and value, from the pattern name table.
+CLI::Validator pattern_check();
+Pattern pattern_option(const std::string& name);
+
+// The cell model a command's --drain/--pattern/--spacing options name, by the scenario's method;
+// a spacing the cell cannot take is reported against --spacing.
+std::unique_ptr<CellModel> model_from_options(const scenario::Scenario& s, const std::string& drain, Pattern pattern,
+                                              double spacing_m);
 
 // Prints stdout text whole (one write) so a broken pipe never leaves half a JSON document.
 void print_stdout(const std::string& text);
+
+// Writes files into an output folder whole or not at all, refusing to overwrite the input file.
+void write_outputs(const std::string& dir, const std::string& input_file,
+                   const std::vector<std::pair<std::string, std::string>>& files);
 
 }  // namespace wickgrid::cli

@@ -9,6 +9,7 @@
 #include "report/atomic_file.hpp"
 #include "scenario/scenario.hpp"
 #include "wickgrid/errors.hpp"
+#include "wickgrid/version.hpp"
 
 namespace {
 void setup_logging(int verbosity, bool quiet) {
@@ -27,15 +28,17 @@ void report_error(const std::string& text) { std::fprintf(stderr, "wickgrid: err
 int main(int argc, char** argv) {
     using namespace wickgrid;
     CLI::App app{"wickgrid: prefabricated vertical drain grid design for soft clay.\n"
-                 "Finds, for each drain product and pattern, the largest spacing that reaches the target "
-                 "degree of consolidation by the deadline."};
+                 "Finds, for each drain product and pattern, the largest spacing that meets the design "
+                 "criterion (a degree of consolidation by a deadline, or a residual settlement after it).\n"
+                 "Exit codes: 0 ok, 1 no design meets the criterion, 2 bad input (file or command line), "
+                 "3 an output could not be written, 4 unexpected failure, 5 the criterion cannot be evaluated."};
     app.require_subcommand(1);
     app.fallthrough();  // -v and -q also after the command name
     int verbosity = 0;
     bool quiet = false;
     app.add_flag("-v,--verbose", verbosity, "More log messages on stderr (repeat for debug)");
     app.add_flag("-q,--quiet", quiet, "Only errors on stderr");
-    app.set_version_flag("--version", "wickgrid 0.1.0");
+    app.set_version_flag("--version", std::string("wickgrid ") + wickgrid::version);
     const cli::Runner check = cli::add_check(app);
     const cli::Runner design = cli::add_design(app);
     const cli::Runner curve = cli::add_curve(app);
@@ -66,8 +69,17 @@ int main(int argc, char** argv) {
         if (app.got_subcommand("report")) return report_cmd();
         if (app.got_subcommand("verify")) return verify();
     } catch (const scenario::ScenarioError& e) {
-        report_error(e.mark().line > 0 ? e.what() : e.file() + ": " + e.message());
+        // A key the file does not give is reported against the file, without an invented line.
+        report_error(e.mark().line > 0 ? e.what()
+                                       : e.file() + ": " + (e.key_path().empty() ? "" : e.key_path() + ": ") + e.message());
         return cli::bad_input;
+    } catch (const cli::UsageError& e) {
+        report_error(e.what());
+        std::fprintf(stderr, "Run 'wickgrid COMMAND --help' for usage.\n");
+        return cli::bad_input;
+    } catch (const EvaluationError& e) {
+        report_error(e.what());
+        return cli::cannot_evaluate;
     } catch (const InputError& e) {
         report_error(e.what());
         return cli::bad_input;

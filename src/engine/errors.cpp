@@ -17,6 +17,14 @@ InputError::InputError(std::string quantity, double value, std::string allowed)
       value_(value),
       allowed_(std::move(allowed)) {}
 
+EvaluationError::EvaluationError(std::string what_failed, std::string reason)
+    : std::runtime_error(what_failed + ": " + reason), what_failed_(std::move(what_failed)), reason_(std::move(reason)) {}
+
+void require_converged(std::string_view what, unsigned long long iterations_used, unsigned long long cap) {
+    if (iterations_used >= cap)
+        throw EvaluationError(std::string(what), "the root finder did not converge in " + std::to_string(cap) + " iterations");
+}
+
 std::string format_value(double value) {
     if (std::isnan(value)) return "nan";
     if (std::isinf(value)) return value > 0 ? "inf" : "-inf";

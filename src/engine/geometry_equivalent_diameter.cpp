@@ -30,13 +30,4 @@ double mandrel_equivalent_diameter_m(double width_m, double depth_m) {
     return std::sqrt(4.0 * width_m * depth_m / boost::math::double_constants::pi);
 }
 
-std::string_view to_string(EquivalentDiameterMethod method) {
-    switch (method) {
-        case EquivalentDiameterMethod::hansbo_1979: return "hansbo_1979";
-        case EquivalentDiameterMethod::rixner_1986: return "rixner_1986";
-        case EquivalentDiameterMethod::long_covo_1994: return "long_covo_1994";
-    }
-    return "unknown";
-}
-
 }  // namespace wickgrid

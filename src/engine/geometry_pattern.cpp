@@ -12,10 +12,6 @@ namespace {
 constexpr double pi = boost::math::double_constants::pi;
 }
 
-std::string_view to_string(Pattern pattern) {
-    return pattern == Pattern::triangular ? "triangular" : "square";
-}
-
 double area_per_drain_m2(Pattern pattern, double spacing_m) {
     require_positive("drain spacing (m)", spacing_m);
     // A triangular grid of side s gives each drain a hexagon of area (√3/2)s²; a square grid s².

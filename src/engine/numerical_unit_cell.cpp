@@ -358,6 +358,41 @@ std::vector<NumericalPoint> NumericalCell::solve(const std::vector<double>& time
     return out;
 }
 
+std::vector<NumericalPoint> NumericalCell::march(double until_s) const {
+    require_non_negative("time (s)", until_s);
+    const Impl& m = *impl_;
+    std::vector<double> stops(m.breaks);
+    for (const auto& j : m.jumps) stops.push_back(j.time_s);
+    stops.push_back(std::numeric_limits<double>::infinity());
+    std::sort(stops.begin(), stops.end());
+    stops.erase(std::unique(stops.begin(), stops.end()), stops.end());
+    Stepper stepper(m);
+    Vector u = Vector::Zero(static_cast<long>(m.n));
+    apply_jumps(m, u, -1.0, 0.0);
+    double t = 0.0, h = m.first_step_s, applied = 0.0;
+    std::vector<NumericalPoint> out{{0.0, m.degree_settlement(u, 0.0), m.degree_pore_pressure(u, 0.0)}};
+    for (const double stop : stops) {
+        while (t < stop && t <= until_s) {
+            const double step = std::min(h, stop - t);
+            const double before = out.back().degree_settlement;
+            u = stepper.step(u, t, step);
+            t = step == stop - t ? stop : t + step;
+            ++steps_;
+            out.push_back({t, m.degree_settlement(u, t), m.degree_pore_pressure(u, t)});
+            if (step == h) {
+                const double change = std::fabs(out.back().degree_settlement - before);
+                if (change < 0.5 * m.max_degree_step) h *= 2.0;
+                else if (change > m.max_degree_step) h *= 0.5;
+            }
+        }
+        if (t > until_s) break;
+        apply_jumps(m, u, applied, t);  // jumps at exactly this stop: the state after them is listed too
+        applied = t;
+        out.push_back({t, m.degree_settlement(u, t), m.degree_pore_pressure(u, t)});
+    }
+    return out;
+}
+
 double NumericalCell::time_to_degree_s(double target) const {
     require_open_unit("target degree of consolidation", target);
     const Impl& m = *impl_;

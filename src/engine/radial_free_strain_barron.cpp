@@ -60,6 +60,7 @@ BarronFreeStrain::BarronFreeStrain(double n) : n_(n) {
             const auto root = boost::math::tools::toms748_solve(
                 [n](double beta) { return eigen_condition(beta, n); }, a, b, fa, fb,
                 boost::math::tools::eps_tolerance<double>(52), iterations);
+            require_converged("Barron free-strain eigenvalue", iterations, 100);
             const double beta = 0.5 * (root.first + root.second);
             beta_.push_back(beta);
             weight_.push_back(mode_weight(beta, n));

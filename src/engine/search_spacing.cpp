@@ -5,6 +5,7 @@
 #include <cstdint>
 
 #include "wickgrid/combine.hpp"
+#include "wickgrid/defaults.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/search.hpp"
 
@@ -37,10 +38,11 @@ SpacingLimit solve_spacing(DegreeAt&& degree_at, double target_degree, const Spa
         limit.spacing_m = bounds.min_m;
         return limit;
     }
-    std::uintmax_t iterations = 200;
+    std::uintmax_t iterations = defaults::root_iterations;
     const auto root = boost::math::tools::toms748_solve(
         [&](double s) { return degree_at(s) - target_degree; }, bounds.min_m, bounds.max_m, f_lo, f_hi,
         boost::math::tools::eps_tolerance<double>(40), iterations);
+    require_converged("largest spacing", iterations, defaults::root_iterations);
     limit.spacing_m = 0.5 * (root.first + root.second);
     return limit;
 }

@@ -2,6 +2,7 @@
 #include <boost/math/tools/toms748_solve.hpp>
 #include <cstdint>
 
+#include "wickgrid/defaults.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/search.hpp"
 #include "wickgrid/units.hpp"
@@ -22,9 +23,10 @@ double time_to_degree_s(const UnitCell& cell, double target_degree) {
             throw InputError("target degree of consolidation", target_degree,
                              "reachable within 1000 years for this unit cell");
     }
-    std::uintmax_t iterations = 200;
+    std::uintmax_t iterations = defaults::root_iterations;
     const auto root = boost::math::tools::toms748_solve(
         f, lo, hi, boost::math::tools::eps_tolerance<double>(44), iterations);
+    require_converged("time to the target degree", iterations, defaults::root_iterations);
     return 0.5 * (root.first + root.second);
 }
 

@@ -89,3 +89,21 @@ double ultimate_settlement_m(const SoilProfile& profile, double load_kPa) {
 }
 
 }  // namespace wickgrid
+
+namespace wickgrid {
+
+double secant_mv_m2_per_kN(const SoilProfile& profile, std::size_t layer, double load_kPa) {
+    if (layer >= profile.layers.size())
+        throw InputError("layer index", static_cast<double>(layer),
+                         "below the number of layers, " + std::to_string(profile.layers.size()));
+    require_positive("load for a secant mv (kPa)", load_kPa);
+    const SoilLayer& l = profile.layers[layer];
+    if (l.mv_m2_per_kN) return *l.mv_m2_per_kN;
+    const auto all = slices(profile);
+    double settle = 0.0;
+    const std::size_t first = layer * static_cast<std::size_t>(profile.slices_per_layer);
+    for (int j = 0; j < profile.slices_per_layer; ++j) settle += slice_settlement_m(l, all[first + j], load_kPa);
+    return settle / (load_kPa * l.thickness_m);
+}
+
+}  // namespace wickgrid

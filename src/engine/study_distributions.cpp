@@ -10,16 +10,6 @@
 
 namespace wickgrid {
 
-std::string_view to_string(DistributionKind kind) {
-    switch (kind) {
-        case DistributionKind::normal: return "normal";
-        case DistributionKind::lognormal: return "lognormal";
-        case DistributionKind::uniform: return "uniform";
-        case DistributionKind::triangular: return "triangular";
-    }
-    return "unknown";
-}
-
 void validate_distribution(const Distribution& d, std::string_view what) {
     const std::string w(what);
     switch (d.kind) {

@@ -9,18 +9,6 @@
 
 namespace wickgrid {
 
-std::string_view to_string(StudyInput input) {
-    switch (input) {
-        case StudyInput::ch: return "ch_m2_per_year";
-        case StudyInput::cv: return "cv_m2_per_year";
-        case StudyInput::kh: return "kh_m_per_s";
-        case StudyInput::smear_diameter_ratio: return "smear_diameter_ratio";
-        case StudyInput::smear_permeability_ratio: return "smear_permeability_ratio";
-        case StudyInput::discharge_capacity: return "discharge_capacity_m3_per_year";
-    }
-    return "unknown";
-}
-
 double study_value_from_si(StudyInput input, double si) {
     switch (input) {
         case StudyInput::ch:
@@ -39,28 +27,36 @@ double study_value_to_si(StudyInput input, double scenario_value) {
     }
 }
 
-DesignInput with_input(const DesignInput& base, StudyInput input, double value_si) {
-    DesignInput d = base;
+Site with_input(const Site& base, StudyInput input, double value_si) {
+    Site d = base;
+    Ground& g = d.ground;
+    if ((input == StudyInput::ch || input == StudyInput::cv) && g.layered_flow())
+        throw InputError(std::string(to_string(input)), study_value_from_si(input, value_si),
+                         "varied on a clay taken as one layer; this site's layers give their own cv/ch");
     switch (input) {
-        case StudyInput::ch:
-            d.clay.ch_m2_per_s = value_si;
-            if (d.mv_m2_per_kN) d.clay.kh_m_per_s = permeability_from_consolidation_m_per_s(value_si, *d.mv_m2_per_kN);
-            break;
-        case StudyInput::cv: d.clay.cv_m2_per_s = value_si; break;
+        case StudyInput::ch: g.ch_m2_per_s = value_si; break;  // a derived kh follows (Ground::uniform_clay)
+        case StudyInput::cv: g.cv_m2_per_s = value_si; break;
         case StudyInput::kh:
-            d.clay.kh_m_per_s = value_si;
-            d.mv_m2_per_kN.reset();  // kh is now given, no longer tied to ch
+            g.kh_m_per_s = value_si;
+            g.kh_source = KhSource::given;  // kh is now given, no longer tied to ch
             break;
-        case StudyInput::smear_diameter_ratio: d.smear_diameter_ratio = value_si; break;
+        case StudyInput::smear_diameter_ratio: d.installation.smear_diameter_ratio = value_si; break;
         case StudyInput::smear_permeability_ratio: d.installation.smear_permeability_ratio = value_si; break;
         case StudyInput::discharge_capacity:
-            for (auto& p : d.products) p.discharge_capacity_m3_per_s = value_si;
+            if (d.products.size() != 1)
+                throw InputError(std::string(to_string(input)), study_value_from_si(input, value_si),
+                                 "varied on a site with one drain product; with " + std::to_string(d.products.size()) +
+                                     " products vary discharge_capacity_factor (a factor on each product's qw)");
+            d.products.front().discharge_capacity_m3_per_s = value_si;
+            break;
+        case StudyInput::discharge_capacity_factor:
+            for (auto& p : d.products) p.discharge_capacity_m3_per_s *= value_si;
             break;
     }
     return d;
 }
 
-InputRange physical_range(const DesignInput& base, StudyInput input) {
+InputRange physical_range(const Site& base, StudyInput input) {
     constexpr double tiny = std::numeric_limits<double>::min();
     constexpr double inf = std::numeric_limits<double>::infinity();
     switch (input) {
@@ -70,9 +66,10 @@ InputRange physical_range(const DesignInput& base, StudyInput input) {
             double largest_dw = 0.0;
             for (const auto& p : base.products) largest_dw = std::max(largest_dw, p.equivalent_diameter_m);
             double smallest_de = inf;
-            for (const Pattern p : base.patterns)
-                smallest_de = std::min(smallest_de, influence_diameter_m(p, base.bounds.min_m));
-            return {largest_dw / base.mandrel_diameter_m, smallest_de / base.mandrel_diameter_m};
+            for (const Pattern p : base.range.patterns)
+                smallest_de = std::min(smallest_de, influence_diameter_m(p, base.range.bounds.min_m));
+            const double dm = base.installation.mandrel_diameter_m;
+            return {largest_dw / dm, smallest_de / dm};
         }
         default: return {tiny, inf};
     }

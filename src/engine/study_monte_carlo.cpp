@@ -28,38 +28,49 @@ struct Combination {
     double eval_spacing_m;
 };
 
-// Applies one sampled value to a unit-cell specification (the per-sample fast form of with_input).
-void apply(CellSpec& cell, const DesignInput& base, StudyInput input, double value) {
+// Applies one sampled value to a unit-cell specification (the per-sample fast form of with_input;
+// `product` is the cell's unsampled specification).
+void apply(CellSpec& cell, const CellSpec& product, const Site& base, StudyInput input, double value) {
     switch (input) {
         case StudyInput::ch:
             cell.clay.ch_m2_per_s = value;
-            if (base.mv_m2_per_kN) cell.clay.kh_m_per_s = permeability_from_consolidation_m_per_s(value, *base.mv_m2_per_kN);
+            if (base.ground.kh_source == KhSource::from_ch_and_mv)
+                cell.clay.kh_m_per_s = permeability_from_consolidation_m_per_s(value, *base.ground.mv_m2_per_kN);
             break;
         case StudyInput::cv: cell.clay.cv_m2_per_s = value; break;
         case StudyInput::kh: cell.clay.kh_m_per_s = value; break;
-        case StudyInput::smear_diameter_ratio: cell.drain.smear_diameter_m = value * base.mandrel_diameter_m; break;
+        case StudyInput::smear_diameter_ratio: cell.drain.smear_diameter_m = value * base.installation.mandrel_diameter_m; break;
         case StudyInput::smear_permeability_ratio: cell.drain.smear_permeability_ratio = value; break;
         case StudyInput::discharge_capacity: cell.drain.discharge_capacity_m3_per_s = value; break;
+        case StudyInput::discharge_capacity_factor:
+            cell.drain.discharge_capacity_m3_per_s = value * product.drain.discharge_capacity_m3_per_s;
+            break;
     }
 }
 }  // namespace
 
-MonteCarloResult monte_carlo(const DesignInput& base_input, const DesignResult& base_result,
+MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_result,
                              const MonteCarloSpec& spec, const Progress& progress) {
     if (spec.samples < 1) throw InputError("Monte Carlo samples", 0.0, "at least 1");
-    if (base_input.staged() || base_input.numerical)
-        throw InputError("Monte Carlo design", 0.0,
-                         "a degree target under instantaneous loading with the closed form (staged loading, residual "
-                         "settlement and the numerical method are not sampled yet)");
+    if (base_input.loading || !base_input.criterion.degree() || base_input.method.method != CellMethod::closed_form)
+        throw EvaluationError("Monte Carlo study",
+                              "samples closed-form designs for a degree under one instantaneous load only; staged "
+                              "loading, the residual-settlement criterion and the numerical method are not sampled yet");
+    for (const auto& in : spec.inputs)
+        if (in.input == StudyInput::discharge_capacity && base_input.products.size() != 1)
+            throw InputError(std::string(to_string(in.input)), 0.0,
+                             "sampled on a site with one drain product; vary discharge_capacity_factor instead");
+    const auto* degree = base_input.criterion.degree();
+    const SpacingBounds bounds = base_input.range.bounds;
     require_open_unit("reliability", spec.reliability);
     require_open_unit("confidence", spec.confidence);
     if (!(spec.ch_cv_correlation > -1.0 && spec.ch_cv_correlation < 1.0))
         throw InputError("ch–cv correlation", spec.ch_cv_correlation, "between −1 and 1, both excluded");
     if (spec.spacing_m)
-        if (!(*spec.spacing_m >= base_input.bounds.min_m && *spec.spacing_m <= base_input.bounds.max_m))
+        if (!(*spec.spacing_m >= bounds.min_m && *spec.spacing_m <= bounds.max_m))
             throw InputError("Monte Carlo spacing (m)", *spec.spacing_m,
-                             "within the spacing range " + format_value(base_input.bounds.min_m) + "–" +
-                                 format_value(base_input.bounds.max_m) + " m");
+                             "within the spacing range " + format_value(bounds.min_m) + "–" + format_value(bounds.max_m) +
+                                 " m");
     const auto position = [&](StudyInput which) {
         for (std::size_t i = 0; i < spec.inputs.size(); ++i)
             if (spec.inputs[i].input == which) return static_cast<long>(i);
@@ -67,8 +78,8 @@ MonteCarloResult monte_carlo(const DesignInput& base_input, const DesignResult& 
     };
     const long ch_at = position(StudyInput::ch), cv_at = position(StudyInput::cv);
     // A sampled kh is the permeability; it is no longer derived from ch.
-    DesignInput base = base_input;
-    if (position(StudyInput::kh) >= 0) base.mv_m2_per_kN.reset();
+    Site base = base_input;
+    if (position(StudyInput::kh) >= 0) base.ground.kh_source = KhSource::given;
     std::vector<TruncatedDistribution> draws;
     for (const auto& in : spec.inputs)
         draws.emplace_back(in.distribution, physical_range(base, in.input), to_string(in.input));
@@ -78,7 +89,7 @@ MonteCarloResult monte_carlo(const DesignInput& base_input, const DesignResult& 
     std::vector<Combination> combos;
     for (const DesignRow& row : base_result.rows) {
         const DrainProductSpec& product = base.product(row.drain);
-        combos.push_back({product_cell(base, product, row.pattern, base.bounds.min_m),
+        combos.push_back({closed_form_cell(base_input, product, row.pattern, bounds.min_m),
                           spec.spacing_m.value_or(row.spacing_m)});
     }
 
@@ -113,9 +124,10 @@ MonteCarloResult monte_carlo(const DesignInput& base_input, const DesignResult& 
                     for (std::size_t j = 0; j < spec.inputs.size(); ++j) u[j] = draws[j].quantile(u[j]);
                     for (std::size_t k = 0; k < combos.size(); ++k) {
                         CellSpec cell = combos[k].cell;
-                        for (std::size_t j = 0; j < spec.inputs.size(); ++j) apply(cell, base, spec.inputs[j].input, u[j]);
-                        solver.reset(cell, base.bounds);
-                        const SpacingLimit limit = solver.solve(base.target_degree, base.deadline_s);
+                        for (std::size_t j = 0; j < spec.inputs.size(); ++j)
+                            apply(cell, combos[k].cell, base, spec.inputs[j].input, u[j]);
+                        solver.reset(cell, bounds);
+                        const SpacingLimit limit = solver.solve(degree->degree, base.criterion.deadline_s);
                         limits[k][i] = limit.feasible ? limit.spacing_m : 0.0;
                     }
                 }
@@ -164,7 +176,7 @@ MonteCarloResult monte_carlo(const DesignInput& base_input, const DesignResult& 
         const double quantile = s[std::min(index, n - 1)];
         if (quantile > 0.0) {
             row.reliability_spacing_m = quantile;
-            row.reliability_at_maximum = quantile >= base.bounds.max_m;
+            row.reliability_at_maximum = quantile >= bounds.max_m;
         }
         row.median_spacing_m = s[n / 2];
         result.rows.push_back(row);

@@ -1,4 +1,5 @@
-// One-at-a-time (tornado) and two-input grid studies: largest-spacing searches at varied inputs.
+// One-at-a-time (tornado) and two-input grid studies: spacing limits at varied inputs, from the
+// site's own cell model and criterion.
 #include <algorithm>
 #include <cmath>
 
@@ -8,7 +9,7 @@
 namespace wickgrid {
 
 namespace {
-void check_in_range(const DesignInput& base, StudyInput input, double value) {
+void check_in_range(const Site& base, StudyInput input, double value) {
     const InputRange range = physical_range(base, input);
     if (!(value >= range.low && value < range.high))
         throw InputError(std::string(to_string(input)), study_value_from_si(input, value),
@@ -18,37 +19,15 @@ void check_in_range(const DesignInput& base, StudyInput input, double value) {
                                   : std::string()));
 }
 
-// The spacing limit under the design's own criterion, loading and method.
-SpacingLimit limit_for(const DesignInput& input, const DrainProductSpec& product, Pattern pattern) {
-    if (!input.staged() && !input.numerical)
-        return largest_spacing(product_cell(input, product, pattern, input.bounds.min_m), input.target_degree,
-                               input.deadline_s, input.bounds);
-    DesignInput one = input;
-    one.products = {product};
-    one.patterns = {pattern};
-    const DesignRow row = run_design(one).rows.front();
-    SpacingLimit limit;
-    limit.feasible = row.feasible;
-    limit.at_maximum = row.limited_by_maximum;
-    limit.spacing_m = row.spacing_limit_m;
-    limit.degree_at_minimum = row.feasible ? 0.0 : row.at_deadline.combined;
-    return limit;
-}
-
-// The degree at the deadline at one spacing, under the design's loading and method.
-double degree_for(const DesignInput& input, const DrainProductSpec& product, Pattern pattern, double spacing_m) {
-    if (input.numerical)
-        return NumericalCell(numerical_cell(input, product, pattern, spacing_m), input.numerical_mesh)
-            .solve({input.deadline_s})
-            .front()
-            .degree_settlement;
-    const UnitCell cell(product_cell(input, product, pattern, spacing_m));
-    if (input.staged()) return history_of(input, cell).degree(input.deadline_s);
-    return cell.at(input.deadline_s).combined;
+// The criterion's measure at the deadline for one spacing: the degree, or the residual settlement.
+double measure_at(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m) {
+    const auto model = make_cell_model(site, product, pattern, spacing_m);
+    if (const auto* r = site.criterion.residual()) return model->residual_m(site.criterion.deadline_s, r->service_s);
+    return model->degree(site.criterion.deadline_s);
 }
 }  // namespace
 
-std::vector<TornadoRow> tornado_study(const DesignInput& base, const DesignResult& base_result,
+std::vector<TornadoRow> tornado_study(const Site& base, const DesignResult& base_result,
                                       const std::vector<TornadoInput>& inputs) {
     for (const auto& in : inputs) {
         check_in_range(base, in.input, in.low_si);
@@ -67,21 +46,23 @@ std::vector<TornadoRow> tornado_study(const DesignInput& base, const DesignResul
             row.input = in.input;
             row.low_si = in.low_si;
             row.high_si = in.high_si;
-            auto run = [&](double value, SpacingLimit& limit, double& degree) {
-                const DesignInput varied = with_input(base, in.input, value);
+            row.measure = base.criterion.kind();
+            auto run = [&](double value, SpacingLimit& limit, double& measure) {
+                const Site varied = with_input(base, in.input, value);
                 const DrainProductSpec& product = varied.product(design.drain);
-                limit = limit_for(varied, product, design.pattern);
-                degree = degree_for(varied, product, design.pattern, design.spacing_m);
+                limit = spacing_limit(varied, product, design.pattern);
+                measure = measure_at(varied, product, design.pattern, design.spacing_m);
             };
-            run(in.low_si, row.at_low, row.degree_low);
-            run(in.high_si, row.at_high, row.degree_high);
-            const double low = row.at_low.feasible ? row.at_low.spacing_m : 0.0;
-            const double high = row.at_high.feasible ? row.at_high.spacing_m : 0.0;
-            row.swing_m = std::fabs(high - low);
+            run(in.low_si, row.at_low, row.measure_low);
+            run(in.high_si, row.at_high, row.measure_high);
+            if (row.at_low.feasible && row.at_high.feasible) row.swing_m = std::fabs(row.at_high.spacing_m - row.at_low.spacing_m);
             group.push_back(row);
         }
-        std::stable_sort(group.begin(), group.end(),
-                         [](const TornadoRow& a, const TornadoRow& b) { return a.swing_m > b.swing_m; });
+        // An input that makes the design infeasible at one end matters most; then the largest swing.
+        std::stable_sort(group.begin(), group.end(), [](const TornadoRow& a, const TornadoRow& b) {
+            if (a.swing_m.has_value() != b.swing_m.has_value()) return !a.swing_m.has_value();
+            return a.swing_m && *a.swing_m > *b.swing_m;
+        });
         rows.insert(rows.end(), group.begin(), group.end());
     }
     return rows;
@@ -94,7 +75,7 @@ std::vector<double> GridAxis::values() const {
     return v;
 }
 
-std::vector<GridCell> grid_study(const DesignInput& base, const GridAxis& x, const GridAxis& y) {
+std::vector<GridCell> grid_study(const Site& base, const GridAxis& x, const GridAxis& y) {
     if (x.input == y.input)
         throw InputError("grid y input (" + std::string(to_string(y.input)) + ")", 0.0,
                          "different from the x input");
@@ -103,13 +84,12 @@ std::vector<GridCell> grid_study(const DesignInput& base, const GridAxis& x, con
     for (const double v : ys) check_in_range(base, y.input, v);
     std::vector<GridCell> cells;
     for (const auto& product : base.products)
-        for (const Pattern pattern : base.patterns)
+        for (const Pattern pattern : base.range.patterns)
             for (const double yv : ys)
                 for (const double xv : xs) {
-                    const DesignInput varied = with_input(with_input(base, x.input, xv), y.input, yv);
-                    const DrainProductSpec& p = varied.product(product.name);
+                    const Site varied = with_input(with_input(base, x.input, xv), y.input, yv);
                     GridCell cell{product.name, pattern, xv, yv, {}};
-                    cell.limit = limit_for(varied, p, pattern);
+                    cell.limit = spacing_limit(varied, varied.product(product.name), pattern);
                     cells.push_back(cell);
                 }
     return cells;

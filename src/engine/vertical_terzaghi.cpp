@@ -84,6 +84,7 @@ double time_factor_vertical(double uv) {
     std::uintmax_t iterations = 200;
     const auto root = boost::math::tools::toms748_solve(
         f, 0.02, 2.0, boost::math::tools::eps_tolerance<double>(50), iterations);
+    require_converged("time factor Tv for a degree", iterations, 200);
     return 0.5 * (root.first + root.second);
 }
 

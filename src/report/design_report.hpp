@@ -1,41 +1,27 @@
 #pragma once
-// Writers for the design study and degree–time curves: JSON, CSV, Markdown design note, and the
-// terminal table. They format; they never compute physics.
+// Writers for the design record and degree–time curves: JSON, CSV, Markdown design note and the
+// terminal table. They format a record; they never compute physics.
 #include <nlohmann/json.hpp>
 #include <string>
 
-#include "scenario/scenario.hpp"
-#include "wickgrid/design.hpp"
+#include "report/format.hpp"
+#include "results/design_record.hpp"
 
 namespace wickgrid::report {
 
-nlohmann::json design_json(const scenario::Scenario& s, const DesignResult& result);
-std::string design_csv(const DesignResult& result);
-std::string design_markdown(const scenario::Scenario& s, const DesignResult& result);
-std::string design_table(const scenario::Scenario& s, const DesignResult& result);
+nlohmann::json design_json(const results::DesignRecord& record);
+std::string design_csv(const results::DesignRecord& record);
+std::string design_markdown(const results::DesignRecord& record);
+std::string design_table(const results::DesignRecord& record);
 
-struct CurveReport {
-    std::string drain;
-    Pattern pattern = Pattern::triangular;
-    double spacing_m = 0.0;
-    std::vector<CurvePoint> points;
-};
+// The criterion as JSON: {"criterion": "degree"|"residual_settlement", …, "deadline_days", "label"}.
+nlohmann::json target_json(const Site& site);
 
-nlohmann::json curve_json(const CurveReport& curve);
-std::string curve_csv(const CurveReport& curve);
-std::string curve_table(const CurveReport& curve);
+nlohmann::json curve_json(const Site& site, const results::Curve& curve);
+std::string curve_csv(const results::Curve& curve);
+std::string curve_table(const Site& site, const results::Curve& curve);
 
-// Shared text of the design notes (Markdown and HTML).
-std::vector<std::string> method_notes(const scenario::Scenario& s);
-std::string assumptions(const scenario::Scenario& s);
-std::string criterion_text(const scenario::Scenario& s);
-std::string recommendation(const scenario::Scenario& s, const DesignResult& result);
-const DesignRow* best_row(const DesignResult& result);
-
-// The cautions every report carries.
-extern const char* const cautions[4];
-
-// Fixed-point text with the given decimals ("-" for NaN is never needed: values are checked).
-std::string fixed(double value, int decimals);
+// The rows of the inputs table (quantity, value) shared by the Markdown note and the HTML report.
+std::vector<std::pair<std::string, std::string>> input_rows(const results::DesignRecord& record);
 
 }  // namespace wickgrid::report

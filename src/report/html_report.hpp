@@ -4,15 +4,9 @@
 #include <string>
 #include <vector>
 
-#include "report/study_report.hpp"
-#include "scenario/scenario.hpp"
-#include "wickgrid/design.hpp"
+#include "results/design_record.hpp"
 
 namespace wickgrid::report {
-
-struct ReportOptions {
-    bool log_time = false;  // degree–time charts on a logarithmic time axis
-};
 
 struct Chart {
     std::string file;     // e.g. "degree-time-triangular.svg"
@@ -25,9 +19,8 @@ struct ReportBundle {
     std::vector<Chart> charts;
 };
 
-// Assembles the charts from engine results (curves and design charts come from engine calls) and
-// writes the HTML around them.
-ReportBundle build_report(const scenario::Scenario& s, const DesignResult& result, const SweepResults& studies,
-                          const ReportOptions& options);
+// Draws the record's curves, series and studies and writes the HTML around them (formatting only:
+// the record was computed with charts, see results::RecordOptions).
+ReportBundle build_report(const results::DesignRecord& record);
 
 }  // namespace wickgrid::report

@@ -183,10 +183,12 @@ std::string render(const LineChart& chart) {
 std::string render(const RangeChart& chart) {
     const double row = 34, h = top + bottom + row * static_cast<double>(std::max<std::size_t>(1, chart.bars.size()));
     double lo = chart.base, hi = chart.base;
-    for (const auto& b : chart.bars) {
-        lo = std::min({lo, b.low_value, b.high_value});
-        hi = std::max({hi, b.low_value, b.high_value});
-    }
+    for (const auto& b : chart.bars)
+        for (const auto& v : {b.low_value, b.high_value})
+            if (v) {
+                lo = std::min(lo, *v);
+                hi = std::max(hi, *v);
+            }
     widen(lo, hi);
     // Room for the value labels at the bar ends.
     const double pad = 0.12 * (hi - lo);
@@ -207,15 +209,29 @@ std::string render(const RangeChart& chart) {
     for (std::size_t i = 0; i < chart.bars.size(); ++i) {
         const auto& b = chart.bars[i];
         const double y = top + row * static_cast<double>(i) + 6;
-        const double x1 = ax.map(std::min(b.low_value, b.high_value)), x2 = ax.map(std::max(b.low_value, b.high_value));
         o << "<text x=\"12\" y=\"" << num(y + 15) << "\" text-anchor=\"start\">" << escape_xml(b.label) << "</text>\n";
+        if (!b.low_value || !b.high_value) {
+            // No bar from a value that does not exist: mark the feasible end, name the other.
+            std::string missing = std::string(!b.low_value ? "low" : "") + (!b.low_value && !b.high_value ? " and " : "") +
+                                  (!b.high_value ? "high" : "");
+            for (const auto& [v, text] : {std::pair{b.low_value, b.low_text}, std::pair{b.high_value, b.high_text}})
+                if (v)
+                    o << "<circle cx=\"" << num(ax.map(*v)) << "\" cy=\"" << num(y + 10) << "\" r=\"5\" fill=\"" << colours[0]
+                      << "\"/>\n<text x=\"" << num(ax.map(*v) + 8) << "\" y=\"" << num(y + 14)
+                      << "\" text-anchor=\"start\" font-size=\"10\">" << escape_xml(text) << "</text>\n";
+            o << "<text x=\"150\" y=\"" << num(y + 15) << "\" text-anchor=\"start\" font-size=\"10\" fill=\"" << colours[1]
+              << "\">" << escape_xml(missing + ": no feasible spacing") << "</text>\n";
+            continue;
+        }
+        const double low = *b.low_value, high = *b.high_value;
+        const double x1 = ax.map(std::min(low, high)), x2 = ax.map(std::max(low, high));
         o << "<rect x=\"" << num(x1) << "\" y=\"" << num(y) << "\" width=\"" << num(std::max(1.0, x2 - x1))
           << "\" height=\"20\" fill=\"" << colours[0] << "\" fill-opacity=\"0.75\"/>\n";
-        o << "<text x=\"" << num(ax.map(b.low_value) + (b.low_value <= b.high_value ? -4 : 4)) << "\" y=\"" << num(y + 14)
-          << "\" text-anchor=\"" << (b.low_value <= b.high_value ? "end" : "start") << "\" font-size=\"10\">"
+        o << "<text x=\"" << num(ax.map(low) + (low <= high ? -4 : 4)) << "\" y=\"" << num(y + 14)
+          << "\" text-anchor=\"" << (low <= high ? "end" : "start") << "\" font-size=\"10\">"
           << escape_xml(b.low_text) << "</text>\n";
-        o << "<text x=\"" << num(ax.map(b.high_value) + (b.low_value <= b.high_value ? 4 : -4)) << "\" y=\"" << num(y + 14)
-          << "\" text-anchor=\"" << (b.low_value <= b.high_value ? "start" : "end") << "\" font-size=\"10\">"
+        o << "<text x=\"" << num(ax.map(high) + (low <= high ? 4 : -4)) << "\" y=\"" << num(y + 14)
+          << "\" text-anchor=\"" << (low <= high ? "start" : "end") << "\" font-size=\"10\">"
           << escape_xml(b.high_text) << "</text>\n";
     }
     const double xb = ax.map(chart.base);

@@ -27,7 +27,9 @@ struct LineChart {
 
 struct RangeBar {
     std::string label;
-    double low_value, high_value;  // bar ends (e.g. spacing at the low and high input)
+    // Bar ends (e.g. spacing at the low and high input); an end without a value (no feasible
+    // spacing) draws no bar: a marker at the other end and the words "no feasible spacing".
+    std::optional<double> low_value, high_value;
     std::string low_text, high_text;
 };
 

@@ -10,6 +10,7 @@
 #include "suggest.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/permeability.hpp"
+#include "wickgrid/cell_model.hpp"
 #include "wickgrid/units.hpp"
 
 namespace wickgrid::scenario {
@@ -21,29 +22,6 @@ ScenarioError::ScenarioError(std::string file, Mark mark, std::string key_path, 
       mark_(mark),
       key_path_(std::move(key_path)),
       message_(std::move(message)) {}
-
-std::string_view to_string(SmearShape shape) {
-    switch (shape) {
-        case SmearShape::constant: return "constant";
-        case SmearShape::linear: return "linear";
-        case SmearShape::parabolic: return "parabolic";
-    }
-    return "constant";
-}
-std::string_view to_string(RadialTheory theory) {
-    return theory == RadialTheory::hansbo_1981 ? "hansbo_1981" : "equal_strain_integral";
-}
-std::string_view to_string(VerticalDrainage drainage) {
-    switch (drainage) {
-        case VerticalDrainage::both_faces: return "both_faces";
-        case VerticalDrainage::top_only: return "top_only";
-        case VerticalDrainage::bottom_only: return "bottom_only";
-    }
-    return "both_faces";
-}
-std::string_view to_string(DrainOutlets outlets) {
-    return outlets == DrainOutlets::top ? "top" : "top_and_bottom";
-}
 
 namespace {
 
@@ -153,13 +131,14 @@ public:
         return node.Scalar();
     }
 
-    // One of a fixed set of names; returns its index.
-    std::size_t choice(const YAML::Node& node, const std::string& path, const std::vector<std::string>& names) const {
+    // One of the names of a choice table; returns its value.
+    template <class E, std::size_t N>
+    E choice(const YAML::Node& node, const std::string& path, const std::array<Named<E>, N>& table) const {
+        const std::vector<std::string> names = names_of(table);
         remember(path, node);
         if (!node.IsScalar()) fail(node, path, "must be one of " + list(names));
         const std::string value = node.Scalar();
-        for (std::size_t i = 0; i < names.size(); ++i)
-            if (names[i] == value) return i;
+        if (const auto found = value_of(table, value)) return *found;
         std::string message = "'" + value + "' is not allowed: it must be one of " + list(names);
         if (auto best = closest(value, names)) message += "; did you mean '" + *best + "'?";
         fail(node, path, message);
@@ -186,16 +165,6 @@ const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "dr
                                         "drain_outlets", "installation", "patterns", "spacing", "studies",
                                         "uncertain", "fill_unit_weight_kN_per_m3", "loading", "method",
                                         "numerical_mesh"};
-const std::vector<std::string> study_input_names{"ch_m2_per_year", "cv_m2_per_year", "kh_m_per_s",
-                                                 "smear_diameter_ratio", "smear_permeability_ratio",
-                                                 "discharge_capacity_m3_per_year"};
-const std::vector<std::string> distribution_names{"normal", "lognormal", "uniform", "triangular"};
-const std::vector<std::string> drainage_names{"both_faces", "top_only", "bottom_only"};
-const std::vector<std::string> outlet_names{"top", "top_and_bottom"};
-const std::vector<std::string> method_names{"hansbo_1979", "rixner_1986", "long_covo_1994"};
-const std::vector<std::string> pattern_names{"triangular", "square"};
-const std::vector<std::string> shape_names{"constant", "linear", "parabolic"};
-const std::vector<std::string> theory_names{"hansbo_1981", "equal_strain_integral"};
 
 void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "target");
@@ -204,16 +173,19 @@ void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     if (node["degree"] && node["residual_settlement_mm"])
         r.fail(node["residual_settlement_mm"], "target.residual_settlement_mm",
                "give either 'degree' or 'residual_settlement_mm' as the design criterion, not both");
+    Criterion& c = s.site.criterion;
     if (node["residual_settlement_mm"]) {
-        s.residual_limit_m = units::mm_to_m(r.number(node, "target", "residual_settlement_mm", non_negative("mm")));
-        s.service_days = r.optional_number(node, "target", "service_days", positive("days"));
-        s.target_degree = 0.9;  // not the criterion; kept for reports of the degree reached
+        ResidualSettlementLimit limit;
+        limit.limit_m = units::mm_to_m(r.number(node, "target", "residual_settlement_mm", non_negative("mm")));
+        if (const auto days = r.optional_number(node, "target", "service_days", positive("days")))
+            limit.service_s = units::days_to_seconds(*days);
+        c.rule = limit;
     } else {
         if (node["service_days"])
             r.fail(node["service_days"], "target.service_days", "goes with 'residual_settlement_mm' only");
-        s.target_degree = r.number(node, "target", "degree", {0.0, false, 1.0, false, ""});
+        c.rule = DegreeTarget{r.number(node, "target", "degree", {0.0, false, 1.0, false, ""})};
     }
-    s.deadline_days = r.number(node, "target", "deadline_days", positive("days"));
+    c.deadline_s = units::days_to_seconds(r.number(node, "target", "deadline_days", positive("days")));
 }
 
 void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
@@ -231,11 +203,11 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
         r.expect_map(l, path);
         r.allow_keys(l, path, {"thickness_m", "unit_weight_kN_per_m3", "e0", "cc", "cr", "preconsolidation_kPa", "ocr",
                                "mv_m2_per_kN", "cv_m2_per_year", "ch_m2_per_year"});
-        const auto cv = r.optional_number(l, path, "cv_m2_per_year", positive("m²/year"));
-        const auto ch = r.optional_number(l, path, "ch_m2_per_year", positive("m²/year"));
-        s.layer_cv_m2_per_s.push_back(cv ? std::optional<double>(units::per_year_to_per_second(*cv)) : std::nullopt);
-        s.layer_ch_m2_per_s.push_back(ch ? std::optional<double>(units::per_year_to_per_second(*ch)) : std::nullopt);
         SoilLayer layer;
+        if (const auto cv = r.optional_number(l, path, "cv_m2_per_year", positive("m²/year")))
+            layer.cv_m2_per_s = units::per_year_to_per_second(*cv);
+        if (const auto ch = r.optional_number(l, path, "ch_m2_per_year", positive("m²/year")))
+            layer.ch_m2_per_s = units::per_year_to_per_second(*ch);
         layer.thickness_m = r.number(l, path, "thickness_m", positive("m"));
         layer.unit_weight_kN_per_m3 = r.number(l, path, "unit_weight_kN_per_m3", positive("kN/m³"));
         layer.mv_m2_per_kN = r.optional_number(l, path, "mv_m2_per_kN", positive("m²/kN"));
@@ -272,7 +244,7 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
                            " kPa is below the in-situ effective stress " + format_value(all[k].sigma_v0_kPa) +
                            " kPa at " + format_value(all[k].depth_m) + " m; under-consolidated clay is not supported");
             }
-    s.profile = profile;
+    s.site.ground.profile = profile;
 }
 
 void read_clay(const Reader& r, const YAML::Node& root, Scenario& s) {
@@ -281,34 +253,49 @@ void read_clay(const Reader& r, const YAML::Node& root, Scenario& s) {
     r.allow_keys(node, "clay", {"thickness_m", "cv_m2_per_year", "ch_m2_per_year", "mv_m2_per_kN", "kh_m_per_s",
                                 "vertical_drainage", "layers", "groundwater_depth_m", "slices_per_layer"});
     if (node["layers"]) read_layers(r, node, s);
-    if (s.profile && !node["thickness_m"]) {
-        s.clay.thickness_m = profile_thickness_m(*s.profile);
-        s.marks["clay.thickness_m"] = s.mark_of("clay.layers");
+    Ground& g = s.site.ground;
+    const auto& profile = g.profile;
+    if (profile && !node["thickness_m"]) {
+        g.thickness_m = profile_thickness_m(*profile);
+        s.marks["clay.thickness_m"] = s.marks["clay.layers"];
     } else {
-        s.clay.thickness_m = r.number(node, "clay", "thickness_m", positive("m"));
+        g.thickness_m = r.number(node, "clay", "thickness_m", positive("m"));
     }
-    if (s.profile && std::fabs(profile_thickness_m(*s.profile) - s.clay.thickness_m) > 1e-9 * s.clay.thickness_m)
+    if (profile && std::fabs(profile_thickness_m(*profile) - g.thickness_m) > 1e-9 * g.thickness_m)
         r.fail(node["thickness_m"], "clay.thickness_m",
-               format_value(s.clay.thickness_m) + " is not allowed: it must equal the sum of the layer thicknesses, " +
-                   format_value(profile_thickness_m(*s.profile)) + " m");
-    s.clay.cv_m2_per_s = units::per_year_to_per_second(r.number(node, "clay", "cv_m2_per_year", positive("m²/year")));
-    s.clay.ch_m2_per_s = units::per_year_to_per_second(r.number(node, "clay", "ch_m2_per_year", positive("m²/year")));
-    s.mv_m2_per_kN = r.optional_number(node, "clay", "mv_m2_per_kN", positive("m²/kN"));
-    const auto kh = r.optional_number(node, "clay", "kh_m_per_s", positive("m/s"));
-    if (!kh && !s.mv_m2_per_kN)
+               format_value(g.thickness_m) + " is not allowed: it must equal the sum of the layer thicknesses, " +
+                   format_value(profile_thickness_m(*profile)) + " m");
+    // With layers that all give their own cv and ch, the clay's are optional (a default for none).
+    const auto every_layer = [&](auto member) {
+        return profile && std::all_of(profile->layers.begin(), profile->layers.end(),
+                                      [&](const SoilLayer& l) { return (l.*member).has_value(); });
+    };
+    const bool layers_cv = every_layer(&SoilLayer::cv_m2_per_s), layers_ch = every_layer(&SoilLayer::ch_m2_per_s);
+    const auto coefficient = [&](const char* key, bool optional) -> std::optional<double> {
+        const auto v = optional ? r.optional_number(node, "clay", key, positive("m²/year"))
+                                : std::optional<double>(r.number(node, "clay", key, positive("m²/year")));
+        return v ? std::optional<double>(units::per_year_to_per_second(*v)) : std::nullopt;
+    };
+    g.cv_m2_per_s = coefficient("cv_m2_per_year", layers_cv);
+    g.ch_m2_per_s = coefficient("ch_m2_per_year", layers_ch);
+    g.mv_m2_per_kN = r.optional_number(node, "clay", "mv_m2_per_kN", positive("m²/kN"));
+    g.kh_m_per_s = r.optional_number(node, "clay", "kh_m_per_s", positive("m/s"));
+    g.kh_source = g.kh_m_per_s ? KhSource::given : KhSource::from_ch_and_mv;
+    // kh is needed unless every layer gives its own ch and storage (the numerical cell then takes
+    // kh = ch·mv·γw layer by layer).
+    if (!g.kh_m_per_s && !g.mv_m2_per_kN && !(layers_ch && profile))
         r.fail(node, "clay", "missing key 'mv_m2_per_kN' or 'kh_m_per_s' in 'clay' (one is needed for kh)");
-    s.kh_given = kh.has_value();
-    s.clay.kh_m_per_s = kh ? *kh : permeability_from_consolidation_m_per_s(s.clay.ch_m2_per_s, *s.mv_m2_per_kN);
-    s.clay.drainage = static_cast<VerticalDrainage>(
-        r.choice(r.required(node, "clay", "vertical_drainage"), "clay.vertical_drainage", drainage_names));
+    if (!g.kh_m_per_s && !g.mv_m2_per_kN) g.kh_source = KhSource::given;
+    g.drainage = r.choice(r.required(node, "clay", "vertical_drainage"), "clay.vertical_drainage", drainage_names);
 }
 
-DrainEntry read_drain(const Reader& r, const YAML::Node& node, const std::string& path) {
+std::pair<DrainEntry, DrainProductSpec> read_drain(const Reader& r, const YAML::Node& node, const std::string& path) {
     r.expect_map(node, path);
     r.allow_keys(node, path, {"name", "width_mm", "thickness_mm", "equivalent_diameter", "equivalent_diameter_mm",
                               "discharge_capacity_m3_per_year", "cost_per_m"});
     DrainEntry d;
-    d.name = r.text(r.required(node, path, "name"), path + ".name");
+    DrainProductSpec product;
+    d.name = product.name = r.text(r.required(node, path, "name"), path + ".name");
     const auto width = r.optional_number(node, path, "width_mm", positive("mm"));
     const auto thickness = r.optional_number(node, path, "thickness_mm", positive("mm"));
     const auto diameter = r.optional_number(node, path, "equivalent_diameter_mm", positive("mm"));
@@ -318,20 +305,19 @@ DrainEntry read_drain(const Reader& r, const YAML::Node& node, const std::string
         r.fail(node["equivalent_diameter"], path + ".equivalent_diameter",
                "give either 'equivalent_diameter' (a method) or 'equivalent_diameter_mm' (a value), not both");
     if (diameter) {
-        d.equivalent_diameter_m = units::mm_to_m(*diameter);
+        product.equivalent_diameter_m = units::mm_to_m(*diameter);
     } else {
         if (!width) r.required(node, path, "width_mm");
         if (!thickness) r.required(node, path, "thickness_mm");
         d.method = node["equivalent_diameter"]
-                       ? static_cast<EquivalentDiameterMethod>(
-                             r.choice(node["equivalent_diameter"], path + ".equivalent_diameter", method_names))
+                       ? r.choice(node["equivalent_diameter"], path + ".equivalent_diameter", equivalent_diameter_names)
                        : EquivalentDiameterMethod::hansbo_1979;
-        d.equivalent_diameter_m = band_drain_equivalent_diameter_m(*d.method, *d.width_m, *d.thickness_m);
+        product.equivalent_diameter_m = band_drain_equivalent_diameter_m(*d.method, *d.width_m, *d.thickness_m);
     }
-    d.discharge_capacity_m3_per_s = units::per_year_to_per_second(
+    product.discharge_capacity_m3_per_s = units::per_year_to_per_second(
         r.number(node, path, "discharge_capacity_m3_per_year", positive("m³/year")));
-    d.cost_per_m = r.optional_number(node, path, "cost_per_m", non_negative("per metre"));
-    return d;
+    product.cost_per_m = r.optional_number(node, path, "cost_per_m", non_negative("per metre"));
+    return {d, product};
 }
 
 void read_drains(const Reader& r, const YAML::Node& root, Scenario& s) {
@@ -341,9 +327,10 @@ void read_drains(const Reader& r, const YAML::Node& root, Scenario& s) {
     std::set<std::string> names;
     for (std::size_t i = 0; i < node.size(); ++i) {
         const std::string path = "drains[" + std::to_string(i) + "]";
-        DrainEntry d = read_drain(r, node[i], path);
+        auto [d, product] = read_drain(r, node[i], path);
         if (!names.insert(d.name).second) r.fail(node[i]["name"], path + ".name", "drain name '" + d.name + "' is used twice");
         s.drains.push_back(std::move(d));
+        s.site.products.push_back(std::move(product));
     }
 }
 
@@ -353,47 +340,45 @@ void read_installation(const Reader& r, const YAML::Node& root, Scenario& s) {
     r.expect_map(node, p);
     r.allow_keys(node, p, {"mandrel_width_mm", "mandrel_depth_mm", "mandrel_diameter_mm", "smear_diameter_ratio",
                            "smear_permeability_ratio", "smear_shape", "radial_theory"});
+    Installation& in = s.site.installation;
     const auto diameter = r.optional_number(node, p, "mandrel_diameter_mm", positive("mm"));
     if (diameter) {
         if (node["mandrel_width_mm"])
             r.fail(node["mandrel_width_mm"], p + ".mandrel_width_mm",
                    "give either 'mandrel_diameter_mm' or 'mandrel_width_mm' with 'mandrel_depth_mm', not both");
-        s.mandrel_diameter_m = units::mm_to_m(*diameter);
+        in.mandrel_diameter_m = units::mm_to_m(*diameter);
     } else {
-        s.mandrel_width_m = units::mm_to_m(r.number(node, p, "mandrel_width_mm", positive("mm")));
-        s.mandrel_depth_m = units::mm_to_m(r.number(node, p, "mandrel_depth_mm", positive("mm")));
-        s.mandrel_diameter_m = mandrel_equivalent_diameter_m(*s.mandrel_width_m, *s.mandrel_depth_m);
+        const double width = units::mm_to_m(r.number(node, p, "mandrel_width_mm", positive("mm")));
+        const double depth = units::mm_to_m(r.number(node, p, "mandrel_depth_mm", positive("mm")));
+        in.mandrel_diameter_m = mandrel_equivalent_diameter_m(width, depth);
     }
-    s.smear_diameter_ratio = r.number(node, p, "smear_diameter_ratio", positive("(ds/dm)"));
-    s.smear_permeability_ratio =
+    in.smear_diameter_ratio = r.number(node, p, "smear_diameter_ratio", positive("(ds/dm)"));
+    in.smear_permeability_ratio =
         r.number(node, p, "smear_permeability_ratio", {1.0, true, inf, false, "(kh/ks; 1 means no disturbance)"});
-    if (node["smear_shape"])
-        s.smear_shape = static_cast<SmearShape>(r.choice(node["smear_shape"], p + ".smear_shape", shape_names));
-    s.radial_theory = s.smear_shape == SmearShape::constant ? RadialTheory::hansbo_1981
-                                                            : RadialTheory::equal_strain_integral;
+    if (node["smear_shape"]) in.smear_shape = r.choice(node["smear_shape"], p + ".smear_shape", smear_shape_names);
+    in.theory = in.smear_shape == SmearShape::constant ? RadialTheory::hansbo_1981 : RadialTheory::equal_strain_integral;
     if (node["radial_theory"]) {
-        s.radial_theory = static_cast<RadialTheory>(r.choice(node["radial_theory"], p + ".radial_theory", theory_names));
-        if (s.radial_theory == RadialTheory::hansbo_1981 && s.smear_shape != SmearShape::constant)
+        in.theory = r.choice(node["radial_theory"], p + ".radial_theory", radial_theory_names);
+        if (in.theory == RadialTheory::hansbo_1981 && in.smear_shape != SmearShape::constant)
             r.fail(node["radial_theory"], p + ".radial_theory",
                    "hansbo_1981 is the closed form for a constant smear zone; with smear_shape '" +
-                       std::string(to_string(s.smear_shape)) + "' use equal_strain_integral");
+                       std::string(to_string(in.smear_shape)) + "' use equal_strain_integral");
     }
 }
 
 void read_patterns(const Reader& r, const YAML::Node& root, Scenario& s) {
-    if (!root["patterns"]) {
-        s.patterns = {Pattern::triangular, Pattern::square};
-        return;
-    }
+    auto& patterns = s.site.range.patterns;
+    if (!root["patterns"]) return;  // both, the default
+    patterns.clear();
     const YAML::Node node = root["patterns"];
     r.remember("patterns", node);
     if (!node.IsSequence() || node.size() == 0) r.fail(node, "patterns", "must be a list of triangular and/or square");
     for (std::size_t i = 0; i < node.size(); ++i) {
         const std::string path = "patterns[" + std::to_string(i) + "]";
-        const auto p = static_cast<Pattern>(r.choice(node[i], path, pattern_names));
-        if (std::find(s.patterns.begin(), s.patterns.end(), p) != s.patterns.end())
+        const Pattern p = r.choice(node[i], path, pattern_names);
+        if (std::find(patterns.begin(), patterns.end(), p) != patterns.end())
             r.fail(node[i], path, "pattern '" + std::string(to_string(p)) + "' is listed twice");
-        s.patterns.push_back(p);
+        patterns.push_back(p);
     }
 }
 
@@ -401,57 +386,79 @@ void read_spacing(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "spacing");
     r.expect_map(node, "spacing");
     r.allow_keys(node, "spacing", {"min_m", "max_m", "increment_m"});
-    s.spacing.min_m = r.number(node, "spacing", "min_m", positive("m"));
-    s.spacing.max_m = r.number(node, "spacing", "max_m", {s.spacing.min_m, false, inf, false, "m (above min_m)"});
-    s.increment_m = r.optional_number(node, "spacing", "increment_m", positive("m")).value_or(0.05);
-    if (s.increment_m > s.spacing.max_m - s.spacing.min_m)
+    SearchRange& range = s.site.range;
+    range.bounds.min_m = r.number(node, "spacing", "min_m", positive("m"));
+    range.bounds.max_m = r.number(node, "spacing", "max_m", {range.bounds.min_m, false, inf, false, "m (above min_m)"});
+    range.increment_m = r.optional_number(node, "spacing", "increment_m", positive("m")).value_or(defaults::spacing_increment_m);
+    if (range.increment_m > range.bounds.max_m - range.bounds.min_m)
         r.fail(node["increment_m"], "spacing.increment_m",
-               format_value(s.increment_m) + " is not allowed: it must be at most max_m − min_m = " +
-                   format_value(s.spacing.max_m - s.spacing.min_m) + " m");
+               format_value(range.increment_m) + " is not allowed: it must be at most max_m − min_m = " +
+                   format_value(range.bounds.max_m - range.bounds.min_m) + " m");
+}
+
+// The key a user would change when the method cannot take the site.
+std::string refusal_key(const Scenario& s, const MethodRefusal& why) {
+    switch (why.part) {
+        case MethodRefusal::Part::drain_length: return "drain_length_m";
+        case MethodRefusal::Part::clay_coefficients: return "clay";
+        case MethodRefusal::Part::layer_coefficients: break;
+    }
+    const auto& layers = s.site.ground.profile->layers;
+    for (std::size_t i = 0; i < layers.size(); ++i)
+        if (layers[i].cv_m2_per_s.has_value() == (s.site.method.method == CellMethod::closed_form) ||
+            layers[i].ch_m2_per_s.has_value() == (s.site.method.method == CellMethod::closed_form))
+            return "clay.layers[" + std::to_string(i) + "]";
+    return "clay.layers";
 }
 
 // Physical checks that join several keys, reported at the key a user would change.
 void check_physics(const Reader& r, Scenario& s) {
-    if (s.numerical && !(s.drain_length_m <= s.clay.thickness_m * (1 + 1e-12)))
-        r.fail_at(s.mark_of("drain_length_m"), "drain_length_m",
-                  format_value(s.drain_length_m) + " is not allowed: it must be at most clay.thickness_m = " +
-                      format_value(s.clay.thickness_m) + " m");
-    if (!s.numerical && std::fabs(s.drain_length_m - s.clay.thickness_m) > 1e-9 * s.clay.thickness_m)
-        r.fail_at(s.mark_of("drain_length_m"), "drain_length_m",
-                  format_value(s.drain_length_m) + " is not allowed: it must equal clay.thickness_m = " +
-                      format_value(s.clay.thickness_m) +
-                      " m (drains that stop short of the clay base need 'method: numerical')");
-    const double ds = s.smear_diameter_ratio * s.mandrel_diameter_m;
-    for (std::size_t i = 0; i < s.drains.size(); ++i) {
-        const auto& d = s.drains[i];
+    const Site& site = s.site;
+    const double thickness = site.ground.thickness_m, length = site.installation.drain_length_m;
+    if (!(length <= thickness * (1 + 1e-12)))
+        s.fail_at("drain_length_m", format_value(length) + " is not allowed: it must be at most clay.thickness_m = " +
+                                        format_value(thickness) + " m");
+    if (const auto why = method_refusal(site)) {
+        const std::string key = refusal_key(s, *why);
+        if (why->part == MethodRefusal::Part::layer_coefficients && site.method.method == CellMethod::closed_form)
+            s.fail_at(key, "layer cv/ch values need 'method: numerical' (the closed form takes one cv and ch for the clay)");
+        if (why->part == MethodRefusal::Part::drain_length)
+            s.fail_at(key, format_value(length) + " is not allowed: it must equal clay.thickness_m = " +
+                               format_value(thickness) + " m (drains that stop short of the clay base need 'method: numerical')");
+        s.fail_at(key, why->quantity + " must be " + why->allowed);
+    }
+    const double ds = site.installation.smear_diameter_m(), dm = site.installation.mandrel_diameter_m;
+    for (const auto& d : site.products) {
         if (ds < d.equivalent_diameter_m)
-            r.fail_at(s.mark_of("installation.smear_diameter_ratio"), "installation.smear_diameter_ratio",
-                      format_value(s.smear_diameter_ratio) + " gives a smear zone of " + format_value(ds * 1000.0) +
-                          " mm, smaller than the equivalent diameter of drain '" + d.name + "' (" +
-                          format_value(d.equivalent_diameter_m * 1000.0) +
-                          " mm); it must be at least " + format_value(d.equivalent_diameter_m / s.mandrel_diameter_m));
-        for (const Pattern p : s.patterns) {
+            s.fail_at("installation.smear_diameter_ratio",
+                      format_value(site.installation.smear_diameter_ratio) + " gives a smear zone of " +
+                          format_value(ds * 1000.0) + " mm, smaller than the equivalent diameter of drain '" + d.name +
+                          "' (" + format_value(d.equivalent_diameter_m * 1000.0) + " mm); it must be at least " +
+                          format_value(d.equivalent_diameter_m / dm));
+        for (const Pattern p : site.range.patterns) {
             const double lowest = spacing_from_influence_diameter_m(p, ds);
-            if (s.spacing.min_m <= lowest)
-                r.fail_at(s.mark_of("spacing.min_m"), "spacing.min_m",
-                          format_value(s.spacing.min_m) + " is not allowed: it must be greater than " +
-                              format_value(lowest) + " m so that the smear zone (" + format_value(ds * 1000.0) +
-                              " mm) lies inside the unit cell of a " + std::string(to_string(p)) + " pattern");
+            if (site.range.bounds.min_m <= lowest)
+                s.fail_at("spacing.min_m", format_value(site.range.bounds.min_m) + " is not allowed: it must be greater than " +
+                                               format_value(lowest) + " m so that the smear zone (" +
+                                               format_value(ds * 1000.0) + " mm) lies inside the unit cell of a " +
+                                               std::string(to_string(p)) + " pattern");
         }
     }
-    // Every cell the search may build must be valid; the engine's own checks, located.
-    const DesignInput input = s.design_input();
-    for (std::size_t i = 0; i < input.products.size(); ++i)
-        for (const Pattern p : s.patterns)
-            for (const double spacing : {s.spacing.min_m, s.spacing.max_m}) {
+    try {
+        validate_site(site);
+    } catch (const InputError& e) {
+        r.fail_at({0, 0}, "", e.what());
+    }
+    // Every cell the search may build must be valid: the engine's own checks, located.
+    for (const auto& product : site.products)
+        for (const Pattern p : site.range.patterns)
+            for (const double spacing : {site.range.bounds.min_m, site.range.bounds.max_m}) {
                 try {
-                    if (s.numerical) NumericalCell cell(numerical_cell(input, input.products[i], p, spacing), input.numerical_mesh);
-                    else UnitCell cell(product_cell(input, input.products[i], p, spacing));
+                    make_cell_model(site, product, p, spacing);
                 } catch (const InputError& e) {
-                    const std::string key = spacing == s.spacing.min_m ? "spacing.min_m" : "spacing.max_m";
-                    r.fail_at(s.mark_of(key), key,
-                              std::string(e.what()) + " (drain '" + s.drains[i].name + "', " +
-                                  std::string(to_string(p)) + " pattern)");
+                    s.fail_at(spacing == site.range.bounds.min_m ? "spacing.min_m" : "spacing.max_m",
+                              std::string(e.what()) + " (drain '" + product.name + "', " + std::string(to_string(p)) +
+                                  " pattern)");
                 }
             }
 }
@@ -459,7 +466,7 @@ void check_physics(const Reader& r, Scenario& s) {
 // A study value must lie in the physical range of its input (ratios above 1, smear inside the
 // smallest cell...); checked here so the error points at the value.
 double study_value(const Reader& r, const YAML::Node& node, const std::string& path, StudyInput input,
-                   const DesignInput& design) {
+                   const Site& design) {
     const double value = r.number(node, path, {-inf, false, inf, false, ""});
     const InputRange range = physical_range(design, input);
     const double si = study_value_to_si(input, value);
@@ -473,8 +480,16 @@ double study_value(const Reader& r, const YAML::Node& node, const std::string& p
     return si;
 }
 
-StudyInput study_input(const Reader& r, const YAML::Node& node, const std::string& path) {
-    return static_cast<StudyInput>(r.choice(node, path, study_input_names));
+// A study input named at `node`; the absolute discharge capacity only where there is one product
+// (one value would override every product's own qw).
+StudyInput study_input(const Reader& r, const YAML::Node& node, const std::string& path, const Site& site) {
+    const StudyInput input = r.choice(node, path, study_input_names);
+    if (input == StudyInput::discharge_capacity && site.products.size() != 1)
+        r.fail(node, path,
+               "discharge_capacity_m3_per_year sets one qw for every product, and this scenario lists " +
+                   std::to_string(site.products.size()) +
+                   "; vary 'discharge_capacity_factor' instead (a factor on each product's own qw)");
+    return input;
 }
 
 void read_studies(const Reader& r, const YAML::Node& root, Scenario& s) {
@@ -482,14 +497,14 @@ void read_studies(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = root["studies"];
     r.expect_map(node, "studies");
     r.allow_keys(node, "studies", {"tornado", "grid"});
-    const DesignInput design = s.design_input();
+    const Site& design = s.site;
     if (const YAML::Node t = node["tornado"]) {
         r.expect_map(t, "studies.tornado");
-        r.allow_keys(t, "studies.tornado", study_input_names);
+        r.allow_keys(t, "studies.tornado", names_of(study_input_names));
         for (auto it = t.begin(); it != t.end(); ++it) {
             const std::string name = it->first.as<std::string>();
             const std::string path = "studies.tornado." + name;
-            const StudyInput input = study_input(r, it->first, path);
+            const StudyInput input = study_input(r, it->first, path, design);
             const YAML::Node pair = it->second;
             if (!pair.IsSequence() || pair.size() != 2) r.fail(pair, path, "must be [low, high]");
             const double low = study_value(r, pair[0], path + "[0]", input, design);
@@ -507,12 +522,12 @@ void read_studies(const Reader& r, const YAML::Node& root, Scenario& s) {
             r.expect_map(a, path);
             r.allow_keys(a, path, {"input", "from", "to", "steps"});
             GridAxis out;
-            out.input = study_input(r, r.required(a, path, "input"), path + ".input");
+            out.input = study_input(r, r.required(a, path, "input"), path + ".input", design);
             out.from_si = study_value(r, r.required(a, path, "from"), path + ".from", out.input, design);
             out.to_si = study_value(r, r.required(a, path, "to"), path + ".to", out.input, design);
             if (!(out.to_si > out.from_si)) r.fail(a["to"], path + ".to", "must be greater than 'from'");
             out.steps = static_cast<int>(
-                r.optional_number(a, path, "steps", {2.0, true, 1001.0, true, "(whole number)"}).value_or(11.0));
+                r.optional_number(a, path, "steps", {2.0, true, 1001.0, true, "(whole number)"}).value_or(defaults::grid_steps));
             if (a["steps"] && std::floor(a["steps"].as<double>()) != a["steps"].as<double>())
                 r.fail(a["steps"], path + ".steps", "must be a whole number from 2 to 1001");
             return out;
@@ -527,8 +542,7 @@ void read_studies(const Reader& r, const YAML::Node& root, Scenario& s) {
 
 Distribution read_distribution(const Reader& r, const YAML::Node& node, const std::string& path, StudyInput input) {
     r.expect_map(node, path);
-    const auto kind = static_cast<DistributionKind>(
-        r.choice(r.required(node, path, "distribution"), path + ".distribution", distribution_names));
+    const DistributionKind kind = r.choice(r.required(node, path, "distribution"), path + ".distribution", distribution_names);
     Distribution d;
     d.kind = kind;
     const Range any{-inf, false, inf, false, ""};
@@ -568,7 +582,7 @@ void read_uncertain(const Reader& r, const YAML::Node& root, Scenario& s) {
     const std::string p = "uncertain";
     r.expect_map(node, p);
     std::vector<std::string> keys{"samples", "seed", "reliability", "confidence", "spacing_m", "ch_cv_correlation"};
-    keys.insert(keys.end(), study_input_names.begin(), study_input_names.end());
+    for (const auto& name : names_of(study_input_names)) keys.push_back(name);
     r.allow_keys(node, p, keys);
     MonteCarloSpec mc;
     const auto whole = [&](const char* key, double low, double high, double fallback) {
@@ -578,15 +592,19 @@ void read_uncertain(const Reader& r, const YAML::Node& root, Scenario& s) {
     };
     mc.samples = static_cast<std::size_t>(whole("samples", 1.0, 1e9, 10000.0));
     mc.seed = static_cast<std::uint64_t>(whole("seed", 0.0, 9007199254740992.0, 1.0));
-    mc.reliability = r.optional_number(node, p, "reliability", {0.0, false, 1.0, false, ""}).value_or(0.9);
-    mc.confidence = r.optional_number(node, p, "confidence", {0.0, false, 1.0, false, ""}).value_or(0.95);
-    mc.spacing_m = r.optional_number(node, p, "spacing_m", {s.spacing.min_m, true, s.spacing.max_m, true, "m"});
+    mc.reliability = r.optional_number(node, p, "reliability", {0.0, false, 1.0, false, ""}).value_or(defaults::monte_carlo_reliability);
+    mc.confidence = r.optional_number(node, p, "confidence", {0.0, false, 1.0, false, ""}).value_or(defaults::monte_carlo_confidence);
+    const SpacingBounds& b = s.site.range.bounds;
+    mc.spacing_m = r.optional_number(node, p, "spacing_m", {b.min_m, true, b.max_m, true, "m"});
     mc.ch_cv_correlation = r.optional_number(node, p, "ch_cv_correlation", {-1.0, false, 1.0, false, ""}).value_or(0.0);
-    const DesignInput design = s.design_input();
-    for (const auto& name : study_input_names) {
+    const Site& design = s.site;
+    for (const auto& name : names_of(study_input_names)) {
         if (!node[name]) continue;
         const std::string path = p + "." + name;
-        const StudyInput input = study_input(r, YAML::Node(name), path);
+        YAML::Node key;
+        for (auto it = node.begin(); it != node.end(); ++it)
+            if (it->first.Scalar() == name) key = it->first;
+        const StudyInput input = study_input(r, key, path, design);
         const Distribution d = read_distribution(r, node[name], path, input);
         try {
             TruncatedDistribution(d, physical_range(design, input), name);
@@ -595,7 +613,7 @@ void read_uncertain(const Reader& r, const YAML::Node& root, Scenario& s) {
         }
         mc.inputs.push_back({input, d});
     }
-    if (mc.inputs.empty()) r.fail(node, p, "needs at least one uncertain input: " + Reader::list(study_input_names));
+    if (mc.inputs.empty()) r.fail(node, p, "needs at least one uncertain input: " + Reader::list(names_of(study_input_names)));
     s.studies.monte_carlo = mc;
 }
 
@@ -650,40 +668,35 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
         s.surcharge_max_height_m = r.optional_number(sc, path, "max_height_m", positive("m"));
         h.surcharge = sur;
     }
-    s.loading = h;
+    s.site.loading = h;
 }
 
 void read_method(const Reader& r, const YAML::Node& root, Scenario& s) {
-    if (root["method"]) s.numerical = r.choice(root["method"], "method", {"analytical", "numerical"}) == 1;
-    if (const YAML::Node m = root["numerical_mesh"]) {
-        r.expect_map(m, "numerical_mesh");
-        r.allow_keys(m, "numerical_mesh", {"radial_cells", "vertical_cells", "max_degree_step"});
+    MethodChoice& m = s.site.method;
+    if (root["method"]) m.method = r.choice(root["method"], "method", cell_method_names);
+    if (const YAML::Node mesh = root["numerical_mesh"]) {
+        r.expect_map(mesh, "numerical_mesh");
+        r.allow_keys(mesh, "numerical_mesh", {"radial_cells", "vertical_cells", "max_degree_step"});
         const auto whole = [&](const char* key, double low, double high, int fallback) {
-            const auto v = r.optional_number(m, "numerical_mesh", key, {low, true, high, true, "(whole number)"});
-            if (v && std::floor(*v) != *v) r.fail(m[key], std::string("numerical_mesh.") + key, "must be a whole number");
+            const auto v = r.optional_number(mesh, "numerical_mesh", key, {low, true, high, true, "(whole number)"});
+            if (v && std::floor(*v) != *v) r.fail(mesh[key], std::string("numerical_mesh.") + key, "must be a whole number");
             return v ? static_cast<int>(*v) : fallback;
         };
-        s.numerical_mesh.radial_cells = whole("radial_cells", 4, 2000, 20);
-        s.numerical_mesh.vertical_cells = whole("vertical_cells", 2, 4000, 40);
-        s.numerical_mesh.max_degree_step =
-            r.optional_number(m, "numerical_mesh", "max_degree_step", {0.0, false, 0.1, true, ""}).value_or(0.005);
+        m.mesh.radial_cells = whole("radial_cells", 4, 2000, defaults::design_radial_cells);
+        m.mesh.vertical_cells = whole("vertical_cells", 2, 4000, defaults::design_vertical_cells);
+        m.mesh.max_degree_step = r.optional_number(mesh, "numerical_mesh", "max_degree_step", {0.0, false, 0.1, true, ""})
+                                     .value_or(defaults::design_max_degree_step);
     }
-    if (s.numerical && s.residual_limit_m)
-        r.fail_at(s.mark_of("target.residual_settlement_mm"), "target.residual_settlement_mm",
-                  "'method: numerical' designs for a degree; use 'degree' or the analytical method");
-    for (std::size_t i = 0; i < s.layer_cv_m2_per_s.size(); ++i)
-        if ((s.layer_cv_m2_per_s[i] || s.layer_ch_m2_per_s[i]) && !s.numerical)
-            r.fail_at(s.mark_of("clay.layers"), "clay.layers[" + std::to_string(i) + "]",
-                      "layer cv/ch values need 'method: numerical' (the closed form takes one cv and ch for the clay)");
 }
 
-void check_settlement_criterion(const Reader& r, const Scenario& s) {
-    if (!s.residual_limit_m) return;
-    if (!s.loading)
-        r.fail_at(s.mark_of("target.residual_settlement_mm"), "target.residual_settlement_mm",
+void check_settlement_criterion(const Scenario& s) {
+    const Site& site = s.site;
+    if (!site.criterion.residual()) return;
+    if (!site.loading)
+        s.fail_at("target.residual_settlement_mm",
                   "a residual settlement criterion needs a 'loading' block (the load that causes settlement)");
-    if (!s.profile && !s.mv_m2_per_kN)
-        r.fail_at(s.mark_of("target.residual_settlement_mm"), "target.residual_settlement_mm",
+    if (!site.ground.profile && !site.ground.mv_m2_per_kN)
+        s.fail_at("target.residual_settlement_mm",
                   "a residual settlement criterion needs 'clay.layers' or 'clay.mv_m2_per_kN' for the settlement");
 }
 
@@ -691,22 +704,22 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     Scenario s;
     s.file = file;
     Reader r(file, s.marks);
-    if (!root || root.IsNull()) r.fail_at({1, 1}, "", "the file is empty; a scenario needs at least 'schema: 1'");
+    if (!root || root.IsNull()) r.fail_at({0, 0}, "", "the file is empty; a scenario needs at least 'schema: 1'");
     r.expect_map(root, "");
     r.allow_keys(root, "", top_keys);
     const double schema = r.number(root, "", "schema", {1.0, true, 1.0, true, ""});
     (void)schema;
     s.title = root["title"] ? r.text(root["title"], "title") : file;
     read_target(r, root, s);
+    read_method(r, root, s);
     read_clay(r, root, s);
     read_loading(r, root, s);
-    check_settlement_criterion(r, s);
-    read_method(r, root, s);
+    check_settlement_criterion(s);
     read_drains(r, root, s);
-    s.drain_length_m = r.optional_number(root, "", "drain_length_m", positive("m")).value_or(s.clay.thickness_m);
-    if (!root["drain_length_m"]) s.marks["drain_length_m"] = s.mark_of("clay.thickness_m");
-    if (root["drain_outlets"])
-        s.outlets = static_cast<DrainOutlets>(r.choice(root["drain_outlets"], "drain_outlets", outlet_names));
+    Installation& in = s.site.installation;
+    in.drain_length_m = r.optional_number(root, "", "drain_length_m", positive("m")).value_or(s.site.ground.thickness_m);
+    if (!root["drain_length_m"]) s.marks["drain_length_m"] = s.marks["clay.thickness_m"];
+    if (root["drain_outlets"]) in.outlets = r.choice(root["drain_outlets"], "drain_outlets", outlet_names);
     read_installation(r, root, s);
     read_patterns(r, root, s);
     read_spacing(r, root, s);
@@ -718,9 +731,15 @@ Scenario read(const YAML::Node& root, const std::string& file) {
 
 }  // namespace
 
-Mark Scenario::mark_of(const std::string& key_path) const {
+std::optional<Mark> Scenario::mark_of(const std::string& key_path) const {
     const auto it = marks.find(key_path);
-    return it == marks.end() ? Mark{1, 1} : it->second;
+    if (it == marks.end()) return std::nullopt;
+    return it->second;
+}
+
+void Scenario::fail_at(const std::string& key_path, const std::string& message) const {
+    // A key the file does not give is reported against the file as a whole, never an invented line.
+    throw ScenarioError(file, mark_of(key_path).value_or(Mark{0, 0}), key_path, message);
 }
 
 const DrainEntry& Scenario::drain(const std::string& name) const {
@@ -730,53 +749,7 @@ const DrainEntry& Scenario::drain(const std::string& name) const {
     for (const auto& d : drains) names.push_back(d.name);
     std::string message = "no drain named '" + name + "'; the scenario lists " + Reader::list(names);
     if (auto best = closest(name, names)) message += "; did you mean '" + *best + "'?";
-    throw ScenarioError(file, mark_of("drains"), "drains", message);
-}
-
-DesignInput Scenario::design_input() const {
-    DesignInput in;
-    in.clay = clay;
-    if (!kh_given) in.mv_m2_per_kN = mv_m2_per_kN;
-    in.installation.smear_shape = smear_shape;
-    in.installation.smear_permeability_ratio = smear_permeability_ratio;
-    in.installation.length_m = drain_length_m;
-    in.installation.outlets = outlets;
-    in.installation.theory = radial_theory;
-    in.mandrel_diameter_m = mandrel_diameter_m;
-    in.smear_diameter_ratio = smear_diameter_ratio;
-    for (const auto& d : drains)
-        in.products.push_back({d.name, d.equivalent_diameter_m, d.discharge_capacity_m3_per_s, d.cost_per_m});
-    in.patterns = patterns;
-    in.target_degree = target_degree;
-    in.deadline_s = units::days_to_seconds(deadline_days);
-    in.bounds = spacing;
-    in.increment_m = increment_m;
-    in.loading = loading;
-    in.profile = profile;
-    if (!profile) in.clay_mv_m2_per_kN = mv_m2_per_kN;
-    in.residual_limit_m = residual_limit_m;
-    if (service_days) in.service_s = units::days_to_seconds(*service_days);
-    in.numerical = numerical;
-    in.numerical_mesh = numerical_mesh;
-    if (numerical && profile) {
-        // Layer mv for storage: given, or the secant of the e–log curve under the final load
-        // (a 50 kPa probe without loading), so that each layer keeps its share of settlement.
-        const double q = loading ? loading->permanent_kPa() : 50.0;
-        const auto all = slices(*profile);
-        std::size_t k = 0;
-        for (std::size_t i = 0; i < profile->layers.size(); ++i) {
-            const SoilLayer& layer = profile->layers[i];
-            double settle = 0.0;
-            for (int j = 0; j < profile->slices_per_layer; ++j) settle += slice_settlement_m(layer, all[k++], q);
-            NumericalLayer n;
-            n.thickness_m = layer.thickness_m;
-            n.mv_m2_per_kN = layer.mv_m2_per_kN ? *layer.mv_m2_per_kN : settle / (q * layer.thickness_m);
-            n.cv_m2_per_s = layer_cv_m2_per_s[i].value_or(clay.cv_m2_per_s);
-            n.ch_m2_per_s = layer_ch_m2_per_s[i].value_or(clay.ch_m2_per_s);
-            in.numerical_layers.push_back(n);
-        }
-    }
-    return in;
+    throw ScenarioError(file, mark_of("drains").value_or(Mark{0, 0}), "drains", message);
 }
 
 Scenario parse_scenario(const std::string& text, const std::string& file_label) {

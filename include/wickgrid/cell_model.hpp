@@ -1,0 +1,99 @@
+#pragma once
+// One interface for the unit cell of a site, whatever method computes it. A CellModel is one drain
+// product × pattern × spacing on a site, built once by make_cell_model and asked many times:
+// degrees at given times under the site's load history, settlement, the residual settlement, how
+// far the criterion is met and when, and the figures a report shows. The closed form and the
+// numerical cell are two implementations; a method is added by one implementation and one row in
+// the method table (cell_model.cpp), with nothing to change in the commands.
+#include <memory>
+#include <optional>
+#include <string_view>
+#include <vector>
+
+#include "wickgrid/site.hpp"
+
+namespace wickgrid {
+
+// Geometry and radial-flow figures of a unit cell, as a report shows them.
+struct CellFigures {
+    double equivalent_diameter_m = 0.0;  // dw
+    double smear_diameter_m = 0.0;       // ds
+    double influence_diameter_m = 0.0;   // De
+    double n = 0.0;                      // De/dw
+    double s = 0.0;                      // ds/dw
+    double mu_smear = 0.0;               // μ of smear alone (no well resistance)
+    double mu_depth_mean = 0.0;          // depth mean of μ(z) over the drain, well resistance included
+    double drain_length_m = 0.0;
+};
+
+class CellModel {
+public:
+    virtual ~CellModel() = default;
+    CellModel(const CellModel&) = delete;
+    CellModel& operator=(const CellModel&) = delete;
+
+    // Degrees at each time (s, ascending, each >= 0), relative to the final permanent load, under the
+    // site's load history. Uv is the degree of vertical flow alone; Ur is the radial degree that
+    // Carrillo's rule needs to give U, so that 1 − U = (1 − Uv)(1 − Ur) holds at every time (under a
+    // single instantaneous load it is the cell's own radial degree). Cost: method-dependent (closed
+    // form: microseconds a time; numerical: one march to the last time).
+    virtual std::vector<Degrees> degrees(const std::vector<double>& times_s) const = 0;
+    // U alone at each time (cheaper where the method can skip Uv).
+    virtual std::vector<double> combined(const std::vector<double>& times_s) const;
+    // The degree the settlement tends to in the long run (above 1 when a surcharge over-compressed
+    // and rebound is ignored).
+    virtual double eventual_degree() const { return 1.0; }
+    // First time (s) at which U reaches target (0 < target < 1); nullopt when not within the search
+    // horizon (defaults::search_horizon_years).
+    virtual std::optional<double> time_to_degree_s(double target) const;
+    virtual CellMethod method() const noexcept = 0;
+
+    const CellFigures& figures() const noexcept { return figures_; }
+    // Final primary settlement under the permanent load (m); nullopt without a settlement model.
+    std::optional<double> final_settlement_m() const noexcept { return final_m_; }
+
+    double degree(double time_s) const { return combined({time_s}).front(); }
+    // Settlement (m) at a time: U × final settlement; nullopt without a settlement model.
+    std::optional<double> settlement_m(double time_s) const;
+    // Settlement still to come after time_s: until time_s + period, or to the end (period absent).
+    // Throws InputError without a settlement model.
+    double residual_m(double time_s, std::optional<double> period_s) const;
+    // How far the criterion is met at the deadline: >= 0 when met (degree − target, or limit − residual).
+    double margin(const Criterion& criterion) const;
+    // First time the criterion holds; nullopt when not within the search horizon.
+    std::optional<double> time_criterion_met_s(const Criterion& criterion) const;
+
+protected:
+    CellModel(const CellFigures& figures, std::optional<double> final_m) : figures_(figures), final_m_(final_m) {}
+
+private:
+    CellFigures figures_;
+    std::optional<double> final_m_;
+};
+
+// The cell model of the site's method for one product × pattern × spacing. Throws InputError for
+// inputs outside what the method can take (naming the method and the reason: e.g. the closed form
+// with drains that stop short of the clay base), including spacings too small for the smear zone.
+std::unique_ptr<CellModel> make_cell_model(const Site& site, const DrainProductSpec& product, Pattern pattern,
+                                           double spacing_m);
+
+// Why the site's method cannot take this site: the part of the site at fault, and the InputError
+// terms (quantity, value, what is allowed). Checked once per site, so that a scenario is refused at
+// the key that causes it before any search starts.
+struct MethodRefusal {
+    enum class Part { drain_length, layer_coefficients, clay_coefficients };
+    Part part;
+    std::string quantity;
+    double value;
+    std::string allowed;
+};
+std::optional<MethodRefusal> method_refusal(const Site& site);
+
+// The largest spacing within the site's range at which the criterion is met, for one product and
+// pattern. A method may supply a fast exact path (the closed form under one instantaneous load);
+// otherwise the criterion margin is solved on cell models: TOMS 748 for the degree (monotone in
+// spacing), a scan of the increment grid refined by bisection for the residual settlement (which
+// need not be monotone over a service period). Throws EvaluationError when a root finder hits its cap.
+SpacingLimit spacing_limit(const Site& site, const DrainProductSpec& product, Pattern pattern);
+
+}  // namespace wickgrid

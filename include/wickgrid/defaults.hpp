@@ -1,0 +1,42 @@
+#pragma once
+// Every default of the program in one place: the scenario reader, the command line, the engine and
+// the writers take them from here.
+namespace wickgrid::defaults {
+
+// Search range.
+inline constexpr double spacing_increment_m = 0.05;  // chosen spacings are rounded down to this step
+inline constexpr double spacing_tolerance_m = 1e-7;  // spacing-limit roots are solved to this width
+inline constexpr double time_tolerance_s = 1.0;      // time-to-criterion roots are solved to this width
+inline constexpr double search_horizon_years = 100.0;  // a criterion not met by then is "not reached"
+inline constexpr int root_iterations = 200;            // cap of every root finder (checked)
+
+// Numerical unit cell built without a mesh given (engine default).
+inline constexpr int numerical_radial_cells = 40;
+inline constexpr int numerical_vertical_cells = 80;
+inline constexpr double numerical_max_degree_step = 0.005;
+// Numerical unit cell used by `method: numerical` designs.
+inline constexpr int design_radial_cells = 20;
+inline constexpr int design_vertical_cells = 40;
+inline constexpr double design_max_degree_step = 0.005;
+// Numerical unit cell used by `verify` as the reference.
+inline constexpr int verify_radial_cells = 40;
+inline constexpr int verify_vertical_cells = 80;
+inline constexpr double verify_max_degree_step = 0.002;
+inline constexpr double verify_threshold = 0.02;  // |ΔU| above which verify warns
+inline constexpr int verify_points = 25;
+
+// Settlement.
+inline constexpr int slices_per_layer = 10;
+inline constexpr double secant_probe_kPa = 50.0;  // load for a layer's secant mv when no loading is given
+
+// Curves.
+inline constexpr int curve_points = 31;
+inline constexpr double curve_span_of_deadline = 1.5;  // curves run to 1.5 × deadline by default
+inline constexpr int chart_points = 121;
+
+// Studies.
+inline constexpr int grid_steps = 11;
+inline constexpr double monte_carlo_reliability = 0.9;
+inline constexpr double monte_carlo_confidence = 0.95;
+
+}  // namespace wickgrid::defaults

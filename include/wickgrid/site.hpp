@@ -1,0 +1,136 @@
+#pragma once
+// The site: what a scenario says, resolved once, in SI units, split by concern — the ground, the
+// drain products, their installation, the load history, the design criterion, the method of the
+// unit cell and the spacing range. Pure data; the scenario layer fills it, every command asks it
+// through the cell-model factory (cell_model.hpp). No field has two meanings.
+#include <functional>
+#include <optional>
+#include <string>
+#include <variant>
+#include <vector>
+
+#include "wickgrid/cell.hpp"
+#include "wickgrid/defaults.hpp"
+#include "wickgrid/loading.hpp"
+#include "wickgrid/numerical.hpp"
+#include "wickgrid/search.hpp"
+#include "wickgrid/settlement.hpp"
+
+namespace wickgrid {
+
+// Where the clay's horizontal permeability comes from.
+enum class KhSource {
+    given,           // kh_m_per_s in the ground
+    from_ch_and_mv,  // kh = ch·mv·γw, recomputed whenever ch or mv changes
+};
+
+// The compressible ground the drains are in.
+struct Ground {
+    double thickness_m = 0.0;
+    VerticalDrainage drainage = VerticalDrainage::both_faces;
+    // The clay taken as one layer (what the closed form uses). cv/ch may be absent where every layer
+    // of the profile gives its own (numerical method).
+    std::optional<double> cv_m2_per_s;
+    std::optional<double> ch_m2_per_s;
+    std::optional<double> kh_m_per_s;  // set when kh_source == given
+    KhSource kh_source = KhSource::given;
+    std::optional<double> mv_m2_per_kN;  // the clay's coefficient of volume compressibility, as one value
+    // Layers (settlement by e–log or mv; optional per-layer cv/ch). Absent: one uniform clay.
+    std::optional<SoilProfile> profile;
+
+    // The clay as one uniform layer; throws InputError naming what is missing.
+    Clay uniform_clay() const;
+    // Whether the layers give their own cv or ch (then the clay is not uniform in consolidation).
+    bool layered_flow() const;
+};
+
+struct DrainProductSpec {
+    std::string name;
+    double equivalent_diameter_m = 0.0;
+    double discharge_capacity_m3_per_s = 0.0;
+    std::optional<double> cost_per_m;
+};
+
+struct Installation {
+    double mandrel_diameter_m = 0.0;
+    double smear_diameter_ratio = 1.0;      // ds/dm
+    double smear_permeability_ratio = 1.0;  // kh/ks
+    SmearShape smear_shape = SmearShape::constant;
+    RadialTheory theory = RadialTheory::hansbo_1981;
+    double drain_length_m = 0.0;  // from the top of the clay; may stop short of the base
+    DrainOutlets outlets = DrainOutlets::top;
+
+    double smear_diameter_m() const noexcept { return smear_diameter_ratio * mandrel_diameter_m; }
+};
+
+// The design criterion: a typed choice.
+struct DegreeTarget {
+    double degree = 0.9;  // average degree of consolidation to reach by the deadline (0 < U < 1)
+};
+struct ResidualSettlementLimit {
+    double limit_m = 0.0;              // settlement still to come after the deadline, at most
+    std::optional<double> service_s;   // counted over this period after the deadline; absent: to the end
+};
+enum class CriterionKind { degree, residual_settlement };
+
+struct Criterion {
+    std::variant<DegreeTarget, ResidualSettlementLimit> rule;
+    double deadline_s = 0.0;
+
+    CriterionKind kind() const noexcept {
+        return std::holds_alternative<DegreeTarget>(rule) ? CriterionKind::degree : CriterionKind::residual_settlement;
+    }
+    const DegreeTarget* degree() const noexcept { return std::get_if<DegreeTarget>(&rule); }
+    const ResidualSettlementLimit* residual() const noexcept { return std::get_if<ResidualSettlementLimit>(&rule); }
+};
+
+// How a unit cell is computed (names in names.hpp; implementations in cell_model.hpp).
+enum class CellMethod { closed_form, numerical };
+
+struct MethodChoice {
+    CellMethod method = CellMethod::closed_form;
+    NumericalMesh mesh{defaults::design_radial_cells, defaults::design_vertical_cells,
+                       defaults::design_max_degree_step, 0.0};
+};
+
+struct SearchRange {
+    SpacingBounds bounds;
+    double increment_m = defaults::spacing_increment_m;
+    std::vector<Pattern> patterns{Pattern::triangular, Pattern::square};
+};
+
+struct Site {
+    Ground ground;
+    std::vector<DrainProductSpec> products;
+    Installation installation;
+    std::optional<LoadHistory> loading;  // absent: the load is applied at once at day 0
+    Criterion criterion;
+    MethodChoice method;
+    SearchRange range;
+
+    // The product of that name (InputError naming it if there is none).
+    const DrainProductSpec& product(const std::string& name) const;
+    // Settlement is computed when there is a load and a compressibility (layers or mv).
+    bool has_settlement() const noexcept;
+    // The load history: the site's loading, or 1 kPa at day 0 for degree-only designs.
+    LoadHistory load_history() const;
+};
+
+// Checks what joins several parts of the site (criterion against loading and settlement, bounds,
+// drain length); throws InputError naming the quantity. Cost: O(layers).
+void validate_site(const Site& site);
+
+// Ultimate primary settlement (m) under a total load q (kPa) on this site: the e–log/mv profile, or
+// mv·q·H of the uniform clay; without a settlement model, q itself (so that settlement histories
+// become load-weighted degrees).
+std::function<double(double load_kPa)> ultimate_settlement_function(const Site& site);
+
+// The closed-form unit cell of one product at one spacing (uniform clay, full drains).
+CellSpec closed_form_cell(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m);
+
+// The numerical unit cell of one product at one spacing: the layers with their own cv/ch (else the
+// clay's) and storage mv (given, or the e–log secant under the final load), partial drains, loading.
+NumericalCellSpec numerical_cell_spec(const Site& site, const DrainProductSpec& product, Pattern pattern,
+                                      double spacing_m);
+
+}  // namespace wickgrid

@@ -1,0 +1,26 @@
+#pragma once
+// Internals: the implementations behind the method table (not part of the public headers).
+#include <memory>
+#include <optional>
+#include <string>
+
+#include "wickgrid/cell_model.hpp"
+
+namespace wickgrid::detail {
+
+std::unique_ptr<CellModel> make_closed_form_model(const Site& site, const DrainProductSpec& product, Pattern pattern,
+                                                  double spacing_m);
+std::optional<MethodRefusal> closed_form_refusal(const Site& site);
+// The exact fast search (SpacingSolver) where it applies: one instantaneous load, degree criterion.
+std::optional<SpacingLimit> closed_form_fast_limit(const Site& site, const DrainProductSpec& product, Pattern pattern);
+
+std::unique_ptr<CellModel> make_numerical_model(const Site& site, const DrainProductSpec& product, Pattern pattern,
+                                                double spacing_m);
+std::optional<MethodRefusal> numerical_refusal(const Site& site);
+
+// Ur that Carrillo's rule needs to give U with this Uv (1 where Uv is 1).
+inline double carrillo_radial(double combined, double vertical) {
+    return vertical < 1.0 ? 1.0 - (1.0 - combined) / (1.0 - vertical) : 1.0;
+}
+
+}  // namespace wickgrid::detail

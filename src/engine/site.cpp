@@ -1,0 +1,140 @@
+// The site: lookups, the joint checks of its parts, and the cell specifications each method needs.
+#include "wickgrid/site.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include "wickgrid/errors.hpp"
+#include "wickgrid/permeability.hpp"
+#include "wickgrid/units.hpp"
+
+namespace wickgrid {
+
+Clay Ground::uniform_clay() const {
+    if (!cv_m2_per_s) throw InputError("clay cv (m²/s)", 0.0, "given for the clay as one layer (clay.cv_m2_per_year)");
+    if (!ch_m2_per_s) throw InputError("clay ch (m²/s)", 0.0, "given for the clay as one layer (clay.ch_m2_per_year)");
+    Clay clay;
+    clay.thickness_m = thickness_m;
+    clay.cv_m2_per_s = *cv_m2_per_s;
+    clay.ch_m2_per_s = *ch_m2_per_s;
+    clay.drainage = drainage;
+    if (kh_source == KhSource::from_ch_and_mv) {
+        if (!mv_m2_per_kN) throw InputError("clay mv (m²/kN)", 0.0, "given when kh is derived from ch·mv·γw");
+        clay.kh_m_per_s = permeability_from_consolidation_m_per_s(*ch_m2_per_s, *mv_m2_per_kN);
+    } else {
+        if (!kh_m_per_s) throw InputError("clay kh (m/s)", 0.0, "given for the clay as one layer (clay.kh_m_per_s)");
+        clay.kh_m_per_s = *kh_m_per_s;
+    }
+    return clay;
+}
+
+bool Ground::layered_flow() const {
+    if (!profile) return false;
+    return std::any_of(profile->layers.begin(), profile->layers.end(),
+                       [](const SoilLayer& l) { return l.cv_m2_per_s || l.ch_m2_per_s; });
+}
+
+const DrainProductSpec& Site::product(const std::string& name) const {
+    const auto it = std::find_if(products.begin(), products.end(), [&](const DrainProductSpec& p) { return p.name == name; });
+    if (it == products.end()) throw InputError("drain product '" + name + "'", 0.0, "one of the design's products");
+    return *it;
+}
+
+bool Site::has_settlement() const noexcept { return loading && (ground.profile || ground.mv_m2_per_kN); }
+
+LoadHistory Site::load_history() const {
+    if (loading) return *loading;
+    LoadHistory h;
+    h.stages.push_back({0.0, 0.0, 1.0});
+    return h;
+}
+
+void validate_site(const Site& site) {
+    require_positive("clay thickness (m)", site.ground.thickness_m);
+    require_positive("deadline (s)", site.criterion.deadline_s);
+    if (const auto* d = site.criterion.degree()) require_open_unit("target degree of consolidation", d->degree);
+    if (const auto* r = site.criterion.residual()) {
+        require_non_negative("residual settlement limit (m)", r->limit_m);
+        if (r->service_s) require_positive("service period (s)", *r->service_s);
+        if (!site.has_settlement())
+            throw InputError("residual settlement limit (m)", r->limit_m,
+                             "used with a loading and a settlement model (clay layers or mv)");
+    }
+    if (site.products.empty()) throw InputError("number of drain products", 0.0, "at least 1");
+    if (site.range.patterns.empty()) throw InputError("number of patterns", 0.0, "at least 1");
+    require_positive("smallest spacing (m)", site.range.bounds.min_m);
+    require_greater("largest spacing (m)", site.range.bounds.max_m, site.range.bounds.min_m, "greater than the smallest");
+    require_positive("spacing increment (m)", site.range.increment_m);
+    require_positive("drain length (m)", site.installation.drain_length_m);
+    if (site.installation.drain_length_m > site.ground.thickness_m * (1 + 1e-12))
+        throw InputError("drain length (m)", site.installation.drain_length_m,
+                         "at most the clay thickness " + format_value(site.ground.thickness_m) + " m");
+    if (site.loading) validate_load_history(*site.loading);
+}
+
+std::function<double(double)> ultimate_settlement_function(const Site& site) {
+    if (site.loading && site.ground.profile) {
+        const SoilProfile p = *site.ground.profile;
+        return [p](double q) { return ultimate_settlement_m(p, q); };
+    }
+    if (site.loading && site.ground.mv_m2_per_kN) {
+        const double mv = *site.ground.mv_m2_per_kN, h = site.ground.thickness_m;
+        return [mv, h](double q) { return mv * q * h; };
+    }
+    return [](double q) { return q; };
+}
+
+CellSpec closed_form_cell(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m) {
+    CellSpec spec;
+    spec.clay = site.ground.uniform_clay();
+    const Installation& in = site.installation;
+    spec.drain.equivalent_diameter_m = product.equivalent_diameter_m;
+    spec.drain.discharge_capacity_m3_per_s = product.discharge_capacity_m3_per_s;
+    spec.drain.smear_diameter_m = in.smear_diameter_m();
+    spec.drain.smear_shape = in.smear_shape;
+    spec.drain.smear_permeability_ratio = in.smear_permeability_ratio;
+    spec.drain.length_m = in.drain_length_m;
+    spec.drain.outlets = in.outlets;
+    spec.drain.theory = in.theory;
+    spec.pattern = pattern;
+    spec.spacing_m = spacing_m;
+    return spec;
+}
+
+NumericalCellSpec numerical_cell_spec(const Site& site, const DrainProductSpec& product, Pattern pattern,
+                                      double spacing_m) {
+    const Ground& g = site.ground;
+    const Installation& in = site.installation;
+    NumericalCellSpec n;
+    if (g.profile) {
+        // Storage mv of each layer: given, or the secant of the e–log curve under the final load (a
+        // probe load without loading), so that each layer keeps its share of settlement.
+        const double q = site.loading ? site.loading->permanent_kPa() : defaults::secant_probe_kPa;
+        for (std::size_t i = 0; i < g.profile->layers.size(); ++i) {
+            const SoilLayer& layer = g.profile->layers[i];
+            const auto cv = layer.cv_m2_per_s ? layer.cv_m2_per_s : g.cv_m2_per_s;
+            const auto ch = layer.ch_m2_per_s ? layer.ch_m2_per_s : g.ch_m2_per_s;
+            const std::string which = "clay layer " + std::to_string(i + 1);
+            if (!cv) throw InputError(which + " cv (m²/s)", 0.0, "given for the layer or for the clay");
+            if (!ch) throw InputError(which + " ch (m²/s)", 0.0, "given for the layer or for the clay");
+            n.layers.push_back({layer.thickness_m, *cv, *ch, secant_mv_m2_per_kN(*g.profile, i, q)});
+        }
+    } else {
+        const Clay clay = g.uniform_clay();
+        const double mv = clay.kh_m_per_s / (clay.ch_m2_per_s * units::gamma_w_kN_per_m3);
+        n.layers = {{clay.thickness_m, clay.cv_m2_per_s, clay.ch_m2_per_s, mv}};
+    }
+    n.drainage = g.drainage;
+    n.drain_diameter_m = product.equivalent_diameter_m;
+    n.smear_diameter_m = in.smear_diameter_m();
+    n.smear_shape = in.smear_shape;
+    n.smear_permeability_ratio = in.smear_permeability_ratio;
+    n.discharge_capacity_m3_per_s = product.discharge_capacity_m3_per_s;
+    n.drain_length_m = in.drain_length_m;
+    n.outlets = in.outlets;
+    n.influence_diameter_m = influence_diameter_m(pattern, spacing_m);
+    n.loading = site.loading;
+    return n;
+}
+
+}  // namespace wickgrid

@@ -1,0 +1,234 @@
+// Assembles the result model of a design: the engine is asked here, once; writers only format.
+#include "results/design_record.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include "wickgrid/errors.hpp"
+#include "wickgrid/names.hpp"
+#include "wickgrid/units.hpp"
+
+namespace wickgrid::results {
+
+namespace {
+std::string fixed(double value, int decimals) {
+    char buffer[64];
+    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
+    return buffer;
+}
+double days(double s) { return units::seconds_to_days(s); }
+
+// Chart times: evenly or log-spaced over 1.5 × (3 × on a log axis) the deadline, with the
+// deadline itself among them so that the charts pass through the table's values.
+std::vector<double> chart_times(double deadline_s, bool log_time) {
+    std::vector<double> t;
+    const int n = defaults::chart_points - 1;
+    if (log_time) {
+        const double first = units::seconds_per_day, last = 3.0 * deadline_s;
+        for (int i = 0; i <= n; ++i) t.push_back(first * std::pow(last / first, static_cast<double>(i) / n));
+    } else {
+        for (int i = 0; i <= n; ++i) t.push_back(defaults::curve_span_of_deadline * deadline_s * i / n);
+    }
+    t.push_back(deadline_s);
+    std::sort(t.begin(), t.end());
+    t.erase(std::unique(t.begin(), t.end()), t.end());
+    return t;
+}
+
+// The rows the charts follow: the recommended product (or the first) in every pattern.
+std::vector<const DesignRow*> chart_rows(const DesignResult& result) {
+    const DesignRow* best = result.best();
+    const std::string& drain = best ? best->drain : result.rows.front().drain;
+    std::vector<const DesignRow*> rows;
+    for (const auto& r : result.rows)
+        if (r.drain == drain) rows.push_back(&r);
+    return rows;
+}
+
+SpacingSeries spacing_series(const Site& site, const DesignRow& row) {
+    SpacingSeries series{row.pattern, {}, {}};
+    Site varied = site;
+    varied.products = {site.product(row.drain)};
+    varied.range.patterns = {row.pattern};
+    for (int i = 0; i <= 24; ++i) {
+        varied.criterion.deadline_s = site.criterion.deadline_s * (0.3 + 1.7 * i / 24.0);
+        const SpacingLimit limit = spacing_limit(varied, varied.products.front(), row.pattern);
+        if (!limit.feasible) continue;
+        series.deadline_s.push_back(varied.criterion.deadline_s);
+        series.spacing_limit_m.push_back(limit.spacing_m);
+    }
+    return series;
+}
+}  // namespace
+
+Curve curve_of(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m,
+               const std::vector<double>& times_s) {
+    const auto model = make_cell_model(site, product, pattern, spacing_m);
+    return {product.name, pattern, spacing_m, model->method(), degree_curve(*model, times_s)};
+}
+
+DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& options) {
+    DesignRecord record;
+    record.scenario = &s;
+    const Site& site = s.site;
+    record.result = run_design(site);
+    for (const auto& row : record.result.rows)
+        for (const auto& w : row.warnings)
+            record.warnings.push_back(row.drain + " / " + std::string(to_string(row.pattern)) + ": " + w);
+    if (options.charts)
+        for (const DesignRow* row : chart_rows(record.result)) {
+            record.chart_curves.push_back(curve_of(site, site.product(row->drain), row->pattern, row->spacing_m,
+                                                   chart_times(site.criterion.deadline_s, options.log_time)));
+            record.spacing_vs_time.push_back(spacing_series(site, *row));
+        }
+    record.assumptions = assumptions(site);
+    record.method_notes = method_notes(site);
+    return record;
+}
+
+std::string criterion_text(const Site& site) {
+    const double deadline = days(site.criterion.deadline_s);
+    if (const auto* r = site.criterion.residual())
+        return "residual settlement at most " + fixed(r->limit_m * 1000.0, 0) + " mm after day " + fixed(deadline, 0) +
+               (r->service_s ? " over " + fixed(days(*r->service_s), 0) + " days of service"
+                             : std::string(" (to the end of primary consolidation)"));
+    return "U = " + fixed(100.0 * site.criterion.degree()->degree, 1) + " % by day " + fixed(deadline, 0);
+}
+
+std::string criterion_label(const Site& site) {
+    if (const auto* r = site.criterion.residual()) return "residual ≤ " + fixed(r->limit_m * 1000.0, 0) + " mm";
+    return "U ≥ " + fixed(100.0 * site.criterion.degree()->degree, 0) + " %";
+}
+
+std::string recommendation(const DesignRecord& record) {
+    const Site& site = record.site();
+    const DesignResult& result = record.result;
+    const DesignRow* best = result.best();
+    const std::string range = fixed(site.range.bounds.min_m, 2) + "–" + fixed(site.range.bounds.max_m, 2) + " m";
+    if (!best)
+        return "No drain product and pattern meets the criterion (" + criterion_text(site) + ") within spacings of " +
+               range + ". Rows marked * are evaluated at the minimum spacing.";
+    const double deadline = days(site.criterion.deadline_s);
+    std::string text = "Recommended: drain " + best->drain + " in a " + std::string(to_string(best->pattern)) +
+                       " pattern at " + fixed(best->spacing_m, 2) + " m spacing (" +
+                       (result.ranking == RankingBasis::cost_per_hectare ? "lowest cost per hectare"
+                                                                          : "fewest drain metres per hectare") +
+                       "), reaching U = " + fixed(100.0 * best->at_deadline.combined, 1) + " % at day " +
+                       fixed(deadline, 0);
+    if (best->time_to_target_s) text += " and meeting the criterion at day " + fixed(days(*best->time_to_target_s), 1);
+    text += ".";
+    if (best->residual_settlement_m) {
+        const auto* r = site.criterion.residual();
+        text += " Settlement: " + fixed(*best->settlement_at_deadline_m * 1000.0, 0) + " mm of " +
+                fixed(*best->ultimate_settlement_m * 1000.0, 0) + " mm by the deadline, " +
+                fixed(*best->residual_settlement_m * 1000.0, 0) + " mm still to come" +
+                (r && r->service_s ? " within the " + fixed(days(*r->service_s), 0) + "-day service period"
+                                   : std::string(" to the end of primary consolidation")) +
+                ".";
+    }
+    if (best->limited_by_maximum)
+        text += " The criterion is met even at the largest spacing considered; a wider spacing may also work.";
+    return text;
+}
+
+std::vector<std::string> assumptions(const Site& site) {
+    std::vector<std::string> out;
+    const Ground& g = site.ground;
+    const bool numerical = site.method.method == CellMethod::numerical;
+    const std::size_t layers = g.profile ? g.profile->layers.size() : 1;
+    if (g.layered_flow())
+        out.push_back("Consolidation coefficients layer by layer (" + std::to_string(layers) +
+                      " layers; a layer without its own cv or ch takes the clay's).");
+    else
+        out.push_back("Uniform consolidation coefficients (cv, ch" + std::string(numerical ? "" : ", kh") +
+                      ") over the clay" + (layers > 1 ? " (" + std::to_string(layers) + " layers for settlement only)." : "."));
+    const double l = site.installation.drain_length_m, h = g.thickness_m;
+    if (std::fabs(l - h) <= 1e-9 * h)
+        out.push_back("Drains fully penetrating the clay (" + fixed(l, 2) + " m).");
+    else
+        out.push_back("Drains stopping " + fixed(h - l, 2) + " m short of the clay base (" + fixed(l, 2) + " m of " +
+                      fixed(h, 2) + " m).");
+    if (!site.loading) {
+        out.push_back("The load is applied at once at day 0.");
+    } else {
+        out.push_back("Load applied in " + std::to_string(site.loading->stages.size()) +
+                      " stage(s) as tabled in the inputs; degrees relative to the final permanent load.");
+        if (site.loading->surcharge)
+            out.push_back(numerical ? "Surcharge removal unloads the numerical cell with the same mv (no separate "
+                                      "rebound stiffness)."
+                                    : "After the surcharge is removed the settlement is held at its value at removal "
+                                      "until the permanent-load history catches up (rebound ignored).");
+    }
+    out.push_back(numerical ? "Numerical unit cell: coupled radial and vertical flow, free strain, the drain as a "
+                              "conduit of capacity qw."
+                            : "Closed form: equal-strain radial flow, vertical and radial flow combined by Carrillo's rule.");
+    if (site.has_settlement())
+        out.push_back(g.profile ? "Settlement by one-dimensional e–log σ' (or mv) per layer over " +
+                                      std::to_string(g.profile->slices_per_layer) + " slices per layer."
+                                : "Settlement as mv × load × clay thickness.");
+    else
+        out.push_back("No settlement model: degrees only.");
+    if (const auto* r = site.criterion.residual())
+        out.push_back(r->service_s ? "Residual settlement counted over the " + fixed(days(*r->service_s), 0) +
+                                         "-day service period after the deadline only."
+                                   : "Residual settlement counted to the end of primary consolidation.");
+    out.push_back("Linear, small-strain consolidation with constant coefficients; no secondary compression or creep.");
+    return out;
+}
+
+std::vector<std::string> method_notes(const Site& site) {
+    const bool numerical = site.method.method == CellMethod::numerical;
+    std::vector<std::string> notes;
+    if (numerical) {
+        notes.push_back(
+            "Method: numerical unit cell (axisymmetric finite volumes, coupled radial and vertical flow, the drain as a "
+            "conduit of capacity qw, layered cv/ch/mv, drains that may stop short of the clay base; backward Euler). "
+            "Uv is the same cell without a drain; Ur is the radial degree that Carrillo's rule would need to give U. "
+            "μ is the depth mean of μ(z) of Hansbo (1981) with each layer's kh = ch·mv·γw.");
+        if (site.ground.profile)
+            notes.push_back("Storage mv of an e–log layer: the secant under the final permanent load (secant_mv).");
+    } else {
+        notes = {
+            "Vertical flow: Terzaghi (1925), average degree Uv(Tv), Tv = cv·t/d², d = H (one drained face) or H/2 (two).",
+            "Radial flow: Hansbo (1981), Ur = 1 − exp(−8Th/μ), Th = ch·t/De², with smear (ln(n/s) + (kh/ks)·ln s − 0.75) "
+            "and well resistance π·z(2l − z)·kh/qw; for other smear profiles the equal-strain integral (profile shapes "
+            "after Walker & Indraratna 2006); Barron (1948) for the ideal drain.",
+            "Well resistance: the radial degree is the mean of the local degree Ur(z) over the drain, with z from the "
+            "nearest outlet (Gauss–Legendre quadrature); μ is the depth mean of μ(z).",
+            "Combination: Carrillo (1942), 1 − U = (1 − Uv)(1 − Ur).",
+        };
+        if (site.ground.kh_source == KhSource::from_ch_and_mv) notes.push_back("kh = ch·mv·γw (γw = 9.81 kN/m³).");
+    }
+    notes.push_back("Equivalent drain diameter: Hansbo (1979) 2(a+b)/π, Rixner et al. (1986) (a+b)/2 or Long & Covo "
+                    "(1994) 0.5a + 0.7b; mandrel by equal area; influence diameter 1.05 s (triangular) or 1.128 s "
+                    "(square), Barron (1948).");
+    notes.push_back(std::string("Limiting spacing: the largest spacing at which the criterion is met at the deadline, ") +
+                    (site.criterion.residual() ? "by a scan of the spacing increments refined by bisection"
+                                               : "solved with TOMS 748 (Alefeld, Potra & Shi 1995)") +
+                    "; the chosen spacing is rounded down to the increment.");
+    if (site.loading)
+        notes.push_back("Staged loading: " +
+                        std::string(numerical ? "the load history drives the numerical cell directly"
+                                              : "linear superposition of the unit cell's response to each load increment, "
+                                                "ramps integrated by adaptive Gauss–Kronrod quadrature (checked against "
+                                                "Olson 1977)") +
+                        "; degrees are relative to the final permanent load.");
+    if (site.has_settlement())
+        notes.push_back("Settlement: one-dimensional e–log σ' (Cc above σ'p, Cr below) or mv per layer, summed over "
+                        "slices; settlement at a time is U × the final primary settlement.");
+    return notes;
+}
+
+const std::vector<std::string>& cautions() {
+    static const std::vector<std::string> text{
+        "Results are estimates from idealised theory (see the assumptions); real ground departs from it.",
+        "Every parameter (cv, ch, kh, mv, smear extent and permeability, discharge capacity after installation) must "
+        "come from site investigation and testing for this site.",
+        "Settlement and pore pressure monitoring during construction is required to confirm the design and to adjust it.",
+        "Local codes, standards and the judgement of a licensed engineer govern over this output.",
+    };
+    return text;
+}
+
+}  // namespace wickgrid::results

@@ -1,0 +1,73 @@
+#pragma once
+// The result model: everything a writer shows, already computed — the design rows, the curves and
+// series the charts draw, the studies, warnings, the assumptions (derived from what was computed),
+// the method notes and the cautions. Writers format a DesignRecord; they never call the engine.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "scenario/scenario.hpp"
+#include "wickgrid/design.hpp"
+#include "wickgrid/studies.hpp"
+
+namespace wickgrid::results {
+
+// A degree–time (and settlement) curve of one cell.
+struct Curve {
+    std::string drain;
+    Pattern pattern = Pattern::triangular;
+    double spacing_m = 0.0;
+    CellMethod method = CellMethod::closed_form;
+    std::vector<CurvePoint> points;
+};
+
+// The largest spacing meeting the criterion against the time available (design chart).
+struct SpacingSeries {
+    Pattern pattern = Pattern::triangular;
+    std::vector<double> deadline_s;
+    std::vector<double> spacing_limit_m;
+};
+
+struct Studies {
+    std::optional<std::vector<TornadoRow>> tornado;
+    std::optional<std::vector<GridCell>> grid;
+    GridAxis grid_x, grid_y;
+    std::optional<MonteCarloResult> monte_carlo;
+    std::optional<MonteCarloSpec> monte_carlo_spec;
+};
+
+struct DesignRecord {
+    const scenario::Scenario* scenario = nullptr;  // the inputs, echoed (title, file, drains as given)
+    DesignResult result;
+    std::vector<Curve> chart_curves;  // the recommended product (or the first) in every pattern
+    std::vector<SpacingSeries> spacing_vs_time;
+    Studies studies;
+    std::vector<std::string> warnings;
+    std::vector<std::string> assumptions;
+    std::vector<std::string> method_notes;
+
+    const Site& site() const { return scenario->site; }
+};
+
+struct RecordOptions {
+    bool charts = false;    // curves and the spacing–time series for the report
+    bool log_time = false;  // chart times spaced logarithmically
+};
+
+// Runs the design of a scenario and assembles its record.
+DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& options = {});
+
+// The curve of one product × pattern × spacing on the site, at the given times.
+Curve curve_of(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m,
+               const std::vector<double>& times_s);
+
+// Text derived from the site and what was computed.
+std::vector<std::string> assumptions(const Site& site);
+std::vector<std::string> method_notes(const Site& site);
+std::string criterion_text(const Site& site);   // "U = 90.0 % by day 180", "residual settlement at most …"
+std::string criterion_label(const Site& site);  // short: "U ≥ 90 %", "residual ≤ 60 mm"
+std::string recommendation(const DesignRecord& record);
+// The cautions every output carries.
+const std::vector<std::string>& cautions();
+
+}  // namespace wickgrid::results
