@@ -53,16 +53,15 @@ BENCHMARK(BM_SpacingSolverReused);
 // The Monte Carlo case: 1,000,000 samples of (ch, smear ratios, qw), a full largest-spacing
 // search for each of two patterns, on all cores. Wall time.
 static void BM_MonteCarloMillion(benchmark::State& state) {
-    const DesignInput d = fixtures::typical_design(180.0);
+    const Site d = fixtures::typical_design(180.0);
     const DesignResult base = run_design(d);
     MonteCarloSpec spec;
     spec.samples = 1000000;
     spec.inputs = {
-        {StudyInput::ch, {DistributionKind::lognormal, d.clay.ch_m2_per_s, 0.3 * d.clay.ch_m2_per_s}},
+        {StudyInput::ch, {DistributionKind::lognormal, *d.ground.ch_m2_per_s, 0.3 * *d.ground.ch_m2_per_s}},
         {StudyInput::smear_diameter_ratio, {DistributionKind::uniform, 1.5, 3.0}},
         {StudyInput::smear_permeability_ratio, {DistributionKind::triangular, 2.0, 3.0, 5.0}},
-        {StudyInput::discharge_capacity,
-         {DistributionKind::lognormal, d.products[0].discharge_capacity_m3_per_s, 0.3 * d.products[0].discharge_capacity_m3_per_s}}};
+        {StudyInput::discharge_capacity_factor, {DistributionKind::lognormal, 1.0, 0.3}}};
     for (auto _ : state) benchmark::DoNotOptimize(monte_carlo(d, base, spec));
 }
 BENCHMARK(BM_MonteCarloMillion)->Iterations(2)->Unit(benchmark::kSecond)->UseRealTime();
@@ -73,3 +72,18 @@ static void BM_NumericalTo99(benchmark::State& state) {
     for (auto _ : state) benchmark::DoNotOptimize(NumericalCell(spec, {}).time_to_degree_s(0.99));
 }
 BENCHMARK(BM_NumericalTo99)->Unit(benchmark::kMillisecond);
+
+// A design through the cell-model interface: one product, two patterns, closed form under one
+// instantaneous load (fast path) and under a staged load (generic search on cell models).
+static void BM_DesignInstantaneous(benchmark::State& state) {
+    const Site d = fixtures::typical_design(180.0);
+    for (auto _ : state) benchmark::DoNotOptimize(run_design(d));
+}
+BENCHMARK(BM_DesignInstantaneous)->Unit(benchmark::kMicrosecond);
+
+static void BM_DesignStaged(benchmark::State& state) {
+    Site d = fixtures::typical_design(180.0);
+    d.loading = LoadHistory{{{0.0, units::days_to_seconds(30.0), 40.0}, {units::days_to_seconds(60.0), units::days_to_seconds(90.0), 40.0}}, std::nullopt};
+    for (auto _ : state) benchmark::DoNotOptimize(run_design(d));
+}
+BENCHMARK(BM_DesignStaged)->Unit(benchmark::kMillisecond);

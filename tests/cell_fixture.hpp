@@ -3,6 +3,7 @@
 // of a typical order, for tests only).
 #include "wickgrid/cell.hpp"
 #include "wickgrid/design.hpp"
+#include "wickgrid/site.hpp"
 #include "wickgrid/geometry.hpp"
 #include "wickgrid/permeability.hpp"
 #include "wickgrid/units.hpp"
@@ -28,21 +29,26 @@ inline CellSpec typical_cell(Pattern pattern = Pattern::triangular, double spaci
     return spec;
 }
 
-// A one-product design around typical_cell (invented values, tests and benchmarks only).
-inline DesignInput typical_design(double deadline_days = 240.0, double cost_per_m = 1.1) {
+// A one-product site around typical_cell (invented values, tests and benchmarks only).
+inline Site typical_design(double deadline_days = 240.0, double cost_per_m = 1.1) {
     const CellSpec cell = typical_cell();
-    DesignInput d;
-    d.clay = cell.clay;
-    d.mv_m2_per_kN = 0.0008;
-    d.installation = cell.drain;
-    d.mandrel_diameter_m = mandrel_equivalent_diameter_m(0.120, 0.060);
-    d.smear_diameter_ratio = 2.0;
+    Site d;
+    d.ground.thickness_m = cell.clay.thickness_m;
+    d.ground.cv_m2_per_s = cell.clay.cv_m2_per_s;
+    d.ground.ch_m2_per_s = cell.clay.ch_m2_per_s;
+    d.ground.mv_m2_per_kN = 0.0008;
+    d.ground.kh_source = KhSource::from_ch_and_mv;
+    d.ground.drainage = cell.clay.drainage;
+    d.installation.mandrel_diameter_m = mandrel_equivalent_diameter_m(0.120, 0.060);
+    d.installation.smear_diameter_ratio = 2.0;
+    d.installation.smear_permeability_ratio = cell.drain.smear_permeability_ratio;
+    d.installation.drain_length_m = cell.drain.length_m;
+    d.installation.outlets = cell.drain.outlets;
     d.products = {{"band-100x4", cell.drain.equivalent_diameter_m, cell.drain.discharge_capacity_m3_per_s, cost_per_m}};
-    d.patterns = {Pattern::triangular, Pattern::square};
-    d.target_degree = 0.9;
-    d.deadline_s = units::days_to_seconds(deadline_days);
-    d.bounds = {0.6, 4.0};
-    d.increment_m = 0.05;
+    d.range.patterns = {Pattern::triangular, Pattern::square};
+    d.criterion = {DegreeTarget{0.9}, units::days_to_seconds(deadline_days)};
+    d.range.bounds = {0.6, 4.0};
+    d.range.increment_m = 0.05;
     return d;
 }
 

@@ -33,10 +33,11 @@ TEST(Cli, DesignJsonAgreesWithEngine) {
         ASSERT_EQ(r.exit_code, 0) << file << r.err;
         const json doc = json::parse(r.out);
         const auto s = scenario::load_scenario(source(file));
-        const DesignInput input = s.design_input();
+        const Site& input = s.site;
+        const double target = input.criterion.degree()->degree;
         ASSERT_EQ(doc["schema"], 1);
-        EXPECT_EQ(doc["target"]["degree"], s.target_degree);
-        EXPECT_EQ(doc["designs"].size(), s.drains.size() * s.patterns.size());
+        EXPECT_EQ(doc["target"]["degree"], target);
+        EXPECT_EQ(doc["designs"].size(), s.drains.size() * input.range.patterns.size());
         for (const auto& row : doc["designs"]) {
             const auto product = std::find_if(input.products.begin(), input.products.end(),
                                               [&](const auto& p) { return p.name == row["drain"]; });
@@ -44,22 +45,22 @@ TEST(Cli, DesignJsonAgreesWithEngine) {
             const Pattern pattern = row["pattern"] == "square" ? Pattern::square : Pattern::triangular;
             ASSERT_TRUE(row["feasible"].get<bool>()) << file;
             const double spacing = row["spacing_m"];
-            const UnitCell cell(product_cell(input, *product, pattern, spacing));
-            const Degrees d = cell.at(input.deadline_s);
+            const UnitCell cell(closed_form_cell(input, *product, pattern, spacing));
+            const Degrees d = cell.at(input.criterion.deadline_s);
             EXPECT_NEAR(row["degree"].get<double>(), d.combined, 1e-12) << file;
             EXPECT_NEAR(row["degree_vertical"].get<double>(), d.vertical, 1e-12);
             EXPECT_NEAR(row["degree_radial"].get<double>(), d.radial, 1e-12);
-            EXPECT_GE(d.combined, s.target_degree);  // the chosen spacing meets the target
+            EXPECT_GE(d.combined, target);  // the chosen spacing meets the target
             EXPECT_NEAR(row["influence_diameter_m"].get<double>(), cell.influence_diameter_m(), 1e-12);
             EXPECT_NEAR(row["time_to_target_days"].get<double>(),
-                        units::seconds_to_days(time_to_degree_s(cell, s.target_degree)), 1e-6);
-            const auto limit = largest_spacing(product_cell(input, *product, pattern, spacing), s.target_degree,
-                                               input.deadline_s, input.bounds);
+                        units::seconds_to_days(time_to_degree_s(cell, target)), 1e-6);
+            const auto limit = largest_spacing(closed_form_cell(input, *product, pattern, spacing), target,
+                                               input.criterion.deadline_s, input.range.bounds);
             EXPECT_NEAR(row["spacing_limit_m"].get<double>(), limit.spacing_m, 1e-9);
-            EXPECT_NEAR(spacing, round_down_spacing(limit.spacing_m, s.increment_m, s.spacing.min_m), 1e-12);
+            EXPECT_NEAR(spacing, round_down_spacing(limit.spacing_m, input.range.increment_m, input.range.bounds.min_m), 1e-12);
             EXPECT_NEAR(row["drains_per_hectare"].get<double>(), drains_per_hectare(pattern, spacing), 1e-9);
             EXPECT_NEAR(row["drain_length_per_hectare_m"].get<double>(),
-                        drains_per_hectare(pattern, spacing) * s.drain_length_m, 1e-6);
+                        drains_per_hectare(pattern, spacing) * input.installation.drain_length_m, 1e-6);
             if (product->cost_per_m)
                 EXPECT_NEAR(row["cost_per_hectare"].get<double>(),
                             row["drain_length_per_hectare_m"].get<double>() * *product->cost_per_m, 1e-6);
@@ -162,7 +163,8 @@ TEST(Cli, InfeasibleDesignExitsOneAndStillWrites) {
     EXPECT_TRUE(fs::exists(dir / "design.md"));
     const CommandRun table = run("design " + file.string());
     EXPECT_EQ(table.exit_code, 1);
-    EXPECT_NE(table.out.find("No drain product and pattern reaches U = 90 %"), std::string::npos) << table.out;
+    EXPECT_NE(table.out.find("No drain product and pattern meets the criterion (U = 90.0 % by day 15)"), std::string::npos)
+        << table.out;
     fs::remove_all(file.parent_path());
 }
 
@@ -175,8 +177,7 @@ TEST(Cli, CurveAtDaysMatchesEngine) {
     EXPECT_EQ(doc["pattern"], "square");
     EXPECT_EQ(doc["spacing_m"], 1.5);
     const auto s = scenario::load_scenario(source("demo/scenario.yaml"));
-    const DesignInput input = s.design_input();
-    const UnitCell cell(product_cell(input, input.products[0], Pattern::square, 1.5));
+    const UnitCell cell(closed_form_cell(s.site, s.site.products[0], Pattern::square, 1.5));
     ASSERT_EQ(doc["points"].size(), 3u);
     for (std::size_t i = 0; i < 3; ++i) {
         const double days = 30.0 * (i + 1);
@@ -188,7 +189,8 @@ TEST(Cli, CurveAtDaysMatchesEngine) {
     }
     const CommandRun table = run("curve " + source("demo/scenario.yaml") + " --drain band-100x4 --pattern square --spacing 1.5");
     EXPECT_EQ(table.exit_code, 0);
-    EXPECT_EQ(std::count(table.out.begin(), table.out.end(), '\n'), 2 + 2 + 31);  // title, blank, header, rule, rows
+    // title, blank, header, rule, rows, caution
+    EXPECT_EQ(std::count(table.out.begin(), table.out.end(), '\n'), 2 + 2 + 31 + 1);
     const CommandRun csv = run("curve " + source("demo/scenario.yaml") +
                         " --drain band-100x4 --pattern square --spacing 1.5 --points 5 --until-days 100 --csv");
     EXPECT_EQ(csv.out.rfind("time_days,degree_vertical,degree_radial,degree\n0,0,0,0\n25,", 0), 0u) << csv.out;

@@ -18,16 +18,20 @@ TEST(NumericalMethod, LayeredPartialDesignMeetsTheTarget) {
     const json doc = json::parse(r.out);
     EXPECT_EQ(doc["method"], "numerical");
     const auto s = scenario::load_scenario(file);
-    const DesignInput input = s.design_input();
-    ASSERT_EQ(input.numerical_layers.size(), 2u);
-    EXPECT_NEAR(input.numerical_layers[1].ch_m2_per_s * units::seconds_per_year, 4.0, 1e-12);
+    const Site& input = s.site;
+    const NumericalCellSpec spec = numerical_cell_spec(input, input.products[0], Pattern::square, 1.5);
+    ASSERT_EQ(spec.layers.size(), 2u);
+    EXPECT_NEAR(spec.layers[1].ch_m2_per_s * units::seconds_per_year, 4.0, 1e-12);
     for (const auto& row : doc["designs"]) {
         const Pattern p = row["pattern"] == "square" ? Pattern::square : Pattern::triangular;
+        // The degree of the numerical cell itself (its own march, interpolated at the deadline).
         auto degree = [&](double spacing) {
-            return NumericalCell(numerical_cell(input, input.products[0], p, spacing), input.numerical_mesh)
-                .solve({input.deadline_s})
-                .front()
-                .degree_settlement;
+            const NumericalCell cell(numerical_cell_spec(input, input.products[0], p, spacing), input.method.mesh);
+            const auto states = cell.march(input.criterion.deadline_s);
+            std::size_t k = 0;
+            while (states[k + 1].time_s <= input.criterion.deadline_s) ++k;
+            const double w = (input.criterion.deadline_s - states[k].time_s) / (states[k + 1].time_s - states[k].time_s);
+            return states[k].degree_settlement + w * (states[k + 1].degree_settlement - states[k].degree_settlement);
         };
         EXPECT_NEAR(degree(row["spacing_m"].get<double>()), row["degree"].get<double>(), 1e-12);
         EXPECT_GE(row["degree"].get<double>(), 0.8);
@@ -39,7 +43,7 @@ TEST(NumericalMethod, FullDrainsUniformClayCloseToTheClosedForm) {
     const std::string text = slurp(source("demo/scenario.yaml"));
     const auto analytical = scenario::parse_scenario(text, "a.yaml");
     const auto numerical = scenario::parse_scenario(text + "\nmethod: numerical\n", "n.yaml");
-    const auto a = run_design(analytical.design_input()), n = run_design(numerical.design_input());
+    const auto a = run_design(analytical.site), n = run_design(numerical.site);
     for (std::size_t i = 0; i < a.rows.size(); ++i)
         EXPECT_NEAR(n.rows[i].spacing_limit_m / a.rows[i].spacing_limit_m, 1.0, 0.03) << i;  // equal vs free strain
 }

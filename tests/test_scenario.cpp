@@ -45,13 +45,13 @@ struct ErrorRow {
 TEST(Scenario, DemoLoadsWithSIUnits) {
     const Scenario s = parse_scenario(demo_text(), "demo.yaml");
     EXPECT_EQ(s.drains.size(), 2u);
-    EXPECT_NEAR(s.clay.cv_m2_per_s * units::seconds_per_year, 1.2, 1e-12);
-    EXPECT_NEAR(s.drains[0].equivalent_diameter_m, 0.208 / 3.141592653589793, 1e-12);
-    EXPECT_NEAR(s.deadline_days, 180.0, 0);
-    EXPECT_FALSE(s.kh_given);
-    EXPECT_NEAR(s.clay.kh_m_per_s, s.clay.ch_m2_per_s * 0.0008 * 9.81, 1e-20);
-    EXPECT_EQ(s.patterns.size(), 2u);
-    EXPECT_EQ(s.mark_of("clay.thickness_m").line, line_of(demo_text(), "thickness_m: 14.0"));
+    EXPECT_NEAR(*s.site.ground.cv_m2_per_s * units::seconds_per_year, 1.2, 1e-12);
+    EXPECT_NEAR(s.site.products[0].equivalent_diameter_m, 0.208 / 3.141592653589793, 1e-12);
+    EXPECT_NEAR(units::seconds_to_days(s.site.criterion.deadline_s), 180.0, 1e-12);
+    EXPECT_EQ(s.site.ground.kh_source, KhSource::from_ch_and_mv);
+    EXPECT_NEAR(s.site.ground.uniform_clay().kh_m_per_s, *s.site.ground.ch_m2_per_s * 0.0008 * 9.81, 1e-20);
+    EXPECT_EQ(s.site.range.patterns.size(), 2u);
+    EXPECT_EQ(s.mark_of("clay.thickness_m")->line, line_of(demo_text(), "thickness_m: 14.0"));
 }
 
 TEST(Scenario, EveryErrorIsLocatedAndNamed) {

@@ -13,7 +13,7 @@
 using namespace wickgrid;
 
 namespace {
-DesignInput typical_design() { return fixtures::typical_design(); }
+Site typical_design() { return fixtures::typical_design(); }
 
 const DesignRow& row_of(const DesignResult& r, Pattern p) {
     for (const auto& row : r.rows)
@@ -23,7 +23,7 @@ const DesignRow& row_of(const DesignResult& r, Pattern p) {
 }  // namespace
 
 TEST(Studies, TornadoEqualsDirectDesignRuns) {
-    const DesignInput base = typical_design();
+    const Site base = typical_design();
     const DesignResult result = run_design(base);
     const std::vector<TornadoInput> inputs{
         {StudyInput::ch, units::per_year_to_per_second(1.5), units::per_year_to_per_second(4.0)},
@@ -39,14 +39,14 @@ TEST(Studies, TornadoEqualsDirectDesignRuns) {
         EXPECT_EQ(row_of(high, t.pattern).spacing_limit_m, t.at_high.spacing_m);
     }
     // Sorted by swing within each pattern; ch moves kh too (kh derived from mv).
-    EXPECT_GE(rows[0].swing_m, rows[1].swing_m);
-    EXPECT_GE(rows[1].swing_m, rows[2].swing_m);
-    const DesignInput fast = with_input(base, StudyInput::ch, units::per_year_to_per_second(4.0));
-    EXPECT_NEAR(fast.clay.kh_m_per_s, units::per_year_to_per_second(4.0) * 0.0008 * 9.81, 1e-20);
+    EXPECT_GE(*rows[0].swing_m, *rows[1].swing_m);
+    EXPECT_GE(*rows[1].swing_m, *rows[2].swing_m);
+    const Site fast = with_input(base, StudyInput::ch, units::per_year_to_per_second(4.0));
+    EXPECT_NEAR(fast.ground.uniform_clay().kh_m_per_s, units::per_year_to_per_second(4.0) * 0.0008 * 9.81, 1e-20);
 }
 
 TEST(Studies, GridEqualsDirectDesignRuns) {
-    const DesignInput base = typical_design();
+    const Site base = typical_design();
     const GridAxis x{StudyInput::smear_permeability_ratio, 1.0, 6.0, 4};
     const GridAxis y{StudyInput::smear_diameter_ratio, 1.5, 4.0, 3};
     const auto cells = grid_study(base, x, y);
@@ -59,11 +59,11 @@ TEST(Studies, GridEqualsDirectDesignRuns) {
 }
 
 TEST(MonteCarlo, DegenerateDistributionsGiveExactlyZeroOrOne) {
-    const DesignInput base = typical_design();
+    const Site base = typical_design();
     const DesignResult result = run_design(base);
     MonteCarloSpec spec;
     spec.samples = 3000;
-    spec.inputs = {{StudyInput::ch, {DistributionKind::normal, base.clay.ch_m2_per_s, 0.0}},
+    spec.inputs = {{StudyInput::ch, {DistributionKind::normal, *base.ground.ch_m2_per_s, 0.0}},
                    {StudyInput::smear_permeability_ratio, {DistributionKind::uniform, 3.0, 3.0}},
                    {StudyInput::smear_diameter_ratio, {DistributionKind::triangular, 2.0, 2.0, 2.0}}};
     const double limit = row_of(result, Pattern::triangular).spacing_limit_m;
@@ -82,9 +82,9 @@ TEST(MonteCarlo, DegenerateDistributionsGiveExactlyZeroOrOne) {
 TEST(MonteCarlo, MatchesQuadratureOfTheSameProbability) {
     // Only ch is uncertain (lognormal): P(target at spacing s) = P(ch >= ch*), ch* the value at
     // which spacing s just reaches the target. Evaluated by Gauss–Kronrod quadrature of the pdf.
-    const DesignInput base = typical_design();
+    const Site base = typical_design();
     const DesignResult result = run_design(base);
-    const double mean = base.clay.ch_m2_per_s, sd = 0.3 * mean;
+    const double mean = *base.ground.ch_m2_per_s, sd = 0.3 * mean;
     MonteCarloSpec spec;
     spec.samples = 40000;
     spec.seed = 11;
@@ -94,11 +94,11 @@ TEST(MonteCarlo, MatchesQuadratureOfTheSameProbability) {
     const auto& row = mc.rows[1];
     ASSERT_EQ(row.pattern, Pattern::square);
     const auto degree_at_ch = [&](double ch) {
-        const DesignInput varied = with_input(base, StudyInput::ch, ch);
-        return UnitCell(product_cell(varied, varied.products[0], Pattern::square, *spec.spacing_m))
-                   .at(base.deadline_s)
+        const Site varied = with_input(base, StudyInput::ch, ch);
+        return UnitCell(closed_form_cell(varied, varied.products[0], Pattern::square, *spec.spacing_m))
+                   .at(base.criterion.deadline_s)
                    .combined -
-               base.target_degree;
+               base.criterion.degree()->degree;
     };
     std::uintmax_t iterations = 200;
     const auto root = boost::math::tools::toms748_solve(degree_at_ch, 0.2 * mean, 5.0 * mean,
@@ -115,14 +115,14 @@ TEST(MonteCarlo, MatchesQuadratureOfTheSameProbability) {
 }
 
 TEST(MonteCarlo, ReproducibleAndIndependentOfThreads) {
-    const DesignInput base = typical_design();
+    const Site base = typical_design();
     const DesignResult result = run_design(base);
     MonteCarloSpec spec;
     spec.samples = 5000;
     spec.seed = 42;
     spec.ch_cv_correlation = 0.7;
-    spec.inputs = {{StudyInput::ch, {DistributionKind::lognormal, base.clay.ch_m2_per_s, 0.3 * base.clay.ch_m2_per_s}},
-                   {StudyInput::cv, {DistributionKind::lognormal, base.clay.cv_m2_per_s, 0.3 * base.clay.cv_m2_per_s}},
+    spec.inputs = {{StudyInput::ch, {DistributionKind::lognormal, *base.ground.ch_m2_per_s, 0.3 * *base.ground.ch_m2_per_s}},
+                   {StudyInput::cv, {DistributionKind::lognormal, *base.ground.cv_m2_per_s, 0.3 * *base.ground.cv_m2_per_s}},
                    {StudyInput::discharge_capacity,
                     {DistributionKind::uniform, units::per_year_to_per_second(50), units::per_year_to_per_second(300)}}};
     spec.threads = 1;
@@ -136,12 +136,54 @@ TEST(MonteCarlo, ReproducibleAndIndependentOfThreads) {
         EXPECT_EQ(one.rows[k].reliability_spacing_m, two.rows[k].reliability_spacing_m);
         EXPECT_NE(one.rows[k].median_spacing_m, other.rows[k].median_spacing_m);
     }
-    std::size_t calls = 0;
-    monte_carlo(base, result, spec, [&](std::size_t done, std::size_t total) {
-        ++calls;
-        EXPECT_LE(done, total);
-    });
-    EXPECT_GE(calls, 1u);
+    // Progress: the total is the sample count, done never goes back, and the last report is complete.
+    std::vector<std::pair<std::size_t, std::size_t>> calls;
+    monte_carlo(base, result, spec, [&](std::size_t done, std::size_t total) { calls.emplace_back(done, total); });
+    ASSERT_FALSE(calls.empty());
+    for (std::size_t i = 0; i < calls.size(); ++i) {
+        EXPECT_EQ(calls[i].second, spec.samples);
+        if (i) {
+            EXPECT_GE(calls[i].first, calls[i - 1].first);
+        }
+    }
+    EXPECT_EQ(calls.back().first, spec.samples);
+}
+
+TEST(Studies, DischargeCapacityFactorKeepsProductsApart) {
+    Site base = typical_design();
+    DrainProductSpec wide = base.products[0];
+    wide.name = "band-100x6";
+    wide.discharge_capacity_m3_per_s *= 4.0;
+    base.products.push_back(wide);
+    const Site varied = with_input(base, StudyInput::discharge_capacity_factor, 0.5);
+    EXPECT_DOUBLE_EQ(varied.products[0].discharge_capacity_m3_per_s, 0.5 * base.products[0].discharge_capacity_m3_per_s);
+    EXPECT_DOUBLE_EQ(varied.products[1].discharge_capacity_m3_per_s, 0.5 * base.products[1].discharge_capacity_m3_per_s);
+    // One absolute qw for several products would erase their difference: refused by name.
+    try {
+        with_input(base, StudyInput::discharge_capacity, units::per_year_to_per_second(100.0));
+        FAIL();
+    } catch (const InputError& e) {
+        EXPECT_NE(std::string(e.what()).find("discharge_capacity_factor"), std::string::npos) << e.what();
+    }
+}
+
+TEST(Studies, TornadoEndWithoutFeasibleSpacingHasNoSwing) {
+    // A deadline so short that the low ch leaves no feasible spacing (invented values).
+    const Site base = fixtures::typical_design(60.0);
+    const DesignResult result = run_design(base);
+    const auto rows = tornado_study(base, result,
+                                    {{StudyInput::ch, units::per_year_to_per_second(0.5), units::per_year_to_per_second(8.0)},
+                                     {StudyInput::smear_permeability_ratio, 2.0, 4.0}});
+    bool seen = false;
+    for (const auto& t : rows)
+        if (t.input == StudyInput::ch) {
+            ASSERT_FALSE(t.at_low.feasible);
+            ASSERT_TRUE(t.at_high.feasible);
+            EXPECT_FALSE(t.swing_m.has_value());
+            seen = true;
+        }
+    EXPECT_TRUE(seen);
+    EXPECT_EQ(rows.front().input, StudyInput::ch);  // an infeasible end comes first
 }
 
 TEST(MonteCarlo, BadDistributionsAreNamed) {
