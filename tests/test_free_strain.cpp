@@ -20,8 +20,16 @@ TEST(BarronFreeStrain, ShortTimeExpansionMeetsSeries) {
 }
 
 TEST(BarronFreeStrain, WeightsSumToOne) {
-    // At t = 0 the series must represent the uniform initial pore pressure: Σ C_k = 1, so the
-    // truncated sum falls short by about the drained fraction at the switch.
+    // At Th = 0 the series is 1 − Σ C_k: the weights must represent the uniform initial pore pressure,
+    // Σ C_k = 1, short only by the modes beyond the cached roots (a tail that shrinks as n grows).
+    for (const double n : {4.0, 20.0, 60.0}) {
+        const double sum = 1.0 - BarronFreeStrain(n).degree_series(0.0);
+        EXPECT_NEAR(sum, 1.0, 1e-3) << n;
+        EXPECT_LE(sum, 1.0) << n;  // every weight is positive: a truncated sum falls short, never over
+    }
+}
+
+TEST(BarronFreeStrain, SeriesMeetsShortTimeExpansionAtTheSwitch) {
     const BarronFreeStrain cell(20.0);
     const double th = cell.short_time_limit();
     EXPECT_NEAR(cell.degree_series(th), cell.degree_short_time(th), 1e-9);

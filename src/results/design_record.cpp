@@ -51,8 +51,11 @@ SpacingSeries spacing_series(const Site& site, const DesignRow& row) {
     Site varied = site;
     varied.products = {site.product(row.drain)};
     varied.range.patterns = {row.pattern};
-    for (int i = 0; i <= 24; ++i) {
-        varied.criterion.deadline_s = site.criterion.deadline_s * (0.3 + 1.7 * i / 24.0);
+    std::vector<double> factors{1.0};  // the design's own deadline is among the points
+    for (int i = 0; i <= 24; ++i) factors.push_back(0.3 + 1.7 * i / 24.0);
+    std::sort(factors.begin(), factors.end());
+    for (const double factor : factors) {
+        varied.criterion.deadline_s = site.criterion.deadline_s * factor;
         const SpacingLimit limit = spacing_limit(varied, varied.products.front(), row.pattern);
         if (!limit.feasible) continue;
         series.deadline_s.push_back(varied.criterion.deadline_s);

@@ -1,0 +1,131 @@
+// Every command on every bundled scenario (demo/ and configs/): each exits 0 or 1 and writes whole
+// outputs, and the same quantity agrees wherever two commands show it — the design row, `curve` at
+// the chosen spacing and the deadline, and the report's chart data.
+#include <gtest/gtest.h>
+
+#include <nlohmann/json.hpp>
+
+#include "cli_helpers.hpp"
+#include "results/design_record.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/names.hpp"
+#include "wickgrid/units.hpp"
+
+using namespace wickgrid;
+using namespace wickgrid::cli_testing;
+using nlohmann::json;
+
+namespace {
+std::vector<std::string> bundled_scenarios() {
+    std::vector<std::string> files{"demo/scenario.yaml"};
+    for (const auto& entry : fs::directory_iterator(source("configs")))
+        if (entry.path().extension() == ".yaml") files.push_back("configs/" + entry.path().filename().string());
+    std::sort(files.begin(), files.end());
+    return files;
+}
+
+class EveryScenario : public ::testing::TestWithParam<std::string> {};
+
+std::string label(const ::testing::TestParamInfo<std::string>& info) {
+    std::string name = info.param;
+    for (char& c : name)
+        if (!std::isalnum(static_cast<unsigned char>(c))) c = '_';
+    return name;
+}
+}  // namespace
+
+TEST_P(EveryScenario, EveryCommandRunsAndWritesWholeOutputs) {
+    const std::string file = source(GetParam());
+    EXPECT_EQ(run("check " + file).exit_code, 0);
+    const fs::path dir = scratch();
+    const CommandRun design = run("design " + file + " --json --out " + (dir / "design").string());
+    ASSERT_TRUE(design.exit_code == 0 || design.exit_code == 1) << design.err;
+    const json doc = json::parse(design.out);
+    EXPECT_EQ(json::parse(slurp(dir / "design" / "design.json")), doc);
+    EXPECT_NE(slurp(dir / "design" / "design.md").find("## Cautions"), std::string::npos);
+    const std::string csv = slurp(dir / "design" / "design.csv");
+    EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), static_cast<long>(doc["designs"].size()) + 1);
+    const CommandRun report = run("report " + file + " --out " + (dir / "report").string());
+    EXPECT_EQ(report.exit_code, design.exit_code) << report.err;
+    const std::string html = slurp(dir / "report" / "report.html");
+    EXPECT_NE(html.find("</html>"), std::string::npos);
+    EXPECT_NE(html.find("site investigation"), std::string::npos);
+    const CommandRun verify = run("verify " + file + " --json --radial-cells 12 --vertical-cells 24 --points 6");
+    EXPECT_EQ(verify.exit_code, 0) << verify.err;
+    EXPECT_EQ(json::parse(verify.out)["rows"].size(), doc["designs"].size());
+    const CommandRun sweep = run("sweep " + file + " --json --samples 200");
+    EXPECT_TRUE(sweep.exit_code == 0 || sweep.exit_code == 5) << sweep.err;  // 5: a study the site cannot sample
+    if (sweep.exit_code == 0) {
+        EXPECT_EQ(json::parse(sweep.out)["target"], doc["target"]);
+    } else {
+        EXPECT_NE(sweep.err.find("Monte Carlo"), std::string::npos) << sweep.err;
+    }
+    const auto s = scenario::load_scenario(file);
+    if (s.site.has_settlement()) {
+        const auto& row = doc["designs"][0];
+        const CommandRun surcharge =
+            run("surcharge " + file + " --drain " + row["drain"].get<std::string>() + " --pattern " +
+                row["pattern"].get<std::string>() + " --spacing " + std::to_string(row["evaluated_spacing_m"].get<double>()) +
+                " --removal-day " + std::to_string(units::seconds_to_days(s.site.criterion.deadline_s)) + " --json");
+        EXPECT_EQ(surcharge.exit_code, 0) << surcharge.err;
+    }
+    fs::remove_all(dir);
+}
+
+TEST_P(EveryScenario, CurveAtTheDeadlineEqualsTheDesignRow) {
+    const std::string file = source(GetParam());
+    const CommandRun design = run("design " + file + " --json");
+    const json doc = json::parse(design.out);
+    const auto s = scenario::load_scenario(file);
+    const double deadline_days = units::seconds_to_days(s.site.criterion.deadline_s);
+    for (const auto& row : doc["designs"]) {
+        char spacing[64];
+        std::snprintf(spacing, sizeof spacing, "%.17g", row["evaluated_spacing_m"].get<double>());
+        char day[64];
+        std::snprintf(day, sizeof day, "%.17g", deadline_days);
+        const CommandRun curve = run("curve " + file + " --drain " + row["drain"].get<std::string>() + " --pattern " +
+                                     row["pattern"].get<std::string>() + " --spacing " + spacing + " --at-days 0," +
+                                     std::to_string(0.5 * deadline_days) + "," + day + " --json");
+        ASSERT_EQ(curve.exit_code, 0) << curve.err;
+        const json point = json::parse(curve.out)["points"][2];
+        EXPECT_NEAR(point["degree"].get<double>(), row["degree"].get<double>(), 1e-12) << row["drain"] << row["pattern"];
+        EXPECT_NEAR(point["degree_vertical"].get<double>(), row["degree_vertical"].get<double>(), 1e-12);
+        EXPECT_NEAR(point["degree_radial"].get<double>(), row["degree_radial"].get<double>(), 1e-12);
+        if (row["settlement_at_deadline_mm"].is_null()) {
+            EXPECT_TRUE(point["settlement_mm"].is_null());
+        } else {
+            EXPECT_NEAR(point["settlement_mm"].get<double>(), row["settlement_at_deadline_mm"].get<double>(), 1e-9);
+        }
+    }
+}
+
+TEST_P(EveryScenario, ReportChartDataEqualTheTable) {
+    const auto s = scenario::load_scenario(source(GetParam()));
+    const auto record = results::design_record(s, {true, false});
+    ASSERT_FALSE(record.chart_curves.empty());
+    for (const auto& curve : record.chart_curves) {
+        const DesignRow* row = nullptr;
+        for (const auto& r : record.result.rows)
+            if (r.drain == curve.drain && r.pattern == curve.pattern) row = &r;
+        ASSERT_NE(row, nullptr);
+        EXPECT_EQ(curve.spacing_m, row->spacing_m);
+        const auto at = std::find_if(curve.points.begin(), curve.points.end(),
+                                     [&](const CurvePoint& p) { return p.time_s == s.site.criterion.deadline_s; });
+        ASSERT_NE(at, curve.points.end()) << "the chart passes through the deadline";
+        EXPECT_NEAR(at->degrees.combined, row->at_deadline.combined, 1e-12);
+        EXPECT_NEAR(at->degrees.vertical, row->at_deadline.vertical, 1e-12);
+        if (row->settlement_at_deadline_m) {
+            EXPECT_NEAR(*at->settlement_m, *row->settlement_at_deadline_m, 1e-12);
+        }
+    }
+    // The design chart at the design's own deadline gives the table's limit (linear charts run to 2 × deadline).
+    for (const auto& series : record.spacing_vs_time)
+        for (std::size_t i = 0; i < series.deadline_s.size(); ++i)
+            if (std::fabs(series.deadline_s[i] - s.site.criterion.deadline_s) < 1e-6 * s.site.criterion.deadline_s)
+                for (const auto& r : record.result.rows)
+                    if (r.pattern == series.pattern && r.drain == record.chart_curves.front().drain && r.feasible) {
+                        EXPECT_NEAR(series.spacing_limit_m[i], r.spacing_limit_m, 1e-6);
+                    }
+}
+
+INSTANTIATE_TEST_SUITE_P(Bundled, EveryScenario, ::testing::ValuesIn(bundled_scenarios()), label);
