@@ -211,3 +211,21 @@ TEST(SiteModel, RangeChartDrawsNoBarFromAMissingEnd) {
     EXPECT_EQ(rects, 1u) << "one bar only: the input with both ends feasible";
     EXPECT_NE(svg.find("low: no feasible spacing"), std::string::npos);
 }
+
+TEST(SiteModel, EveryCsvQuotesPerRfc4180) {
+    // A drain name with a comma and quotes stays one field in the design and study CSVs.
+    const std::string text = edited("demo/scenario.yaml", "  - name: band-100x4\n", "  - name: 'band, \"A\" 100x4'\n");
+    const fs::path file = write_case(text);
+    const std::string quoted = "\"band, \"\"A\"\" 100x4\",";
+    const CommandRun design = run("design " + file.string() + " --csv");
+    ASSERT_EQ(design.exit_code, 0) << design.err;
+    EXPECT_NE(design.out.find("\n" + quoted + "triangular,"), std::string::npos) << design.out;
+    const CommandRun tornado = run("sweep " + file.string() + " --only tornado --csv");
+    ASSERT_EQ(tornado.exit_code, 0) << tornado.err;
+    EXPECT_NE(tornado.out.find("\n" + quoted + "triangular,"), std::string::npos) << tornado.out;
+    const CommandRun grid = run("sweep " + file.string() + " --only grid --csv");
+    EXPECT_NE(grid.out.find("\n" + quoted + "triangular,"), std::string::npos);
+    const CommandRun mc = run("sweep " + file.string() + " --only monte_carlo --csv --samples 100");
+    EXPECT_NE(mc.out.find("\n" + quoted + "triangular,"), std::string::npos) << mc.err;
+    fs::remove_all(file.parent_path());
+}

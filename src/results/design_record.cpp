@@ -190,7 +190,7 @@ std::vector<std::string> method_notes(const Site& site) {
             "Uv is the same cell without a drain; Ur is the radial degree that Carrillo's rule would need to give U. "
             "μ is the depth mean of μ(z) of Hansbo (1981) with each layer's kh = ch·mv·γw.");
         if (site.ground.profile)
-            notes.push_back("Storage mv of an e–log layer: the secant under the final permanent load (secant_mv).");
+            notes.push_back("Storage mv of an e–log layer: the secant under the final permanent load.");
     } else {
         notes = {
             "Vertical flow: Terzaghi (1925), average degree Uv(Tv), Tv = cv·t/d², d = H (one drained face) or H/2 (two).",
