@@ -52,7 +52,7 @@ std::vector<Column> all_design_columns(const Site& site) {
          [](Row r) {
              return r.time_to_target_s ? std::optional<double>(units::seconds_to_days(*r.time_to_target_s)) : std::nullopt;
          },
-         {}, "beyond 100 years"},
+         {}, "not reached"},
         {"drains_per_hectare", "drains/ha", "", 0, 1.0, [](Row r) { return std::optional<double>(r.drains_per_hectare); },
          {}, "-"},
         {"drain_length_per_hectare_m", "drain m/ha", "", 0, 1.0,
