@@ -4,6 +4,7 @@
 #include <filesystem>
 #include <fstream>
 #include <sstream>
+#include <stdexcept>
 #include <string>
 #include <sys/wait.h>
 #include <unistd.h>
@@ -48,6 +49,14 @@ inline fs::path write_case(const std::string& text) {
     const fs::path file = scratch() / "case.yaml";
     std::ofstream(file) << text;
     return file;
+}
+
+// A bundled file's text with one edit; throws if the text to replace is not there.
+inline std::string edited_copy(const std::string& relative, const std::string& from, const std::string& to) {
+    std::string text = slurp(source(relative));
+    const auto at = text.find(from);
+    if (at == std::string::npos) throw std::logic_error("edit not found: " + from);
+    return text.replace(at, from.size(), to);
 }
 
 inline std::string demo_with(const std::string& from, const std::string& to) {

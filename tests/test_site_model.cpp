@@ -18,12 +18,7 @@ using namespace wickgrid::cli_testing;
 using nlohmann::json;
 
 namespace {
-std::string edited(const std::string& relative, const std::string& from, const std::string& to) {
-    std::string text = slurp(source(relative));
-    const auto at = text.find(from);
-    if (at == std::string::npos) throw std::logic_error("edit not found: " + from);
-    return text.replace(at, from.size(), to);
-}
+const auto edited = edited_copy;
 }  // namespace
 
 TEST(SiteModel, CarrilloHoldsAtEveryCurvePointAfterSurchargeRemoval) {

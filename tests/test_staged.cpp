@@ -17,12 +17,7 @@ using nlohmann::json;
 namespace {
 const std::string staged = "configs/staged-surcharge.yaml";
 
-std::string staged_with(const std::string& from, const std::string& to) {
-    std::string text = slurp(source(staged));
-    const auto at = text.find(from);
-    if (at == std::string::npos) throw std::logic_error("edit not found: " + from);
-    return text.replace(at, from.size(), to);
-}
+std::string staged_with(const std::string& from, const std::string& to) { return edited_copy(staged, from, to); }
 }  // namespace
 
 TEST(Staged, DesignRowsAgreeWithEngineAndMeetTheResidualLimit) {

@@ -358,14 +358,22 @@ std::vector<NumericalPoint> NumericalCell::solve(const std::vector<double>& time
     return out;
 }
 
-std::vector<NumericalPoint> NumericalCell::march(double until_s) const {
-    require_non_negative("time (s)", until_s);
-    const Impl& m = *impl_;
+namespace {
+// The load events a march must stop at (ramp ends and jumps), then infinity.
+std::vector<double> event_stops(const NumericalCell::Impl& m) {
     std::vector<double> stops(m.breaks);
     for (const auto& j : m.jumps) stops.push_back(j.time_s);
     stops.push_back(std::numeric_limits<double>::infinity());
     std::sort(stops.begin(), stops.end());
     stops.erase(std::unique(stops.begin(), stops.end()), stops.end());
+    return stops;
+}
+}  // namespace
+
+std::vector<NumericalPoint> NumericalCell::march(double until_s) const {
+    require_non_negative("time (s)", until_s);
+    const Impl& m = *impl_;
+    const std::vector<double> stops = event_stops(m);
     Stepper stepper(m);
     Vector u = Vector::Zero(static_cast<long>(m.n));
     apply_jumps(m, u, -1.0, 0.0);
@@ -396,10 +404,7 @@ std::vector<NumericalPoint> NumericalCell::march(double until_s) const {
 double NumericalCell::time_to_degree_s(double target) const {
     require_open_unit("target degree of consolidation", target);
     const Impl& m = *impl_;
-    std::vector<double> stops(m.breaks);
-    for (const auto& j : m.jumps) stops.push_back(j.time_s);
-    stops.push_back(std::numeric_limits<double>::infinity());
-    std::sort(stops.begin(), stops.end());
+    const std::vector<double> stops = event_stops(m);
     Stepper stepper(m);
     Vector u = Vector::Zero(static_cast<long>(m.n));
     apply_jumps(m, u, -1.0, 0.0);
