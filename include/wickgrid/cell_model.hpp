@@ -96,4 +96,8 @@ std::optional<MethodRefusal> method_refusal(const Site& site);
 // need not be monotone over a service period). Throws EvaluationError when a root finder hits its cap.
 SpacingLimit spacing_limit(const Site& site, const DrainProductSpec& product, Pattern pattern);
 
+// How many spacing searches one study may run on this site (defaults.hpp: the fast path, the generic
+// closed-form search, the numerical cell), so that no accepted input runs for hours.
+double max_spacing_searches(const Site& site);
+
 }  // namespace wickgrid

@@ -8,6 +8,11 @@ namespace wickgrid {
 // Carrillo (1942): 1 − U = (1 − Uv)(1 − Ur), for degrees in [0, 1].
 double carrillo(double uv, double ur);
 
+// Largest ratio of the well-resistance term π·kh·l²/qw to the smear term μs taken as a design input
+// (realistic drains stay below about 100; far beyond it an input is wrong). Above it the depth
+// average throws InputError naming both.
+inline constexpr double max_well_resistance_ratio = 1e4;
+
 // Equal-strain radial degree averaged over the drain length: the mean over z in [0, l] of
 // 1 − exp(−8·Th/μ(z)), μ(z) = μs + w·z·(2l − z), w = π·kh/qw (Hansbo 1981), by Gauss–Legendre in z.
 // l is the length from the nearest outlet (the drain length with one outlet, half of it with two).

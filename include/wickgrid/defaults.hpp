@@ -39,4 +39,17 @@ inline constexpr int grid_steps = 11;
 inline constexpr double monte_carlo_reliability = 0.9;
 inline constexpr double monte_carlo_confidence = 0.95;
 
+// Limits on the work one input may ask for (each checked up front, or counted, with a named error).
+inline constexpr double max_spacing_candidates = 10000;        // (max − min)/increment of a spacing range
+inline constexpr int max_design_mesh_cells = 20000;             // radial × vertical cells, design method
+inline constexpr int max_reference_mesh_cells = 200000;         // radial × vertical cells, verify
+inline constexpr double min_max_degree_step = 1e-4;             // numerical_mesh.max_degree_step in a scenario
+inline constexpr unsigned long max_time_steps = 1000000;        // one march of the numerical cell
+inline constexpr double max_monte_carlo_values = 2e7;           // samples × design rows (8 bytes each)
+// Spacing searches one study may run: the closed form's exact fast path, its generic search
+// (staged loading, residual criterion), the numerical cell.
+inline constexpr double max_searches_fast = 1e6;
+inline constexpr double max_searches_generic = 2e4;
+inline constexpr double max_searches_numerical = 500;
+
 }  // namespace wickgrid::defaults

@@ -1,13 +1,62 @@
 // Helpers shared by the commands: options, cell models named on the command line, output files.
+#include <cerrno>
+#include <cmath>
 #include <cstdio>
+#include <cstring>
 #include <filesystem>
 
 #include "commands.hpp"
 #include "report/atomic_file.hpp"
+#include "scenario/suggest.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/names.hpp"
 
 namespace wickgrid::cli {
+
+namespace {
+std::string plain(double v) { return format_value(v); }
+}  // namespace
+
+CLI::Validator positive_number() {
+    return CLI::Validator(
+        [](std::string& text) -> std::string {
+            double v = 0.0;
+            if (!CLI::detail::lexical_cast(text, v)) return "'" + text + "' is not a number";
+            if (!std::isfinite(v) || !(v > 0.0)) return text + " is not allowed: it must be a finite number greater than 0";
+            return {};
+        },
+        "POSITIVE");
+}
+
+CLI::Validator number_between(double low, double high) {
+    return CLI::Validator(
+        [low, high](std::string& text) -> std::string {
+            double v = 0.0;
+            if (!CLI::detail::lexical_cast(text, v)) return "'" + text + "' is not a number";
+            if (!std::isfinite(v) || v < low || v > high)
+                return text + " is not allowed: it must be a number from " + plain(low) + " to " + plain(high);
+            return {};
+        },
+        "NUMBER in [" + plain(low) + ", " + plain(high) + "]");
+}
+
+CLI::Validator whole_between(long low, long high) {
+    return CLI::Validator(
+        [low, high](std::string& text) -> std::string {
+            long v = 0;
+            if (!CLI::detail::lexical_cast(text, v)) return "'" + text + "' is not a whole number";
+            if (v < low || v > high)
+                return text + " is not allowed: it must be a whole number from " + std::to_string(low) + " to " +
+                       std::to_string(high);
+            return {};
+        },
+        "INT in [" + std::to_string(low) + ", " + std::to_string(high) + "]");
+}
+
+std::string nearest_command(const std::string& word, const std::vector<std::string>& commands) {
+    if (auto best = scenario::closest(word, commands)) return *best;
+    return {};
+}
 
 CLI::Validator pattern_check() {
     const auto names = names_of(pattern_names);
@@ -30,8 +79,9 @@ std::unique_ptr<CellModel> model_from_options(const scenario::Scenario& s, const
 }
 
 void print_stdout(const std::string& text) {
-    std::fwrite(text.data(), 1, text.size(), stdout);
-    std::fflush(stdout);
+    const std::size_t written = std::fwrite(text.data(), 1, text.size(), stdout);
+    if (written != text.size() || std::fflush(stdout) != 0 || std::ferror(stdout))
+        throw report::OutputError(std::string("cannot write to standard output: ") + std::strerror(errno));
 }
 
 void write_outputs(const std::string& dir, const std::string& input_file,
@@ -41,10 +91,11 @@ void write_outputs(const std::string& dir, const std::string& input_file,
     for (const auto& [name, content] : files) {
         const fs::path path = fs::path(dir) / name;
         std::error_code ec;
+        // Identity, not name: a link or another spelling of the input's path is the input too.
         if (fs::exists(path, ec) && fs::equivalent(path, fs::path(input_file), ec))
-            throw report::OutputError("refusing to overwrite the input file " + input_file);
+            throw report::OutputError("refusing to overwrite the input file " + input_file + " with " + path.string());
     }
-    for (const auto& [name, content] : files) report::write_file_atomically((fs::path(dir) / name).string(), content);
+    report::write_files_atomically(dir, files);
 }
 
 }  // namespace wickgrid::cli

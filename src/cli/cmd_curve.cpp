@@ -29,13 +29,13 @@ Runner add_curve(CLI::App& app) {
     cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
     cmd->add_option("--drain", o->drain, "Drain product name from the scenario")->required();
     cmd->add_option("--pattern", o->pattern, "triangular or square")->required()->check(pattern_check());
-    cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(CLI::PositiveNumber);
+    cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(positive_number());
     auto* at = cmd->add_option("--at-days", o->at_days, "Comma-separated times (days), e.g. 30,60,90")->delimiter(',');
     cmd->add_option("--points", o->points, "Number of evenly spaced times (default 31)")
-        ->check(CLI::Range(2, 100000))
+        ->check(whole_between(2, 100000))
         ->excludes(at);
     cmd->add_option("--until-days", o->until_days, "Last time of the even table (default 1.5 × deadline)")
-        ->check(CLI::PositiveNumber)
+        ->check(positive_number())
         ->excludes(at);
     auto* json = cmd->add_flag("--json", o->json, "JSON on stdout");
     cmd->add_flag("--csv", o->csv, "CSV on stdout")->excludes(json);

@@ -35,13 +35,13 @@ Runner add_surcharge(CLI::App& app) {
     cmd->add_option("FILE", o->file, "Scenario file with a 'loading' block and a settlement model")->required();
     cmd->add_option("--drain", o->drain, "Drain product name")->required();
     cmd->add_option("--pattern", o->pattern, "triangular or square")->required()->check(pattern_check());
-    cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(CLI::PositiveNumber);
+    cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(positive_number());
     cmd->add_option("--find", o->find, "pressure (for the removal day) or removal_day (for the surcharge in the file)")
         ->check(CLI::IsMember({"pressure", "removal_day"}));
     cmd->add_option("--removal-day", o->removal_day, "Removal day (overrides loading.surcharge.removal_day)")
-        ->check(CLI::PositiveNumber);
+        ->check(positive_number());
     cmd->add_option("--max-height", o->max_height_m, "Warn when the surcharge fill exceeds this height (m)")
-        ->check(CLI::PositiveNumber);
+        ->check(positive_number());
     cmd->add_flag("--json", o->json, "JSON on stdout");
     return [o] {
         const auto s = scenario::load_scenario(o->file);

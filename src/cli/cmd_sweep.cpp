@@ -53,9 +53,9 @@ Runner add_sweep(CLI::App& app) {
     cmd->add_option("--only", o->only, "Studies to run: tornado, grid, monte_carlo (comma-separated; default all)")
         ->delimiter(',')
         ->check(CLI::IsMember({"tornado", "grid", "monte_carlo"}));
-    cmd->add_option("--samples", o->samples, "Monte Carlo samples (overrides the file)")->check(CLI::Range(1, 1000000000));
+    cmd->add_option("--samples", o->samples, "Monte Carlo samples (overrides the file)")->check(whole_between(1, 1000000000));
     cmd->add_option("--seed", o->seed, "Monte Carlo seed (overrides the file); same seed, same result");
-    cmd->add_option("--threads", o->threads, "Worker threads (default: all cores)")->check(CLI::Range(0, 1024));
+    cmd->add_option("--threads", o->threads, "Worker threads (default: all cores)")->check(whole_between(0, 1024));
     auto* json = cmd->add_flag("--json", o->json, "All results as JSON on stdout");
     cmd->add_flag("--csv", o->csv, "CSV on stdout (needs exactly one study, see --only)")->excludes(json);
     cmd->add_option("--out", o->out_dir, "Also write sweep.json and one CSV per study into this folder");

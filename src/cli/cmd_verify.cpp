@@ -47,13 +47,17 @@ Runner add_verify(CLI::App& app) {
     auto o = std::make_shared<VerifyOptions>();
     cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
     cmd->add_option("--threshold", o->threshold, "Warn when |U reference − U design| exceeds this (default 0.02)")
-        ->check(CLI::Range(0.0, 1.0));
-    cmd->add_option("--points", o->points, "Times compared, evenly from 0 to 1.5 × deadline (default 25)")->check(CLI::Range(2, 1000));
-    cmd->add_option("--radial-cells", o->radial_cells, "Reference mesh, radial cells (default 40)")->check(CLI::Range(4, 2000));
-    cmd->add_option("--vertical-cells", o->vertical_cells, "Reference mesh, vertical cells (default 80)")->check(CLI::Range(2, 4000));
+        ->check(number_between(0.0, 1.0));
+    cmd->add_option("--points", o->points, "Times compared, evenly from 0 to 1.5 × deadline (default 25)")->check(whole_between(2, 1000));
+    cmd->add_option("--radial-cells", o->radial_cells, "Reference mesh, radial cells (default 40)")->check(whole_between(4, 2000));
+    cmd->add_option("--vertical-cells", o->vertical_cells, "Reference mesh, vertical cells (default 80)")->check(whole_between(2, 4000));
     cmd->add_flag("--json", o->json, "JSON on stdout");
     cmd->footer("Exit 0 whether or not a warning was raised; warnings go to stderr and into the output.");
     return [o] {
+        if (static_cast<long>(o->radial_cells) * o->vertical_cells > defaults::max_reference_mesh_cells)
+            throw UsageError("--radial-cells × --vertical-cells",
+                             std::to_string(o->radial_cells) + " × " + std::to_string(o->vertical_cells) +
+                                 " cells is more than the limit of " + std::to_string(defaults::max_reference_mesh_cells));
         const auto s = scenario::load_scenario(o->file);
         const Site& site = s.site;
         const results::DesignRecord record = results::design_record(s);

@@ -38,6 +38,11 @@ Runner add_surcharge(CLI::App& app);
 Runner add_report(CLI::App& app);
 Runner add_verify(CLI::App& app);
 
+// Number checks with plain messages (no NaN, no infinity, no 309-digit bounds).
+CLI::Validator positive_number();
+CLI::Validator number_between(double low, double high);
+CLI::Validator whole_between(long low, long high);
+
 // The --pattern option's check and value, from the pattern name table.
 CLI::Validator pattern_check();
 Pattern pattern_option(const std::string& name);
@@ -47,8 +52,12 @@ Pattern pattern_option(const std::string& name);
 std::unique_ptr<CellModel> model_from_options(const scenario::Scenario& s, const std::string& drain, Pattern pattern,
                                               double spacing_m);
 
-// Prints stdout text whole (one write) so a broken pipe never leaves half a JSON document.
+// Prints stdout text whole (one write) so a broken pipe never leaves half a JSON document; a write
+// error (a full disk, a closed stream) throws report::OutputError (exit 3).
 void print_stdout(const std::string& text);
+
+// The command name nearest to an unknown one, for "did you mean" (empty when nothing is near).
+std::string nearest_command(const std::string& word, const std::vector<std::string>& commands);
 
 // Writes files into an output folder whole or not at all, refusing to overwrite the input file.
 void write_outputs(const std::string& dir, const std::string& input_file,

@@ -2,6 +2,7 @@
 #include <spdlog/sinks/stdout_color_sinks.h>
 #include <spdlog/spdlog.h>
 
+#include <algorithm>
 #include <cstdio>
 #include <iostream>
 
@@ -22,7 +23,17 @@ void setup_logging(int verbosity, bool quiet) {
     spdlog::set_default_logger(logger);
 }
 
-void report_error(const std::string& text) { std::fprintf(stderr, "wickgrid: error: %s\n", text.c_str()); }
+// Control characters (terminal escape sequences among them) never reach the terminal.
+std::string terminal_safe(const std::string& text) {
+    std::string out;
+    for (const char c : text) {
+        const auto u = static_cast<unsigned char>(c);
+        out += (u < 0x20 && c != '\n') || u == 0x7F ? '?' : c;
+    }
+    return out;
+}
+
+void report_error(const std::string& text) { std::fprintf(stderr, "wickgrid: error: %s\n", terminal_safe(text).c_str()); }
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -46,6 +57,18 @@ int main(int argc, char** argv) {
     const cli::Runner surcharge = cli::add_surcharge(app);
     const cli::Runner report_cmd = cli::add_report(app);
     const cli::Runner verify = cli::add_verify(app);
+    // An unknown command name gets its own message (CLI11 would only say a subcommand is required).
+    if (argc > 1 && argv[1][0] != '-') {
+        std::vector<std::string> names;
+        for (const auto* sub : app.get_subcommands({})) names.push_back(sub->get_name());
+        if (std::find(names.begin(), names.end(), argv[1]) == names.end()) {
+            const std::string near = cli::nearest_command(argv[1], names);
+            report_error("unknown command '" + terminal_safe(argv[1]) + "'" +
+                         (near.empty() ? "" : "; did you mean '" + near + "'?"));
+            std::fprintf(stderr, "Run 'wickgrid --help' for the commands.\n");
+            return cli::bad_input;
+        }
+    }
     try {
         app.parse(argc, argv);
     } catch (const CLI::CallForHelp& e) {

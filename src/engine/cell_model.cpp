@@ -124,6 +124,12 @@ std::unique_ptr<CellModel> make_cell_model(const Site& site, const DrainProductS
 
 std::optional<MethodRefusal> method_refusal(const Site& site) { return row_of(site.method.method).refusal(site); }
 
+double max_spacing_searches(const Site& site) {
+    if (site.method.method == CellMethod::numerical) return defaults::max_searches_numerical;
+    if (site.loading || !site.criterion.degree()) return defaults::max_searches_generic;
+    return defaults::max_searches_fast;
+}
+
 SpacingLimit spacing_limit(const Site& site, const DrainProductSpec& product, Pattern pattern) {
     const MethodRow& row = row_of(site.method.method);
     if (row.fast_limit)

@@ -312,6 +312,21 @@ void apply_jumps(const NumericalCell::Impl& m, Vector& u, double from, double to
 }
 }  // namespace
 
+namespace {
+// Counts the steps of one march; an input that would need more than the limit gets a named error
+// instead of a run that never ends.
+struct StepBudget {
+    unsigned long taken = 0;
+    void count() {
+        if (++taken > defaults::max_time_steps)
+            throw EvaluationError("numerical unit cell",
+                                  "more than " + format_value(static_cast<double>(defaults::max_time_steps)) +
+                                      " time steps; raise numerical_mesh.max_degree_step or check the layer mv, cv and ch");
+    }
+};
+
+}  // namespace
+
 std::vector<NumericalPoint> NumericalCell::solve(const std::vector<double>& times_s) const {
     const Impl& m = *impl_;
     for (std::size_t i = 0; i < times_s.size(); ++i) {
@@ -325,6 +340,7 @@ std::vector<NumericalPoint> NumericalCell::solve(const std::vector<double>& time
     stops.erase(std::unique(stops.begin(), stops.end()), stops.end());
 
     Stepper stepper(m);
+    StepBudget budget;
     Vector u = Vector::Zero(static_cast<long>(m.n));
     apply_jumps(m, u, -1.0, 0.0);
     double t = 0.0, h = m.first_step_s, applied = 0.0;  // jumps applied up to `applied`
@@ -344,6 +360,7 @@ std::vector<NumericalPoint> NumericalCell::solve(const std::vector<double>& time
             u = stepper.step(u, t, step);
             t = step == stop - t ? stop : t + step;
             ++steps_;
+            budget.count();
             if (step == h) {
                 const double change = std::fabs(m.degree_settlement(u, t) - before);
                 if (change < 0.5 * m.max_degree_step) h *= 2.0;
@@ -375,6 +392,7 @@ std::vector<NumericalPoint> NumericalCell::march(double until_s) const {
     const Impl& m = *impl_;
     const std::vector<double> stops = event_stops(m);
     Stepper stepper(m);
+    StepBudget budget;
     Vector u = Vector::Zero(static_cast<long>(m.n));
     apply_jumps(m, u, -1.0, 0.0);
     double t = 0.0, h = m.first_step_s, applied = 0.0;
@@ -386,6 +404,7 @@ std::vector<NumericalPoint> NumericalCell::march(double until_s) const {
             u = stepper.step(u, t, step);
             t = step == stop - t ? stop : t + step;
             ++steps_;
+            budget.count();
             out.push_back({t, m.degree_settlement(u, t), m.degree_pore_pressure(u, t)});
             if (step == h) {
                 const double change = std::fabs(out.back().degree_settlement - before);
@@ -406,6 +425,7 @@ double NumericalCell::time_to_degree_s(double target) const {
     const Impl& m = *impl_;
     const std::vector<double> stops = event_stops(m);
     Stepper stepper(m);
+    StepBudget budget;
     Vector u = Vector::Zero(static_cast<long>(m.n));
     apply_jumps(m, u, -1.0, 0.0);
     double t = 0.0, h = m.first_step_s, applied = 0.0;
@@ -429,6 +449,7 @@ double NumericalCell::time_to_degree_s(double target) const {
             u = std::move(trial);
             t = step == stop - t ? stop : t + step;
             ++steps_;
+            budget.count();
             if (step == h) {
                 const double change = std::fabs(after - before);
                 if (change < 0.5 * m.max_degree_step) h *= 2.0;

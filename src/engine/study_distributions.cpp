@@ -16,10 +16,15 @@ void validate_distribution(const Distribution& d, std::string_view what) {
         case DistributionKind::normal:
             require_finite(w + " mean", d.a);
             require_non_negative(w + " sd", d.b);
+            require_finite(w + " sd", d.b);
             break;
         case DistributionKind::lognormal:
             require_positive(w + " mean", d.a);
             require_non_negative(w + " sd", d.b);
+            // σ² = ln(1 + (sd/mean)²) must be a number: a coefficient of variation up to 1e6 is far
+            // beyond any soil parameter and still computable.
+            if (d.b > 1e6 * d.a)
+                throw InputError(w + " sd", d.b, "at most 1e6 × the mean " + format_value(d.a) + " for a lognormal");
             break;
         case DistributionKind::uniform:
             require_finite(w + " low", d.a);

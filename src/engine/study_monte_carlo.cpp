@@ -52,6 +52,13 @@ void apply(CellSpec& cell, const CellSpec& product, const Site& base, StudyInput
 MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_result,
                              const MonteCarloSpec& spec, const Progress& progress) {
     if (spec.samples < 1) throw InputError("Monte Carlo samples", 0.0, "at least 1");
+    const double values = static_cast<double>(spec.samples) * static_cast<double>(base_result.rows.size());
+    if (values > defaults::max_monte_carlo_values)
+        throw InputError("Monte Carlo samples × design rows", values,
+                         "at most " + format_value(defaults::max_monte_carlo_values) + " (" +
+                             format_value(std::floor(defaults::max_monte_carlo_values /
+                                                     static_cast<double>(std::max<std::size_t>(1, base_result.rows.size())))) +
+                             " samples for " + std::to_string(base_result.rows.size()) + " rows)");
     if (base_input.loading || !base_input.criterion.degree() || base_input.method.method != CellMethod::closed_form)
         throw EvaluationError("Monte Carlo study",
                               "samples closed-form designs for a degree under one instantaneous load only; staged "

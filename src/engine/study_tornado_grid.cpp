@@ -80,6 +80,11 @@ std::vector<GridCell> grid_study(const Site& base, const GridAxis& x, const Grid
         throw InputError("grid y input (" + std::string(to_string(y.input)) + ")", 0.0,
                          "different from the x input");
     const auto xs = x.values(), ys = y.values();
+    const double searches = static_cast<double>(xs.size() * ys.size() * base.products.size() * base.range.patterns.size());
+    if (searches > max_spacing_searches(base))
+        throw InputError("grid study spacing searches (steps × steps × products × patterns)", searches,
+                         "at most " + format_value(max_spacing_searches(base)) +
+                             " for this site's method and loading: use fewer grid steps");
     for (const double v : xs) check_in_range(base, x.input, v);
     for (const double v : ys) check_in_range(base, y.input, v);
     std::vector<GridCell> cells;

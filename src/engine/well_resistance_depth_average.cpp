@@ -46,6 +46,13 @@ void depth_average_nodes(double mu_smear, double well_per_m2, double l_m, DepthA
     // adaptive quadrature (below 1e-15 over 8Th up to 40): 7 nodes for a/b >= 10, 10 for a/b >= 2,
     // else 15 per panel; the reference rule uses 20 per panel throughout.
     const double a = mu_smear, b = well_per_m2 * l_m * l_m;
+    // Well resistance so large that it swamps the smear term by orders of magnitude means a wrong
+    // input (kh with the exponent's sign flipped, a qw in the wrong unit), not a design: refuse it
+    // before the panels below would shrink to nothing.
+    if (b > max_well_resistance_ratio * a)
+        throw InputError("well resistance π·kh·l²/qw over the smear term μs", b / a,
+                         "at most " + format_value(max_well_resistance_ratio) +
+                             " (check kh, e.g. the sign of its exponent, and the discharge capacity qw and its unit)");
     const double d = std::sqrt(1.0 + a / b) - 1.0;
     auto sink = [&](double zeta, double weight) {
         well_terms.push_back(b * zeta * (2.0 - zeta));
@@ -53,7 +60,9 @@ void depth_average_nodes(double mu_smear, double well_per_m2, double l_m, DepthA
     };
     const bool reference = accuracy == DepthAverageRule::Accuracy::reference;
     double x = 0.0;
-    while (x < 1.0) {
+    // Panels widen geometrically (x → 3x + 2d), so their number is about log3(1/d) < 20 here.
+    for (int panels = 0; x < 1.0; ++panels) {
+        if (panels > 64) throw EvaluationError("depth quadrature of well resistance", "more than 64 panels");
         const double next = std::min(1.0, 3.0 * x + 2.0 * d);
         if (reference) panel<20>(x, next, sink);
         else if (x == 0.0 && next == 1.0 && a >= 10.0 * b) panel<7>(x, next, sink);

@@ -212,33 +212,34 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
 std::string design_markdown(const results::DesignRecord& record) {
     const auto& s = *record.scenario;
     const auto columns = shown_design_columns(record);
+    const auto md = markdown_text;  // every piece of text is escaped: names cannot break the note
     std::ostringstream out;
-    out << "# Vertical drain design note: " << s.title << "\n\n";
-    out << "Scenario file: `" << s.file << "`. Produced by wickgrid " << version << ".\n\n";
-    out << "## Result\n\n" << results::recommendation(record) << "\n\n";
-    for (const auto& w : record.warnings) out << "**Warning:** " << w << "\n\n";
+    out << "# Vertical drain design note: " << md(s.title) << "\n\n";
+    out << "Scenario file: " << md(s.file) << ". Produced by wickgrid " << version << ".\n\n";
+    out << "## Result\n\n" << md(results::recommendation(record)) << "\n\n";
+    for (const auto& w : record.warnings) out << "**Warning:** " << md(w) << "\n\n";
     out << "## Inputs\n\n| quantity | value |\n|---|---|\n";
-    for (const auto& [k, v] : input_rows(record)) out << "| " << k << " | " << v << " |\n";
+    for (const auto& [k, v] : input_rows(record)) out << "| " << md(k) << " | " << md(v) << " |\n";
     out << "\n## Results\n\n";
     const auto header = table_header(columns);
     out << "|";
-    for (const auto& h : header) out << ' ' << h << " |";
+    for (const auto& h : header) out << ' ' << md(h) << " |";
     out << "\n|";
     for (std::size_t i = 0; i < header.size(); ++i) out << "---|";
     out << '\n';
     for (const auto& row : table_rows(record, columns)) {
         out << "|";
-        for (const auto& cell : row) out << ' ' << cell << " |";
+        for (const auto& cell : row) out << ' ' << md(cell) << " |";
         out << '\n';
     }
-    out << "\n" << notes_under_table(record) << " Ranked by "
+    out << "\n" << md(notes_under_table(record)) << " Ranked by "
         << (record.result.ranking == RankingBasis::cost_per_hectare ? "cost per hectare" : "drain metres per hectare")
         << ".\n\n## Method and sources\n\n";
-    for (const auto& line : record.method_notes) out << "- " << line << "\n";
+    for (const auto& line : record.method_notes) out << "- " << md(line) << "\n";
     out << "\n## Assumptions\n\n";
-    for (const auto& line : record.assumptions) out << "- " << line << "\n";
+    for (const auto& line : record.assumptions) out << "- " << md(line) << "\n";
     out << "\n## Cautions\n\n";
-    for (const auto& c : results::cautions()) out << "- " << c << "\n";
+    for (const auto& c : results::cautions()) out << "- " << md(c) << "\n";
     return out.str();
 }
 

@@ -41,6 +41,24 @@ std::string csv_document(const std::vector<std::string>& header, const std::vect
     return out;
 }
 
+std::string markdown_text(const std::string& text) {
+    std::string out;
+    for (const char c : text) {
+        switch (c) {
+            case '|': out += "\\|"; break;
+            case '\\': out += "\\\\"; break;
+            case '`': out += "\\`"; break;
+            case '<': out += "&lt;"; break;
+            case '>': out += "&gt;"; break;
+            case '&': out += "&amp;"; break;
+            case '\n':
+            case '\r': out += ' '; break;
+            default: out += c;
+        }
+    }
+    return out;
+}
+
 namespace {
 std::size_t chars(const std::string& text) {
     std::size_t n = 0;

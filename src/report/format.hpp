@@ -17,6 +17,10 @@ std::string csv_number(std::optional<double> value);
 std::string csv_field(const std::string& text);
 std::string csv_document(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows);
 
+// Text for a Markdown table cell or line: the characters Markdown or HTML would read as markup
+// (| < > & ` \ and line breaks) are escaped, so a name cannot break a table or inject a tag.
+std::string markdown_text(const std::string& text);
+
 // A table aligned in characters (UTF-8 aware); the first `left_columns` columns left-aligned.
 std::string text_table(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows,
                        std::size_t left_columns = 2);

@@ -59,7 +59,11 @@ std::string escape_xml(const std::string& text) {
             case '<': out += "&lt;"; break;
             case '>': out += "&gt;"; break;
             case '"': out += "&quot;"; break;
-            default: out += c;
+            case '\t':
+            case '\n':
+            case '\r': out += c; break;
+            // XML 1.0 allows no other C0 control character, escaped or not.
+            default: out += static_cast<unsigned char>(c) < 0x20 ? std::string("\xEF\xBF\xBD") : std::string(1, c);
         }
     }
     return out;

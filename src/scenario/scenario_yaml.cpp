@@ -2,6 +2,7 @@
 #include <yaml-cpp/yaml.h>
 
 #include <cmath>
+#include <filesystem>
 #include <fstream>
 #include <set>
 #include <sstream>
@@ -128,6 +129,10 @@ public:
     std::string text(const YAML::Node& node, const std::string& path) const {
         remember(path, node);
         if (!node.IsScalar() || node.Scalar().empty()) fail(node, path, "must be a non-empty text");
+        // Names reach terminals, tables, JSON, HTML and SVG: control characters have no place there.
+        for (const char c : node.Scalar())
+            if (static_cast<unsigned char>(c) < 0x20 || c == 0x7F)
+                fail(node, path, "must not contain control characters (line breaks, tabs, escape codes)");
         return node.Scalar();
     }
 
@@ -390,6 +395,12 @@ void read_spacing(const Reader& r, const YAML::Node& root, Scenario& s) {
     range.bounds.min_m = r.number(node, "spacing", "min_m", positive("m"));
     range.bounds.max_m = r.number(node, "spacing", "max_m", {range.bounds.min_m, false, inf, false, "m (above min_m)"});
     range.increment_m = r.optional_number(node, "spacing", "increment_m", positive("m")).value_or(defaults::spacing_increment_m);
+    const double candidates = (range.bounds.max_m - range.bounds.min_m) / range.increment_m;
+    if (candidates > defaults::max_spacing_candidates)
+        r.fail(node["increment_m"], "spacing.increment_m",
+               format_value(range.increment_m) + " is not allowed: it gives " + format_value(std::floor(candidates)) +
+                   " spacings between min_m and max_m; it must be at least " +
+                   format_value((range.bounds.max_m - range.bounds.min_m) / defaults::max_spacing_candidates) + " m");
     if (range.increment_m > range.bounds.max_m - range.bounds.min_m)
         r.fail(node["increment_m"], "spacing.increment_m",
                format_value(range.increment_m) + " is not allowed: it must be at most max_m − min_m = " +
@@ -450,15 +461,22 @@ void check_physics(const Reader& r, Scenario& s) {
         r.fail_at({0, 0}, "", e.what());
     }
     // Every cell the search may build must be valid: the engine's own checks, located.
-    for (const auto& product : site.products)
+    for (std::size_t i = 0; i < site.products.size(); ++i)
         for (const Pattern p : site.range.patterns)
             for (const double spacing : {site.range.bounds.min_m, site.range.bounds.max_m}) {
+                const auto& product = site.products[i];
                 try {
                     make_cell_model(site, product, p, spacing);
                 } catch (const InputError& e) {
-                    s.fail_at(spacing == site.range.bounds.min_m ? "spacing.min_m" : "spacing.max_m",
-                              std::string(e.what()) + " (drain '" + product.name + "', " + std::string(to_string(p)) +
-                                  " pattern)");
+                    std::string key = spacing == site.range.bounds.min_m ? "spacing.min_m" : "spacing.max_m";
+                    // Well resistance out of all proportion: a tiny qw (below 1 m³/year) or else kh.
+                    if (e.quantity().rfind("well resistance", 0) == 0)
+                        key = units::per_second_to_per_year(product.discharge_capacity_m3_per_s) < 1.0
+                                  ? "drains[" + std::to_string(i) + "].discharge_capacity_m3_per_year"
+                              : site.ground.kh_source == KhSource::given ? "clay.kh_m_per_s"
+                                                                         : "clay.ch_m2_per_year";
+                    s.fail_at(key, std::string(e.what()) + " (drain '" + product.name + "', " + std::string(to_string(p)) +
+                                       " pattern)");
                 }
             }
 }
@@ -536,6 +554,14 @@ void read_studies(const Reader& r, const YAML::Node& root, Scenario& s) {
         s.studies.grid_y = axis("y");
         if (s.studies.grid_x.input == s.studies.grid_y.input)
             r.fail(g["y"]["input"], "studies.grid.y.input", "must differ from studies.grid.x.input");
+        const double searches = static_cast<double>(s.studies.grid_x.steps) * s.studies.grid_y.steps *
+                                static_cast<double>(s.site.products.size() * s.site.range.patterns.size());
+        if (searches > max_spacing_searches(s.site))
+            r.fail(g, "studies.grid",
+                   format_value(s.studies.grid_x.steps) + " × " + format_value(s.studies.grid_y.steps) +
+                       " steps for every product and pattern need " + format_value(searches) +
+                       " spacing searches; at most " + format_value(max_spacing_searches(s.site)) +
+                       " are allowed with this method and loading: use fewer steps");
         s.studies.grid_given = true;
     }
 }
@@ -591,6 +617,13 @@ void read_uncertain(const Reader& r, const YAML::Node& root, Scenario& s) {
         return v.value_or(fallback);
     };
     mc.samples = static_cast<std::size_t>(whole("samples", 1.0, 1e9, 10000.0));
+    const double rows = static_cast<double>(s.site.products.size() * s.site.range.patterns.size());
+    if (static_cast<double>(mc.samples) * rows > defaults::max_monte_carlo_values)
+        r.fail(node["samples"], p + ".samples",
+               format_value(static_cast<double>(mc.samples)) + " samples × " + format_value(rows) +
+                   " designs is not allowed: at most " + format_value(defaults::max_monte_carlo_values) +
+                   " values in all, so at most " + format_value(std::floor(defaults::max_monte_carlo_values / rows)) +
+                   " samples here");
     mc.seed = static_cast<std::uint64_t>(whole("seed", 0.0, 9007199254740992.0, 1.0));
     mc.reliability = r.optional_number(node, p, "reliability", {0.0, false, 1.0, false, ""}).value_or(defaults::monte_carlo_reliability);
     mc.confidence = r.optional_number(node, p, "confidence", {0.0, false, 1.0, false, ""}).value_or(defaults::monte_carlo_confidence);
@@ -684,8 +717,15 @@ void read_method(const Reader& r, const YAML::Node& root, Scenario& s) {
         };
         m.mesh.radial_cells = whole("radial_cells", 4, 2000, defaults::design_radial_cells);
         m.mesh.vertical_cells = whole("vertical_cells", 2, 4000, defaults::design_vertical_cells);
-        m.mesh.max_degree_step = r.optional_number(mesh, "numerical_mesh", "max_degree_step", {0.0, false, 0.1, true, ""})
-                                     .value_or(defaults::design_max_degree_step);
+        m.mesh.max_degree_step =
+            r.optional_number(mesh, "numerical_mesh", "max_degree_step", {defaults::min_max_degree_step, true, 0.1, true, ""})
+                .value_or(defaults::design_max_degree_step);
+        const int cells = m.mesh.radial_cells * m.mesh.vertical_cells;
+        if (cells > defaults::max_design_mesh_cells)
+            r.fail(mesh, "numerical_mesh",
+                   std::to_string(m.mesh.radial_cells) + " × " + std::to_string(m.mesh.vertical_cells) + " = " +
+                       std::to_string(cells) + " cells is not allowed: a design solves hundreds of cells, so at most " +
+                       std::to_string(defaults::max_design_mesh_cells) + " (use `verify` for a finer reference mesh)");
     }
 }
 
@@ -752,13 +792,62 @@ const DrainEntry& Scenario::drain(const std::string& name) const {
     throw ScenarioError(file, mark_of("drains").value_or(Mark{0, 0}), "drains", message);
 }
 
+namespace {
+// Offset of the first byte that is not well-formed UTF-8 (RFC 3629), or npos.
+std::size_t first_bad_utf8(const std::string& text) {
+    const auto* p = reinterpret_cast<const unsigned char*>(text.data());
+    const std::size_t n = text.size();
+    for (std::size_t i = 0; i < n;) {
+        const unsigned char c = p[i];
+        std::size_t len = 0;
+        unsigned int min = 0, code = 0;
+        if (c < 0x80) len = 1;
+        else if ((c & 0xE0) == 0xC0) len = 2, min = 0x80, code = c & 0x1F;
+        else if ((c & 0xF0) == 0xE0) len = 3, min = 0x800, code = c & 0x0F;
+        else if ((c & 0xF8) == 0xF0) len = 4, min = 0x10000, code = c & 0x07;
+        else return i;
+        if (i + len > n) return i;
+        for (std::size_t k = 1; k < len; ++k) {
+            if ((p[i + k] & 0xC0) != 0x80) return i;
+            code = (code << 6) | (p[i + k] & 0x3F);
+        }
+        if (len > 1 && (code < min || code > 0x10FFFF || (code >= 0xD800 && code <= 0xDFFF))) return i;
+        i += len;
+    }
+    return std::string::npos;
+}
+
+// Line and column (in characters) of a byte offset.
+Mark mark_at(const std::string& text, std::size_t offset) {
+    Mark m{1, 1};
+    for (std::size_t i = 0; i < offset; ++i) {
+        const auto c = static_cast<unsigned char>(text[i]);
+        if (c == '\n') m.line++, m.column = 1;
+        else if ((c & 0xC0) != 0x80) m.column++;
+    }
+    return m;
+}
+}  // namespace
+
 Scenario parse_scenario(const std::string& text, const std::string& file_label) {
-    YAML::Node root;
+    // Text must be UTF-8: names and titles reach JSON, HTML, SVG and the terminal.
+    if (const std::size_t bad = first_bad_utf8(text); bad != std::string::npos)
+        throw ScenarioError(file_label, mark_at(text, bad), "",
+                            "the file is not valid UTF-8 here (byte 0x" +
+                                std::string(1, "0123456789abcdef"[static_cast<unsigned char>(text[bad]) >> 4]) +
+                                std::string(1, "0123456789abcdef"[static_cast<unsigned char>(text[bad]) & 15]) +
+                                "); save it as UTF-8");
+    std::vector<YAML::Node> documents;
     try {
-        root = YAML::Load(text);
+        documents = YAML::LoadAll(text);
     } catch (const YAML::ParserException& e) {
         throw ScenarioError(file_label, {e.mark.line + 1, e.mark.column + 1}, "", "YAML syntax: " + e.msg);
     }
+    if (documents.size() > 1)
+        throw ScenarioError(file_label, mark_of(documents[1]), "",
+                            "a second YAML document; a scenario file holds one (remove the '---' and what follows, or "
+                            "split the file)");
+    const YAML::Node root = documents.empty() ? YAML::Node() : documents.front();
     try {
         return read(root, file_label);
     } catch (const YAML::Exception& e) {  // structure yaml-cpp could not convert
@@ -767,6 +856,9 @@ Scenario parse_scenario(const std::string& text, const std::string& file_label) 
 }
 
 Scenario load_scenario(const std::string& path) {
+    std::error_code ec;
+    if (std::filesystem::is_directory(path, ec))
+        throw ScenarioError(path, {0, 0}, "", "is a folder, not a scenario file");
     std::ifstream in(path, std::ios::binary);
     if (!in) throw ScenarioError(path, {0, 0}, "", "cannot open the scenario file");
     std::ostringstream text;
