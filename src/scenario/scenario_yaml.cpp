@@ -58,6 +58,9 @@ struct Range {
 constexpr double inf = std::numeric_limits<double>::infinity();
 constexpr Range positive(const char* unit) { return {0.0, false, inf, false, unit}; }
 constexpr Range non_negative(const char* unit) { return {0.0, true, inf, false, unit}; }
+// mv above 0.1 m²/kN is softer than any clay (a value in the wrong unit); above it the numerical
+// cell's time scales part by many orders of magnitude.
+constexpr Range compressibility{0.0, false, 0.1, true, "m²/kN (greater than 0; above 0.1 check the unit)"};
 
 Mark mark_of(const YAML::Node& node) {
     const YAML::Mark m = node.Mark();
@@ -215,7 +218,7 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
             layer.ch_m2_per_s = units::per_year_to_per_second(*ch);
         layer.thickness_m = r.number(l, path, "thickness_m", positive("m"));
         layer.unit_weight_kN_per_m3 = r.number(l, path, "unit_weight_kN_per_m3", positive("kN/m³"));
-        layer.mv_m2_per_kN = r.optional_number(l, path, "mv_m2_per_kN", positive("m²/kN"));
+        layer.mv_m2_per_kN = r.optional_number(l, path, "mv_m2_per_kN", compressibility);
         if (layer.mv_m2_per_kN) {
             for (const char* key : {"e0", "cc", "cr", "preconsolidation_kPa", "ocr"})
                 if (l[key]) r.fail(l[key], path + "." + key, "a layer takes either mv_m2_per_kN or e0/cc/cr, not both");
@@ -283,7 +286,7 @@ void read_clay(const Reader& r, const YAML::Node& root, Scenario& s) {
     };
     g.cv_m2_per_s = coefficient("cv_m2_per_year", layers_cv);
     g.ch_m2_per_s = coefficient("ch_m2_per_year", layers_ch);
-    g.mv_m2_per_kN = r.optional_number(node, "clay", "mv_m2_per_kN", positive("m²/kN"));
+    g.mv_m2_per_kN = r.optional_number(node, "clay", "mv_m2_per_kN", compressibility);
     g.kh_m_per_s = r.optional_number(node, "clay", "kh_m_per_s", positive("m/s"));
     g.kh_source = g.kh_m_per_s ? KhSource::given : KhSource::from_ch_and_mv;
     // kh is needed unless every layer gives its own ch and storage (the numerical cell then takes

@@ -1,0 +1,183 @@
+// Hostile input: every case ends quickly with a named error and its exit code; no input is
+// overwritten, no temporary is left, no output set is half written, no text breaks an output format.
+#include <gtest/gtest.h>
+
+#include <nlohmann/json.hpp>
+
+#include "cli_helpers.hpp"
+
+using namespace wickgrid::cli_testing;
+using nlohmann::json;
+
+namespace {
+struct FileCase {
+    const char* what;
+    std::string file;     // bundled file to edit
+    std::string from, to; // the edit
+    std::string command;  // run on the edited copy (FILE replaced by its path)
+    int exit_code;
+    std::string key;      // the key the message names
+    std::string message;  // part of the message
+};
+
+std::string with_file(std::string command, const std::string& path) {
+    const auto at = command.find("FILE");
+    return command.replace(at, 4, path);
+}
+}  // namespace
+
+TEST(Hostile, EachFileCaseEndsWithANamedError) {
+    const std::string demo = "demo/scenario.yaml", staged = "configs/staged-surcharge.yaml",
+                      numerical = "configs/layered-partial-numerical.yaml";
+    const std::vector<FileCase> cases{
+        {"kh with the exponent's sign flipped", "configs/one-way-drainage.yaml", "kh_m_per_s: 4.0e-10", "kh_m_per_s: 4.0e+10",
+         "design FILE", 2, "clay.kh_m_per_s", "well resistance"},
+        {"qw of 1e-300", demo, "discharge_capacity_m3_per_year: 150", "discharge_capacity_m3_per_year: 1e-300",
+         "design FILE", 2, "drains[0].discharge_capacity_m3_per_year", "well resistance"},
+        {"ch of 1e308", demo, "ch_m2_per_year: 4.0\n", "ch_m2_per_year: 1e308\n", "design FILE", 2,
+         "clay.ch_m2_per_year", "well resistance"},
+        {"a title that is not UTF-8", demo, "title: Demo", "title: Caf\xe9 Demo", "check FILE", 2, ":", "not valid UTF-8"},
+        {"a drain name with an escape code", demo, "name: band-100x4\n", "name: \"band\\e[31m\"\n", "check FILE", 2,
+         "drains[0].name", "control characters"},
+        {"a drain name with a line break", demo, "name: band-100x4\n", "name: \"band\\r\\nx\"\n", "check FILE", 2,
+         "drains[0].name", "control characters"},
+        {"a spacing increment of 1e-9 under staged loading", staged, "  increment_m: 0.05", "  increment_m: 1e-9",
+         "design FILE", 2, "spacing.increment_m", "spacings between"},
+        {"a numerical step of 1e-9", numerical, "vertical_cells: 32}", "vertical_cells: 32, max_degree_step: 1e-9}",
+         "design FILE", 2, "numerical_mesh.max_degree_step", "between 0.0001"},
+        {"a layer mv of 1e308", numerical, "mv_m2_per_kN: 0.0009", "mv_m2_per_kN: 1e308", "design FILE", 2,
+         "clay.layers[0].mv_m2_per_kN", "check the unit"},
+        {"a 200 × 400 design mesh", numerical, "radial_cells: 16, vertical_cells: 32", "radial_cells: 200, vertical_cells: 400",
+         "design FILE", 2, "numerical_mesh", "at most 20000"},
+        {"a 1001 × 1001 grid under staged loading", staged, "patterns: [triangular, square]",
+         "patterns: [triangular, square]\nstudies:\n  grid:\n    x: {input: smear_permeability_ratio, from: 1, to: 5, steps: 1001}\n"
+         "    y: {input: smear_diameter_ratio, from: 1.5, to: 3, steps: 1001}",
+         "sweep FILE --only grid", 2, "studies.grid", "spacing searches"},
+        {"1e9 Monte Carlo samples", demo, "samples: 20000", "samples: 1000000000", "sweep FILE --only monte_carlo", 2,
+         "uncertain.samples", "at most"},
+        {"a lognormal sd of 1e300", demo, "mean: 4.0, sd: 1.2", "mean: 4.0, sd: 1e300", "sweep FILE --only monte_carlo", 2,
+         "uncertain.ch_m2_per_year", "1e6 × the mean"},
+        {"a second YAML document", demo, "# Studies for", "---\nschema: 1\n# Studies for", "check FILE", 2, ":",
+         "second YAML document"},
+    };
+    for (const auto& c : cases) {
+        const fs::path file = write_case(edited_copy(c.file, c.from, c.to));
+        const auto started = std::chrono::steady_clock::now();
+        const CommandRun r = run(with_file(c.command, file.string()));
+        const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+        EXPECT_EQ(r.exit_code, c.exit_code) << c.what << "\n" << r.err;
+        EXPECT_NE(r.err.find(c.key), std::string::npos) << c.what << "\n" << r.err;
+        EXPECT_NE(r.err.find(c.message), std::string::npos) << c.what << "\n" << r.err;
+        EXPECT_EQ(r.err.find("unexpected"), std::string::npos) << c.what << "\n" << r.err;
+        EXPECT_EQ(r.err.find('\x1b'), std::string::npos) << c.what;
+        EXPECT_LT(seconds, 20.0) << c.what;  // a bound against hangs, not a speed check
+        fs::remove_all(file.parent_path());
+    }
+}
+
+TEST(Hostile, CommandLineCases) {
+    const std::string demo = source("demo/scenario.yaml");
+    struct Case {
+        const char* what;
+        std::string args;
+        int exit_code;
+        std::string message;
+    };
+    const std::vector<Case> cases{
+        {"NaN threshold", "verify " + demo + " --threshold nan", 2, "--threshold: nan is not allowed"},
+        {"NaN until", "curve " + demo + " --drain band-100x4 --pattern square --spacing 1 --until-days nan", 2,
+         "--until-days: nan is not allowed"},
+        {"NaN height", "surcharge " + source("configs/staged-surcharge.yaml") +
+                           " --drain band-100x4 --pattern square --spacing 1.5 --max-height nan",
+         2, "--max-height: nan is not allowed"},
+        {"negative spacing, plain bound", "curve " + demo + " --drain band-100x4 --pattern square --spacing -1", 2,
+         "must be a finite number greater than 0"},
+        {"a reference mesh beyond the limit", "verify " + demo + " --radial-cells 2000 --vertical-cells 4000", 2,
+         "more than the limit"},
+        {"a folder for a file", "check " + source("configs"), 2, "is a folder"},
+        {"an unknown command", "desing " + demo, 2, "unknown command 'desing'; did you mean 'design'?"},
+        {"an escape code as a command", "\"$(printf '\\033[31mx')\"", 2, "unknown command '?[31mx'"},
+    };
+    for (const auto& c : cases) {
+        const CommandRun r = run(c.args);
+        EXPECT_EQ(r.exit_code, c.exit_code) << c.what << "\n" << r.err;
+        EXPECT_NE(r.err.find(c.message), std::string::npos) << c.what << "\n" << r.err;
+        EXPECT_LT(r.err.size(), 400u) << c.what << ": no 309-digit bounds\n" << r.err;
+        EXPECT_EQ(r.err.find('\x1b'), std::string::npos) << c.what;
+    }
+}
+
+TEST(Hostile, StandardOutputFullExitsThree) {
+    const fs::path dir = scratch();
+    const std::string command = std::string(WICKGRID_BINARY) + " design " + source("demo/scenario.yaml") +
+                                " --json >/dev/full 2>" + (dir / "err").string();
+    const int status = std::system(command.c_str());
+    EXPECT_EQ(WEXITSTATUS(status), 3);
+    EXPECT_NE(slurp(dir / "err").find("cannot write to standard output"), std::string::npos) << slurp(dir / "err");
+    fs::remove_all(dir);
+}
+
+TEST(Hostile, NoCommandWritesOverItsInput) {
+    for (const std::string& name : {std::string("report.html"), std::string("sweep.json"), std::string("design.md")}) {
+        const fs::path dir = scratch();
+        const fs::path input = dir / name;
+        const std::string text = slurp(source("demo/scenario.yaml"));
+        std::ofstream(input) << text;
+        const std::string command = name == "report.html" ? "report" : name == "sweep.json" ? "sweep" : "design";
+        const CommandRun r = run(command + " " + input.string() + " --out " + dir.string() +
+                                 (name == "sweep.json" ? " --only grid" : ""));
+        EXPECT_EQ(r.exit_code, 3) << name << "\n" << r.err;
+        EXPECT_NE(r.err.find("refusing to overwrite the input file"), std::string::npos) << r.err;
+        EXPECT_EQ(slurp(input), text) << name;
+        fs::remove_all(dir);
+    }
+}
+
+TEST(Hostile, OutputsReplaceLinksAndLeaveNoTemporaries) {
+    const fs::path dir = scratch();
+    const fs::path victim = dir / "victim.txt";
+    std::ofstream(victim) << "keep me";
+    const fs::path out = dir / "out";
+    fs::create_directories(out);
+    fs::create_symlink(victim, out / "design.json");  // a link planted at an output name
+    const CommandRun r = run("design " + source("demo/scenario.yaml") + " --out " + out.string());
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    EXPECT_EQ(slurp(victim), "keep me");
+    EXPECT_FALSE(fs::is_symlink(out / "design.json"));
+    EXPECT_NO_THROW(json::parse(slurp(out / "design.json")));
+    for (const auto& entry : fs::directory_iterator(out))
+        EXPECT_NE(entry.path().filename().string()[0], '.') << "temporary left: " << entry.path();
+    fs::remove_all(dir);
+}
+
+TEST(Hostile, NamesCannotBreakAnOutputFormat) {
+    const std::string name = "band|<script>x</script>, \"A\"";
+    const fs::path file = write_case(edited_copy("demo/scenario.yaml", "  - name: band-100x4\n",
+                                                 "  - name: 'band|<script>x</script>, \"A\"'\n"));
+    const fs::path out = file.parent_path() / "out";
+    ASSERT_EQ(run("design " + file.string() + " --out " + out.string()).exit_code, 0);
+    const std::string md = slurp(out / "design.md");
+    EXPECT_EQ(md.find("<script>"), std::string::npos);
+    EXPECT_NE(md.find("band\\|&lt;script&gt;"), std::string::npos);
+    // Every row of the results table has as many cells as its header.
+    const auto table = md.substr(md.find("## Results"));
+    std::istringstream lines(table);
+    std::string line;
+    long cells = -1;
+    while (std::getline(lines, line)) {
+        if (line.rfind("|", 0) != 0) continue;
+        long n = 0;
+        for (std::size_t i = 0; i < line.size(); ++i)
+            if (line[i] == '|' && (i == 0 || line[i - 1] != '\\')) ++n;
+        if (cells < 0) cells = n;
+        EXPECT_EQ(n, cells) << line;
+    }
+    ASSERT_EQ(run("report " + file.string() + " --out " + out.string()).exit_code, 0);
+    const std::string html = slurp(out / "report.html");
+    EXPECT_EQ(html.find("<script>"), std::string::npos);
+    EXPECT_NE(html.find("&lt;script&gt;"), std::string::npos);
+    const std::string csv = slurp(out / "design.csv");
+    EXPECT_NE(csv.find("\"band|<script>x</script>, \"\"A\"\"\","), std::string::npos) << csv;
+    (void)name;
+    fs::remove_all(file.parent_path());
+}
