@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # Builds and runs the whole test suite: a release build (warnings as errors), then the same suite
-# under AddressSanitizer + UndefinedBehaviorSanitizer.
+# under AddressSanitizer + UndefinedBehaviorSanitizer, then a bounded libFuzzer run of the scenario
+# loader, design and writers (clang; fails on any finding).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 bash scripts/install-deps.sh --test
@@ -17,3 +18,21 @@ cmake --build build/sanitize -j "$jobs"
 # runs in the release tree only, where it is fast.
 ASAN_OPTIONS=detect_leaks=1:abort_on_error=1 UBSAN_OPTIONS=print_stacktrace=1:halt_on_error=1 \
   ctest --test-dir build/sanitize --output-on-failure -j "$jobs" -LE matrix
+
+# Fuzz: about two minutes from the bundled scenarios as seeds (FUZZ_SECONDS to change). New corpus
+# entries and any finding go to a temporary folder; a finding fails the run and is printed.
+CXX=clang++ cmake -S . -B build/fuzz -G Ninja -DCMAKE_BUILD_TYPE=Debug -DWICKGRID_FUZZ=ON -DWICKGRID_TESTS=OFF \
+      -DWICKGRID_BENCH=OFF -DCMAKE_CXX_FLAGS="-O1"
+cmake --build build/fuzz -j "$jobs" --target wickgrid_fuzz_scenario
+fuzz_dir=$(mktemp -d)
+mkdir -p "$fuzz_dir/corpus" "$fuzz_dir/findings"
+cp demo/scenario.yaml configs/*.yaml fuzz/corpus/*.yaml "$fuzz_dir/corpus/"
+if ! ./build/fuzz/wickgrid_fuzz_scenario "$fuzz_dir/corpus" -max_total_time="${FUZZ_SECONDS:-120}" -timeout=10 \
+      -rss_limit_mb=2048 -max_len=8192 -artifact_prefix="$fuzz_dir/findings/" > "$fuzz_dir/log" 2>&1; then
+  tail -n 60 "$fuzz_dir/log"
+  for f in "$fuzz_dir"/findings/*; do echo "finding $f:"; od -c "$f" | head -n 20; done
+  echo "fuzz: 0 passed, 1 failed"
+  exit 1
+fi
+grep -E "^Done [0-9]+ runs" "$fuzz_dir/log"
+rm -rf "$fuzz_dir"

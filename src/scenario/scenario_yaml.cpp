@@ -747,7 +747,9 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     Scenario s;
     s.file = file;
     Reader r(file, s.marks);
-    if (!root || root.IsNull()) r.fail_at({0, 0}, "", "the file is empty; a scenario needs at least 'schema: 1'");
+    if (!root || root.IsNull())
+        r.fail_at({0, 0}, "", "the file holds no keys (it is empty, or only comments or punctuation); a scenario needs at "
+                              "least 'schema: 1'");
     r.expect_map(root, "");
     r.allow_keys(root, "", top_keys);
     const double schema = r.number(root, "", "schema", {1.0, true, 1.0, true, ""});
@@ -820,6 +822,34 @@ std::size_t first_bad_utf8(const std::string& text) {
     return std::string::npos;
 }
 
+// The line where a second YAML document starts, if any: a '---' line after content, or content
+// after a '...' line (comments and blank lines are not content).
+std::optional<int> second_document_line(const std::string& text) {
+    std::istringstream lines(text);
+    std::string line;
+    bool content = false, ended = false;
+    for (int number = 1; std::getline(lines, line); ++number) {
+        if (!line.empty() && line.back() == '\r') line.pop_back();
+        const auto marker = [&](const char* m) {
+            return line.rfind(m, 0) == 0 && (line.size() == 3 || line[3] == ' ' || line[3] == '\t');
+        };
+        if (marker("---")) {
+            if (content || ended) return number;
+            content = true;  // the explicit start of the first document
+            continue;
+        }
+        if (marker("...")) {
+            ended = true;
+            continue;
+        }
+        const auto first = line.find_first_not_of(" \t");
+        if (first == std::string::npos || line[first] == '#') continue;
+        if (ended) return number;
+        content = true;
+    }
+    return std::nullopt;
+}
+
 // Line and column (in characters) of a byte offset.
 Mark mark_at(const std::string& text, std::size_t offset) {
     Mark m{1, 1};
@@ -840,17 +870,19 @@ Scenario parse_scenario(const std::string& text, const std::string& file_label) 
                                 std::string(1, "0123456789abcdef"[static_cast<unsigned char>(text[bad]) >> 4]) +
                                 std::string(1, "0123456789abcdef"[static_cast<unsigned char>(text[bad]) & 15]) +
                                 "); save it as UTF-8");
-    std::vector<YAML::Node> documents;
+    // A second document would be silently ignored by YAML::Load. (yaml-cpp's LoadAll is not used:
+    // it loops for ever on some inputs, "," among them.) At column 1 a '---' or '...' can only be a
+    // document marker, so a line scan finds the second document exactly.
+    if (const auto second = second_document_line(text))
+        throw ScenarioError(file_label, {*second, 1}, "",
+                            "a second YAML document; a scenario file holds one (remove the '---' and what follows, or "
+                            "split the file)");
+    YAML::Node root;
     try {
-        documents = YAML::LoadAll(text);
+        root = YAML::Load(text);
     } catch (const YAML::ParserException& e) {
         throw ScenarioError(file_label, {e.mark.line + 1, e.mark.column + 1}, "", "YAML syntax: " + e.msg);
     }
-    if (documents.size() > 1)
-        throw ScenarioError(file_label, mark_of(documents[1]), "",
-                            "a second YAML document; a scenario file holds one (remove the '---' and what follows, or "
-                            "split the file)");
-    const YAML::Node root = documents.empty() ? YAML::Node() : documents.front();
     try {
         return read(root, file_label);
     } catch (const YAML::Exception& e) {  // structure yaml-cpp could not convert
