@@ -159,6 +159,7 @@ TEST(Hostile, OutputsReplaceLinksAndLeaveNoTemporaries) {
     const fs::path out = dir / "out";
     fs::create_directories(out);
     fs::create_symlink(victim, out / "design.json");  // a link planted at an output name
+    fs::create_directories(out / ".wickgrid-out-999999999-abcdef");  // left by a killed run (no such pid)
     const CommandRun r = run("design " + source("demo/scenario.yaml") + " --out " + out.string());
     ASSERT_EQ(r.exit_code, 0) << r.err;
     EXPECT_EQ(slurp(victim), "keep me");

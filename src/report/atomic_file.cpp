@@ -1,10 +1,12 @@
 #include "report/atomic_file.hpp"
 
 #include <fcntl.h>
+#include <signal.h>
 #include <sys/stat.h>
 #include <unistd.h>
 
 #include <cerrno>
+#include <cstdlib>
 #include <cstring>
 #include <filesystem>
 #include <system_error>
@@ -62,8 +64,28 @@ void write_file_atomically(const std::string& path, const std::string& content) 
     }
 }
 
+namespace {
+// Staging folders left by a run that was killed (kill -9 cannot be cleaned up after): their names
+// carry the process id, and a folder whose process is gone is removed by the next run.
+void remove_stale_staging(const std::string& dir) {
+    std::error_code ec;
+    for (const auto& entry : fs::directory_iterator(dir, ec)) {
+        const std::string name = entry.path().filename().string();
+        const std::string prefix = ".wickgrid-out-";
+        if (name.rfind(prefix, 0) != 0 || !entry.is_directory(ec)) continue;
+        const auto dash = name.find('-', prefix.size());
+        if (dash == std::string::npos) continue;
+        char* end = nullptr;
+        const long pid = std::strtol(name.c_str() + prefix.size(), &end, 10);
+        if (end != name.c_str() + dash || pid <= 0) continue;
+        if (::kill(static_cast<pid_t>(pid), 0) != 0 && errno == ESRCH) fs::remove_all(entry.path(), ec);
+    }
+}
+}  // namespace
+
 void write_files_atomically(const std::string& dir, const std::vector<std::pair<std::string, std::string>>& files) {
-    std::string pattern = (fs::path(dir) / ".wickgrid-out-XXXXXX").string();
+    remove_stale_staging(dir);
+    std::string pattern = (fs::path(dir) / (".wickgrid-out-" + std::to_string(::getpid()) + "-XXXXXX")).string();
     if (!::mkdtemp(pattern.data()))
         throw OutputError("cannot create a temporary folder in " + dir + ": " + std::strerror(errno));
     const fs::path staging(pattern);
