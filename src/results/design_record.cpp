@@ -189,8 +189,12 @@ std::vector<std::string> method_notes(const Site& site) {
             "conduit of capacity qw, layered cv/ch/mv, drains that may stop short of the clay base; backward Euler). "
             "Uv is the same cell without a drain; Ur is the radial degree that Carrillo's rule would need to give U. "
             "μ is the depth mean of μ(z) of Hansbo (1981) with each layer's kh = ch·mv·γw.");
-        if (site.ground.profile)
+        if (site.ground.profile) {
             notes.push_back("Storage mv of an e–log layer: the secant under the final permanent load.");
+            if (site.ground.kh_m_per_s)
+                notes.push_back("With layers, each layer's kh is ch·mv·γw of that layer; the clay-wide kh_m_per_s "
+                                "given in the scenario is not used.");
+        }
     } else {
         notes = {
             "Vertical flow: Terzaghi (1925), average degree Uv(Tv), Tv = cv·t/d², d = H (one drained face) or H/2 (two).",
