@@ -49,6 +49,7 @@ public:
 
 private:
     double radial(double spacing_m, double time_s) const;
+    double first_guess(double target_degree, double uv, double deadline_s) const;  // 0: none
 
     CellSpec spec_;
     SpacingBounds bounds_;
