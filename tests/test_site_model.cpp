@@ -224,3 +224,20 @@ TEST(SiteModel, EveryCsvQuotesPerRfc4180) {
     EXPECT_NE(mc.out.find("\n" + quoted + "triangular,"), std::string::npos) << mc.err;
     fs::remove_all(file.parent_path());
 }
+
+TEST(SiteModel, MonteCarloSamplesTheNumericalCell) {
+    // The layered numerical site through the generic path: inputs held at their scenario values
+    // reproduce the design in every sample (probability 1, reliability spacing = the limit).
+    const auto s = scenario::load_scenario(source("configs/layered-partial-numerical.yaml"));
+    const DesignResult base = run_design(s.site);
+    MonteCarloSpec mc;
+    mc.samples = 3;
+    mc.inputs = {{StudyInput::smear_permeability_ratio, {DistributionKind::uniform, 3.0, 3.0}}};
+    const MonteCarloResult result = monte_carlo(s.site, base, mc);
+    for (std::size_t k = 0; k < base.rows.size(); ++k) {
+        EXPECT_EQ(result.rows[k].probability, 1.0);
+        EXPECT_NEAR(*result.rows[k].reliability_spacing_m, base.rows[k].spacing_limit_m, 1e-9);
+    }
+    mc.samples = 1000;  // 2000 numerical searches: beyond the stated budget of 500
+    EXPECT_THROW(monte_carlo(s.site, base, mc), InputError);
+}

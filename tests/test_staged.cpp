@@ -164,8 +164,21 @@ TEST(Staged, StudiesHonourTheCriterionAndLoading) {
             }
         }
     }
+    // Monte Carlo on the staged, residual-criterion site: with the input held at its scenario value
+    // (a zero-width distribution) every sample is the design itself, so each meets the criterion at
+    // the chosen spacing and the reliability spacing is the design's limit.
     MonteCarloSpec mc;
-    mc.samples = 10;
-    mc.inputs = {{StudyInput::smear_permeability_ratio, {DistributionKind::uniform, 2.0, 4.0}}};
-    EXPECT_THROW(monte_carlo(input, base, mc), EvaluationError);
+    mc.samples = 12;
+    mc.threads = 2;
+    mc.inputs = {{StudyInput::smear_permeability_ratio, {DistributionKind::uniform, 3.0, 3.0}}};
+    const MonteCarloResult result = monte_carlo(input, base, mc);
+    ASSERT_EQ(result.rows.size(), base.rows.size());
+    for (std::size_t k = 0; k < base.rows.size(); ++k) {
+        EXPECT_EQ(result.rows[k].probability, 1.0);
+        EXPECT_EQ(result.rows[k].unevaluated, 0u);
+        ASSERT_TRUE(result.rows[k].reliability_spacing_m.has_value());
+        EXPECT_NEAR(*result.rows[k].reliability_spacing_m, base.rows[k].spacing_limit_m, 1e-9);
+    }
+    mc.samples = 20000;  // beyond the search budget of a staged site: refused by name
+    EXPECT_THROW(monte_carlo(input, base, mc), InputError);
 }

@@ -139,6 +139,7 @@ struct MonteCarloRow {
     bool reliability_at_maximum = false;          // the quantile sits at the largest spacing allowed
     double feasible_fraction = 0.0;               // samples that meet the target at the minimum spacing
     double median_spacing_m = 0.0;
+    std::size_t unevaluated = 0;  // samples the site's model refused (counted as not meeting the criterion)
 };
 
 struct MonteCarloResult {
@@ -151,8 +152,10 @@ struct MonteCarloResult {
 using Progress = std::function<void(std::size_t done, std::size_t total)>;
 
 // Draws the uncertain inputs per sample and runs a full largest-spacing search for every product
-// and pattern (the closed form's exact fast search: a degree criterion under one instantaneous
-// load; other sites get EvaluationError, as they are not sampled yet). Samples are drawn in fixed chunks seeded from (seed, chunk), so results do not
+// and pattern: the closed form's exact fast search for a degree criterion under one instantaneous
+// load, otherwise the site's own cell models (staged loading, the residual criterion, the numerical
+// cell) within max_spacing_searches(site) searches in all (InputError beyond). A sample the model
+// refuses is counted in `unevaluated` and taken as not meeting the criterion. Samples are drawn in fixed chunks seeded from (seed, chunk), so results do not
 // depend on the number of threads.
 MonteCarloResult monte_carlo(const Site& base, const DesignResult& base_result, const MonteCarloSpec& spec,
                              const Progress& progress = {});

@@ -86,7 +86,12 @@ Runner add_sweep(CLI::App& app) {
             if (o->seed) spec.seed = *o->seed;
             spec.threads = o->threads;
             spdlog::info("Monte Carlo: {} samples × {} designs", spec.samples, record.result.rows.size());
+            const auto started = std::chrono::steady_clock::now();
             r.monte_carlo = monte_carlo(site, record.result, spec, progress_bar());
+            const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+            spdlog::info("Monte Carlo: {:.0f} samples per second, {} designs each, {} thread(s)",
+                         static_cast<double>(spec.samples) / std::max(seconds, 1e-9), record.result.rows.size(),
+                         r.monte_carlo->threads);
             r.monte_carlo_spec = spec;
         }
         const std::string json_text = report::sweep_json(record).dump(2) + "\n";

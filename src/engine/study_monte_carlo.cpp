@@ -59,15 +59,20 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
                              format_value(std::floor(defaults::max_monte_carlo_values /
                                                      static_cast<double>(std::max<std::size_t>(1, base_result.rows.size())))) +
                              " samples for " + std::to_string(base_result.rows.size()) + " rows)");
-    if (base_input.loading || !base_input.criterion.degree() || base_input.method.method != CellMethod::closed_form)
-        throw EvaluationError("Monte Carlo study",
-                              "samples closed-form designs for a degree under one instantaneous load only; staged "
-                              "loading, the residual-settlement criterion and the numerical method are not sampled yet");
+    // The closed form under one instantaneous load with a degree criterion samples through the exact
+    // fast search; every other site through its own cell models, within the study's search budget.
+    const bool fast = !base_input.loading && base_input.criterion.degree() &&
+                      base_input.method.method == CellMethod::closed_form;
+    if (!fast && values > max_spacing_searches(base_input))
+        throw InputError("Monte Carlo samples × design rows", values,
+                         "at most " + format_value(max_spacing_searches(base_input)) +
+                             " spacing searches for this site's method and loading (staged loading, the residual "
+                             "criterion and the numerical cell search on cell models): use fewer samples");
     for (const auto& in : spec.inputs)
         if (in.input == StudyInput::discharge_capacity && base_input.products.size() != 1)
             throw InputError(std::string(to_string(in.input)), 0.0,
                              "sampled on a site with one drain product; vary discharge_capacity_factor instead");
-    const auto* degree = base_input.criterion.degree();
+    const double target = fast ? base_input.criterion.degree()->degree : 0.0;
     const SpacingBounds bounds = base_input.range.bounds;
     require_open_unit("reliability", spec.reliability);
     require_open_unit("confidence", spec.confidence);
@@ -93,16 +98,25 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
     const bool correlated = ch_at >= 0 && cv_at >= 0 && spec.ch_cv_correlation != 0.0;
     const double rho = spec.ch_cv_correlation, rho_c = std::sqrt(1.0 - rho * rho);
 
+    // Every sampled input must apply to this site (e.g. a layer-wise cv cannot be sampled as one
+    // value): checked once at the median, so a refusal is named before any sample runs.
+    for (std::size_t j = 0; j < spec.inputs.size(); ++j) with_input(base, spec.inputs[j].input, draws[j].quantile(0.5));
     std::vector<Combination> combos;
     for (const DesignRow& row : base_result.rows) {
         const DrainProductSpec& product = base.product(row.drain);
-        combos.push_back({closed_form_cell(base_input, product, row.pattern, bounds.min_m),
+        combos.push_back({fast ? closed_form_cell(base_input, product, row.pattern, bounds.min_m) : CellSpec{},
                           spec.spacing_m.value_or(row.spacing_m)});
     }
 
     const std::size_t n = spec.samples;
+    // Samples are seeded per chunk, so results do not depend on the thread count; a search on cell
+    // models costs a millisecond or more, so those run in small chunks to keep both cores busy.
+    const std::size_t chunk = fast ? chunk_size : 16;
     std::vector<std::vector<double>> limits(combos.size(), std::vector<double>(n, 0.0));
-    const std::size_t chunks = (n + chunk_size - 1) / chunk_size;
+    // Samples the site's model could not evaluate (an input it refuses): counted, and taken as not
+    // meeting the criterion.
+    std::vector<std::vector<unsigned char>> unevaluated(combos.size(), std::vector<unsigned char>(fast ? 0 : n, 0));
+    const std::size_t chunks = (n + chunk - 1) / chunk;
     const unsigned threads = std::max(1u, std::min<unsigned>(spec.threads ? spec.threads : std::thread::hardware_concurrency(),
                                                              static_cast<unsigned>(chunks)));
     std::atomic<std::size_t> next_chunk{0}, done{0};
@@ -119,8 +133,8 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
                 std::seed_seq seq{static_cast<std::uint32_t>(spec.seed), static_cast<std::uint32_t>(spec.seed >> 32),
                                   static_cast<std::uint32_t>(c), static_cast<std::uint32_t>(c >> 32)};
                 std::mt19937_64 rng(seq);
-                const std::size_t end = std::min(n, (c + 1) * chunk_size);
-                for (std::size_t i = c * chunk_size; i < end; ++i) {
+                const std::size_t end = std::min(n, (c + 1) * chunk);
+                for (std::size_t i = c * chunk; i < end; ++i) {
                     for (auto& x : u) x = open_uniform(rng);
                     if (correlated) {
                         const double z1 = boost::math::quantile(standard, u[ch_at]);
@@ -129,16 +143,33 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
                         u[cv_at] = std::min(std::max(u[cv_at], 0x1.0p-60), 1.0 - 0x1.0p-53);
                     }
                     for (std::size_t j = 0; j < spec.inputs.size(); ++j) u[j] = draws[j].quantile(u[j]);
+                    if (!fast) {
+                        Site varied = base;
+                        for (std::size_t j = 0; j < spec.inputs.size(); ++j)
+                            varied = with_input(varied, spec.inputs[j].input, u[j]);
+                        for (std::size_t k = 0; k < combos.size(); ++k) {
+                            const DesignRow& row = base_result.rows[k];
+                            try {
+                                const SpacingLimit limit = spacing_limit(varied, varied.product(row.drain), row.pattern);
+                                limits[k][i] = limit.feasible ? limit.spacing_m : 0.0;
+                            } catch (const InputError&) {
+                                unevaluated[k][i] = 1;
+                            } catch (const EvaluationError&) {
+                                unevaluated[k][i] = 1;
+                            }
+                        }
+                        continue;
+                    }
                     for (std::size_t k = 0; k < combos.size(); ++k) {
                         CellSpec cell = combos[k].cell;
                         for (std::size_t j = 0; j < spec.inputs.size(); ++j)
                             apply(cell, combos[k].cell, base, spec.inputs[j].input, u[j]);
                         solver.reset(cell, bounds);
-                        const SpacingLimit limit = solver.solve(degree->degree, base.criterion.deadline_s);
+                        const SpacingLimit limit = solver.solve(target, base.criterion.deadline_s);
                         limits[k][i] = limit.feasible ? limit.spacing_m : 0.0;
                     }
                 }
-                done += end - c * chunk_size;
+                done += end - c * chunk;
             }
         } catch (...) {
             std::lock_guard<std::mutex> lock(failure_mutex);
@@ -169,6 +200,7 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
         row.drain = base_result.rows[k].drain;
         row.pattern = base_result.rows[k].pattern;
         row.spacing_m = combos[k].eval_spacing_m;
+        row.unevaluated = static_cast<std::size_t>(std::count(unevaluated[k].begin(), unevaluated[k].end(), 1));
         // A sample meets the target at spacing x exactly when its own limit is at least x.
         const auto first_ok = std::lower_bound(s.begin(), s.end(), row.spacing_m - 1e-12);
         const auto successes = static_cast<double>(s.end() - first_ok);

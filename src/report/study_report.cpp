@@ -4,6 +4,7 @@
 
 #include "report/design_report.hpp"
 #include "wickgrid/names.hpp"
+#include "wickgrid/units.hpp"
 
 namespace wickgrid::report {
 
@@ -80,7 +81,8 @@ nlohmann::json sweep_json(const results::DesignRecord& record) {
                              m.reliability_spacing_m ? json(*m.reliability_spacing_m) : json(nullptr)},
                             {"reliability_at_max_spacing", m.reliability_at_maximum},
                             {"median_spacing_limit_m", m.median_spacing_m},
-                            {"feasible_fraction", m.feasible_fraction}});
+                            {"feasible_fraction", m.feasible_fraction},
+                            {"unevaluated_samples", m.unevaluated}});
         const auto& spec = *r.monte_carlo_spec;
         doc["monte_carlo"] = {{"samples", r.monte_carlo->samples}, {"seed", r.monte_carlo->seed},
                               {"reliability", spec.reliability}, {"confidence", spec.confidence},
@@ -122,9 +124,10 @@ std::string monte_carlo_csv(const MonteCarloResult& mc) {
     for (const auto& m : mc.rows)
         out.push_back({m.drain, std::string(to_string(m.pattern)), csv_number(m.spacing_m), csv_number(m.probability),
                        csv_number(m.probability_low), csv_number(m.probability_high), csv_number(m.reliability_spacing_m),
-                       csv_number(m.median_spacing_m), csv_number(m.feasible_fraction)});
+                       csv_number(m.median_spacing_m), csv_number(m.feasible_fraction),
+                       std::to_string(m.unevaluated)});
     return csv_document({"drain", "pattern", "spacing_m", "probability", "probability_low", "probability_high",
-                         "reliability_spacing_m", "median_spacing_limit_m", "feasible_fraction"},
+                         "reliability_spacing_m", "median_spacing_limit_m", "feasible_fraction", "unevaluated_samples"},
                         out);
 }
 
@@ -177,12 +180,16 @@ std::string sweep_table(const results::DesignRecord& record) {
         out << "\nMonte Carlo: " << r.monte_carlo->samples << " samples, seed " << r.monte_carlo->seed << "\n";
         for (const auto& m : r.monte_carlo->rows) {
             out << "  " << m.drain << " / " << to_string(m.pattern) << ": P(" << results::criterion_label(record.site())
-                << " by the deadline at " << fixed(m.spacing_m, 2) << " m) = " << fixed(100.0 * m.probability, 1) << " % ("
+                << " at " << fixed(m.spacing_m, 2) << " m, deadline day "
+                << fixed(units::seconds_to_days(record.site().criterion.deadline_s), 0) << ") = " << fixed(100.0 * m.probability, 1) << " % ("
                 << fixed(100.0 * spec.confidence, 0) << " % interval " << fixed(100.0 * m.probability_low, 1) << "–"
                 << fixed(100.0 * m.probability_high, 1) << " %); spacing for " << fixed(100.0 * spec.reliability, 0)
                 << " % reliability: "
                 << (m.reliability_spacing_m ? fixed(*m.reliability_spacing_m, 3) + " m" + (m.reliability_at_maximum ? "+" : "")
                                             : std::string("none within the spacing range"))
+                << (m.unevaluated ? "; " + std::to_string(m.unevaluated) + " sample(s) the model could not evaluate, "
+                                        "counted as not meeting the criterion"
+                                  : std::string())
                 << "\n";
         }
     }

@@ -621,6 +621,8 @@ void read_uncertain(const Reader& r, const YAML::Node& root, Scenario& s) {
     };
     mc.samples = static_cast<std::size_t>(whole("samples", 1.0, 1e9, 10000.0));
     const double rows = static_cast<double>(s.site.products.size() * s.site.range.patterns.size());
+    // The search budget of a staged or numerical site is checked when the study runs (`sweep`): a
+    // design of the same file does not depend on it.
     if (static_cast<double>(mc.samples) * rows > defaults::max_monte_carlo_values)
         r.fail(node["samples"], p + ".samples",
                format_value(static_cast<double>(mc.samples)) + " samples × " + format_value(rows) +
