@@ -32,7 +32,7 @@ void validate_drain(const DrainInstallation& drain, const Clay& clay) {
     if (std::fabs(drain.length_m - clay.thickness_m) > 1e-9 * clay.thickness_m)
         throw InputError("drain length (m)", drain.length_m,
                          "equal to the clay thickness " + format_value(clay.thickness_m) +
-                             " m (partially penetrating drains are not supported yet)");
+                             " m with the closed form (drains that stop short of the clay base need the numerical method)");
     if (drain.theory == RadialTheory::hansbo_1981 && drain.smear_shape != SmearShape::constant)
         throw InputError("smear shape", static_cast<double>(drain.smear_shape),
                          "constant with the Hansbo (1981) closed form; use the equal-strain integral "
