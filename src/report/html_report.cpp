@@ -154,7 +154,17 @@ figure svg { max-width: 100%; height: auto; }
 figcaption { font-size: .85rem; color: #4a5868; }
 footer { margin-top: 2rem; font-size: .8rem; color: #4a5868; }
 @page { size: A4; margin: 15mm; }
-@media print { body { max-width: none; padding: 0; font-size: 10pt; } h2 { page-break-after: avoid; } table { page-break-inside: avoid; } }
+@page wide { size: A4 landscape; margin: 10mm; }
+@media print {
+  body { max-width: none; padding: 0; font-size: 10pt; }
+  h2 { page-break-after: avoid; }
+  table { page-break-inside: avoid; }
+  /* On paper every column of the results stands: no scrolling box, a landscape page of its own. */
+  .wide { overflow: visible; }
+  section.results-section { page: wide; }
+  table.results { font-size: 6.5pt; width: 100%; }
+  table.results th, table.results td { padding: .1rem .15rem; }
+}
 )";
 
 std::string cell(const std::string& key, double value, const std::string& shown) {
@@ -219,7 +229,8 @@ ReportBundle build_report(const results::DesignRecord& record) {
     o << "<section class=\"verdict\"><h2>Result</h2><p id=\"recommendation\">" << escape_xml(results::recommendation(record))
       << "</p></section>\n";
     o << "<section><h2>Inputs</h2>\n" << inputs_table(record) << "</section>\n";
-    o << "<section><h2>Results for every drain and pattern</h2>\n" << results_table(record) << "</section>\n";
+    o << "<section class=\"results-section\"><h2>Results for every drain and pattern</h2>\n" << results_table(record)
+      << "</section>\n";
     o << "<section><h2>Charts</h2>\n";
     for (std::size_t i = 0; i < bundle.charts.size(); ++i)
         o << "<figure id=\"chart-" << i + 1 << "\">\n" << bundle.charts[i].svg << "<figcaption>Figure " << i + 1 << ". "

@@ -125,6 +125,20 @@ def main():
             check(not_blank(png), "the rendered PNG is blank")
         if os.path.exists(pdf):
             check(open(pdf, "rb").read(5) == b"%PDF-" and os.path.getsize(pdf) > 10000, "the PDF is empty")
+            # On paper the results table keeps its last columns (a landscape page, no scrolling box)
+            # and no page is larger than A4 (Debian poppler-utils reads the PDF).
+            if shutil.which("pdftotext") and shutil.which("pdfinfo"):
+                text = subprocess.run(["pdftotext", "-layout", pdf, "-"], capture_output=True, text=True).stdout
+                for heading in ("drains/ha", "cost/ha", "t90"):
+                    check(heading in text, f"printed report: column heading '{heading}' missing")
+                info = subprocess.run(["pdfinfo", "-f", "1", "-l", "999", pdf], capture_output=True, text=True).stdout
+                sizes = re.findall(r"Page\s+\d+ size:\s+([\d.]+) x ([\d.]+) pts", info)
+                check(bool(sizes), "pdfinfo gave no page sizes")
+                for w, h in sizes:
+                    check(max(float(w), float(h)) <= 842.5 and min(float(w), float(h)) <= 595.5,
+                          f"a printed page is larger than A4: {w} x {h} pts")
+            else:
+                check(False, "poppler-utils (pdftotext, pdfinfo) is not installed (scripts/install-deps.sh --test)")
         check(requests == [], f"the report requested {requests}")
         # Control: a page that loads a loopback URL is seen by the same detector.
         control = os.path.join(work, "control.html")
