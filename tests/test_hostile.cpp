@@ -171,7 +171,6 @@ TEST(Hostile, OutputsReplaceLinksAndLeaveNoTemporaries) {
 }
 
 TEST(Hostile, NamesCannotBreakAnOutputFormat) {
-    const std::string name = "band|<script>x</script>, \"A\"";
     const fs::path file = write_case(edited_copy("demo/scenario.yaml", "  - name: band-100x4\n",
                                                  "  - name: 'band|<script>x</script>, \"A\"'\n"));
     const fs::path out = file.parent_path() / "out";
@@ -198,6 +197,5 @@ TEST(Hostile, NamesCannotBreakAnOutputFormat) {
     EXPECT_NE(html.find("&lt;script&gt;"), std::string::npos);
     const std::string csv = slurp(out / "design.csv");
     EXPECT_NE(csv.find("\"band|<script>x</script>, \"\"A\"\"\","), std::string::npos) << csv;
-    (void)name;
     fs::remove_all(file.parent_path());
 }

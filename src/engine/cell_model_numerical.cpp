@@ -35,7 +35,7 @@ double mu_depth_mean_layered(const NumericalCellSpec& spec, double mu_smear) {
     return sum / points;
 }
 
-CellFigures figures_of(const Site& site, const NumericalCellSpec& spec, Pattern pattern, double spacing_m) {
+CellFigures figures_of(const Site& site, const NumericalCellSpec& spec, double spacing_m) {
     CellFigures f;
     f.equivalent_diameter_m = spec.drain_diameter_m;
     f.smear_diameter_m = spec.smear_diameter_m;
@@ -48,7 +48,6 @@ CellFigures figures_of(const Site& site, const NumericalCellSpec& spec, Pattern 
     drain.smear_shape = spec.smear_shape;
     drain.smear_permeability_ratio = spec.smear_permeability_ratio;
     drain.theory = site.installation.theory;
-    (void)pattern;
     f.mu_smear = smear_mu(drain, f.n, spacing_m);
     f.mu_depth_mean = mu_depth_mean_layered(spec, f.mu_smear);
     f.drain_length_m = spec.drain_length_m;
@@ -84,9 +83,9 @@ void check_times(const std::vector<double>& times_s) {
 
 class NumericalModel final : public CellModel {
 public:
-    NumericalModel(const Site& site, const NumericalCellSpec& spec, Pattern pattern, double spacing_m,
+    NumericalModel(const Site& site, const NumericalCellSpec& spec, double spacing_m,
                    std::optional<double> final_m)
-        : CellModel(figures_of(site, spec, pattern, spacing_m), final_m),
+        : CellModel(figures_of(site, spec, spacing_m), final_m),
           cell_(spec, site.method.mesh),
           vertical_(without_drain(spec), site.method.mesh) {}
 
@@ -157,7 +156,7 @@ std::unique_ptr<CellModel> make_numerical_model(const Site& site, const DrainPro
         const auto ultimate = ultimate_settlement_function(site);
         final_m = ultimate(site.loading->permanent_kPa()) - ultimate(0.0);
     }
-    return std::make_unique<NumericalModel>(site, spec, pattern, spacing_m, final_m);
+    return std::make_unique<NumericalModel>(site, spec, spacing_m, final_m);
 }
 
 }  // namespace wickgrid::detail

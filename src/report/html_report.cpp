@@ -27,12 +27,7 @@ LineChart time_chart(const Site& site, std::string title, std::string x_label, s
     return c;
 }
 
-bool log_spaced(const results::Curve& curve) {
-    return curve.points.size() > 2 && curve.points.front().time_s > 0.0;  // log times start after 0
-}
-
-Chart degree_chart(const Site& site, const results::Curve& curve) {
-    const bool log_time = log_spaced(curve);
+Chart degree_chart(const Site& site, const results::Curve& curve, bool log_time) {
     LineChart c = time_chart(site,
                              "Degree of consolidation, " + curve.drain + ", " + std::string(to_string(curve.pattern)) +
                                  " at " + fixed(curve.spacing_m, 2) + " m",
@@ -61,10 +56,10 @@ Chart degree_chart(const Site& site, const results::Curve& curve) {
             render(c)};
 }
 
-Chart settlement_chart(const Site& site, const std::vector<results::Curve>& curves) {
+Chart settlement_chart(const Site& site, const std::vector<results::Curve>& curves, bool log_time) {
     LineChart c = time_chart(site, "Settlement, " + curves.front().drain, "time since start of loading (days)",
                              "settlement (mm)");
-    c.log_x = log_spaced(curves.front());
+    c.log_x = log_time;
     int style = 0;
     for (const auto& curve : curves) {
         Series ser{std::string(to_string(curve.pattern)) + " " + fixed(curve.spacing_m, 2) + " m", {}, {}, style++};
@@ -215,11 +210,11 @@ ReportBundle build_report(const results::DesignRecord& record) {
     const Site& site = record.site();
     const auto& s = *record.scenario;
     ReportBundle bundle;
-    for (const auto& curve : record.chart_curves) bundle.charts.push_back(degree_chart(site, curve));
+    for (const auto& curve : record.chart_curves) bundle.charts.push_back(degree_chart(site, curve, record.log_time));
     if (!record.spacing_vs_time.empty())
         bundle.charts.push_back(design_chart(site, record.spacing_vs_time, record.chart_curves.front().drain));
     if (!record.chart_curves.empty() && record.chart_curves.front().points.front().settlement_m)
-        bundle.charts.push_back(settlement_chart(site, record.chart_curves));
+        bundle.charts.push_back(settlement_chart(site, record.chart_curves, record.log_time));
     for (auto& c : study_charts(record.studies, record.chart_curves, record.result)) bundle.charts.push_back(std::move(c));
 
     std::ostringstream o;

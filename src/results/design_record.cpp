@@ -5,6 +5,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "report/format.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/names.hpp"
 #include "wickgrid/units.hpp"
@@ -12,11 +13,7 @@
 namespace wickgrid::results {
 
 namespace {
-std::string fixed(double value, int decimals) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
-    return buffer;
-}
+using report::fixed;  // one number format for every piece of text
 double days(double s) { return units::seconds_to_days(s); }
 
 // Chart times: evenly or log-spaced over 1.5 × (3 × on a log axis) the deadline, with the
@@ -85,6 +82,7 @@ DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& opt
                                                    chart_times(site.criterion.deadline_s, options.log_time)));
             record.spacing_vs_time.push_back(spacing_series(site, *row));
         }
+    record.log_time = options.charts && options.log_time;
     record.assumptions = assumptions(site);
     record.method_notes = method_notes(site);
     return record;

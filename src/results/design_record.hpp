@@ -45,6 +45,7 @@ struct DesignRecord {
     std::vector<std::string> warnings;
     std::vector<std::string> assumptions;
     std::vector<std::string> method_notes;
+    bool log_time = false;  // chart curves spaced logarithmically in time
 
     const Site& site() const { return scenario->site; }
 };
