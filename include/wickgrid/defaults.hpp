@@ -51,5 +51,10 @@ inline constexpr double max_monte_carlo_values = 2e7;           // samples × de
 inline constexpr double max_searches_fast = 1e6;
 inline constexpr double max_searches_generic = 2e4;
 inline constexpr double max_searches_numerical = 500;
+// Drains one layout may lay (about 10 km² at 1 m spacing; each drain costs ~100 bytes of output).
+inline constexpr std::size_t max_layout_drains = 20000000;
+
+// Layout.
+inline constexpr double layout_edge_offset_m = 0.0;  // drains may stand on the treatment area's edge
 
 }  // namespace wickgrid::defaults

@@ -84,16 +84,17 @@ void print_stdout(const std::string& text) {
         throw report::OutputError(std::string("cannot write to standard output: ") + std::strerror(errno));
 }
 
-void write_outputs(const std::string& dir, const std::string& input_file,
+void write_outputs(const std::string& dir, const std::vector<std::string>& input_files,
                    const std::vector<std::pair<std::string, std::string>>& files) {
     namespace fs = std::filesystem;
     report::ensure_directory(dir);
     for (const auto& [name, content] : files) {
         const fs::path path = fs::path(dir) / name;
         std::error_code ec;
-        // Identity, not name: a link or another spelling of the input's path is the input too.
-        if (fs::exists(path, ec) && fs::equivalent(path, fs::path(input_file), ec))
-            throw report::OutputError("refusing to overwrite the input file " + input_file + " with " + path.string());
+        // Identity, not name: a link or another spelling of an input's path is the input too.
+        for (const auto& input_file : input_files)
+            if (fs::exists(path, ec) && fs::equivalent(path, fs::path(input_file), ec))
+                throw report::OutputError("refusing to overwrite the input file " + input_file + " with " + path.string());
     }
     report::write_files_atomically(dir, files);
 }

@@ -31,7 +31,7 @@ Runner add_design(CLI::App& app) {
         for (const auto& w : record.warnings) spdlog::warn("{}", w);
         const auto json_text = report::design_json(record).dump(2) + "\n";
         if (!o->out_dir.empty()) {
-            write_outputs(o->out_dir, o->file,
+            write_outputs(o->out_dir, {o->file},
                           {{"design.json", json_text}, {"design.csv", report::design_csv(record)},
                            {"design.md", report::design_markdown(record)}});
             spdlog::info("wrote design.json, design.csv and design.md to {}", o->out_dir);

@@ -30,7 +30,7 @@ Runner add_report(CLI::App& app) {
         const auto bundle = report::build_report(record);
         std::vector<std::pair<std::string, std::string>> files{{"report.html", bundle.html}};
         for (const auto& chart : bundle.charts) files.emplace_back(chart.file, chart.svg);
-        write_outputs(o->out_dir, o->file, files);
+        write_outputs(o->out_dir, {o->file}, files);
         print_stdout("wrote " + o->out_dir + "/report.html and " + std::to_string(bundle.charts.size()) + " chart(s)\n");
         return static_cast<int>(record.result.any_feasible() ? ok : no_feasible_design);
     };

@@ -100,7 +100,7 @@ Runner add_sweep(CLI::App& app) {
             if (r.tornado) files.emplace_back("tornado.csv", report::tornado_csv(site, *r.tornado));
             if (r.grid) files.emplace_back("grid.csv", report::grid_csv(*r.grid, r.grid_x, r.grid_y));
             if (r.monte_carlo) files.emplace_back("monte_carlo.csv", report::monte_carlo_csv(*r.monte_carlo));
-            write_outputs(o->out_dir, o->file, files);
+            write_outputs(o->out_dir, {o->file}, files);
         }
         if (o->json) print_stdout(json_text);
         else if (o->csv) print_stdout(r.tornado ? report::tornado_csv(site, *r.tornado)

@@ -37,6 +37,7 @@ Runner add_sweep(CLI::App& app);
 Runner add_surcharge(CLI::App& app);
 Runner add_report(CLI::App& app);
 Runner add_verify(CLI::App& app);
+Runner add_layout(CLI::App& app);
 
 // Number checks with plain messages (no NaN, no infinity, no 309-digit bounds).
 CLI::Validator positive_number();
@@ -59,8 +60,8 @@ void print_stdout(const std::string& text);
 // The command name nearest to an unknown one, for "did you mean" (empty when nothing is near).
 std::string nearest_command(const std::string& word, const std::vector<std::string>& commands);
 
-// Writes files into an output folder whole or not at all, refusing to overwrite the input file.
-void write_outputs(const std::string& dir, const std::string& input_file,
+// Writes files into an output folder whole or not at all, refusing to overwrite any input file.
+void write_outputs(const std::string& dir, const std::vector<std::string>& input_files,
                    const std::vector<std::pair<std::string, std::string>>& files);
 
 }  // namespace wickgrid::cli

@@ -1,0 +1,111 @@
+// wickgrid layout FILE --area AREA --drain NAME --pattern P --spacing S: drain positions over the
+// treatment area, counts and lengths, for setting out and the bill of quantities.
+#include <spdlog/spdlog.h>
+
+#include <cmath>
+
+#include "commands.hpp"
+#include "report/layout_report.hpp"
+#include "results/layout_record.hpp"
+#include "scenario/area_files.hpp"
+#include "wickgrid/defaults.hpp"
+
+namespace wickgrid::cli {
+
+namespace {
+struct LayoutOptions {
+    std::string file;
+    std::string area;
+    std::string drain;
+    std::string pattern;
+    double spacing_m = 0.0;
+    double angle_deg = 0.0;
+    std::vector<double> origin;
+    double edge_offset_m = defaults::layout_edge_offset_m;
+    std::string exclude;
+    std::string base_depths;
+    bool projected = false;
+    bool json = false;
+    bool csv = false;
+    bool geojson = false;
+    std::string out_dir;
+};
+}  // namespace
+
+Runner add_layout(CLI::App& app) {
+    auto* cmd = app.add_subcommand("layout", "Drain positions over a treatment area: counts, lengths, set-out files");
+    auto o = std::make_shared<LayoutOptions>();
+    cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
+    cmd->add_option("--area", o->area,
+                    "Treatment area: GeoJSON Polygon/MultiPolygon (holes allowed) or CSV with x_m,y_m[,part,ring]; "
+                    "metres of a projected coordinate system")
+        ->required();
+    cmd->add_option("--drain", o->drain, "Drain product name from the scenario")->required();
+    cmd->add_option("--pattern", o->pattern, "triangular or square")->required()->check(pattern_check());
+    cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(positive_number());
+    auto* angle = cmd->add_option("--angle-deg", o->angle_deg,
+                                  "Row direction, degrees anticlockwise from the x axis (default: along the longest edge)")
+                      ->check(number_between(-360.0, 360.0));
+    auto* origin = cmd->add_option("--origin", o->origin, "A lattice point X,Y in metres (default: a corner of the longest edge)")
+                       ->delimiter(',')
+                       ->expected(2);
+    cmd->add_option("--edge-offset-m", o->edge_offset_m, "Least distance from a drain to the area's edges, holes and exclusions (m, default 0)")
+        ->check(number_between(0.0, 1e6));
+    cmd->add_option("--exclude", o->exclude, "Exclusion zones: a second area file (GeoJSON or CSV)");
+    cmd->add_option("--base-depths", o->base_depths,
+                    "CSV of boreholes x_m,y_m,base_depth_m: depth from the top of the clay to its base");
+    cmd->add_flag("--projected", o->projected,
+                  "Confirm that coordinates near the origin are metres of a local grid, not longitude/latitude");
+    auto* json = cmd->add_flag("--json", o->json, "JSON on stdout (summary and every drain)");
+    auto* csv = cmd->add_flag("--csv", o->csv, "CSV of drains on stdout (id,x_m,y_m,length_m)")->excludes(json);
+    cmd->add_flag("--geojson", o->geojson, "GeoJSON points on stdout")->excludes(json)->excludes(csv);
+    cmd->add_option("--out", o->out_dir,
+                    "Also write layout.json, layout.csv, layout.geojson, layout-plan.svg and layout.html into this folder");
+    cmd->footer("Exit codes: 0 ok, 2 bad input (located in the file), 3 an output could not be written, "
+                "5 no drain fits (the offset or exclusions leave no room, or too many drains).");
+    return [o, angle, origin] {
+        const auto s = scenario::load_scenario(o->file);
+        results::LayoutRequest q;
+        q.drain = s.drain(o->drain).name;
+        q.pattern = pattern_option(o->pattern);
+        q.spacing_m = o->spacing_m;
+        if (angle->count() > 0) q.angle_deg = o->angle_deg;
+        if (origin->count() > 0) {
+            for (const double v : o->origin)
+                if (!std::isfinite(v)) throw UsageError("--origin", "give two finite coordinates X,Y in metres");
+            q.origin = layout::Point{o->origin.at(0), o->origin.at(1)};
+        }
+        q.edge_offset_m = o->edge_offset_m;
+        q.area = scenario::read_area_file(o->area, o->projected);
+        std::vector<std::string> inputs{o->file, o->area};
+        if (!o->exclude.empty()) {
+            q.exclusions = scenario::read_area_file(o->exclude, o->projected);
+            inputs.push_back(o->exclude);
+        }
+        if (!o->base_depths.empty()) {
+            q.base_points = scenario::read_base_depth_file(o->base_depths);
+            q.base_file = o->base_depths;
+            inputs.push_back(o->base_depths);
+        }
+        const results::LayoutRecord record = results::layout_record(s, std::move(q));
+        for (const auto& w : record.warnings) spdlog::warn("{}", w);
+        spdlog::info("laid {} drains in {} rows", record.layout.drains.size(), record.layout.rows);
+        const std::string json_text = report::layout_json(record).dump(1) + "\n";
+        if (!o->out_dir.empty()) {
+            write_outputs(o->out_dir, inputs,
+                          {{"layout.json", json_text},
+                           {"layout.csv", report::layout_csv(record)},
+                           {"layout.geojson", report::layout_geojson(record)},
+                           {"layout-plan.svg", report::layout_svg(record)},
+                           {"layout.html", report::layout_html(record)}});
+            spdlog::info("wrote layout.json, layout.csv, layout.geojson, layout-plan.svg and layout.html to {}", o->out_dir);
+        }
+        if (o->json) print_stdout(json_text);
+        else if (o->csv) print_stdout(report::layout_csv(record));
+        else if (o->geojson) print_stdout(report::layout_geojson(record));
+        else print_stdout(report::layout_table(record));
+        return static_cast<int>(ok);
+    };
+}
+
+}  // namespace wickgrid::cli

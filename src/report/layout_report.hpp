@@ -1,0 +1,23 @@
+#pragma once
+// Writers of a drain layout: terminal summary, JSON (keys fixed by the contract), CSV and GeoJSON
+// drain lists for the setting-out rig and the surveyor, an SVG plan view and an HTML page.
+#include <nlohmann/json.hpp>
+#include <string>
+
+#include "results/layout_record.hpp"
+
+namespace wickgrid::report {
+
+std::string layout_table(const results::LayoutRecord& r);
+nlohmann::json layout_json(const results::LayoutRecord& r);
+// id,x_m,y_m,length_m; coordinates to the millimetre, lengths to the centimetre.
+std::string layout_csv(const results::LayoutRecord& r);
+// A FeatureCollection of Points with properties id and length_m, in the area file's coordinates
+// (its "crs" member repeated when it had one).
+std::string layout_geojson(const results::LayoutRecord& r);
+// Plan view: area, holes, exclusion zones, drains, a scale bar; a north arrow when the area file
+// names its coordinate system (grid north of that system).
+std::string layout_svg(const results::LayoutRecord& r);
+std::string layout_html(const results::LayoutRecord& r);
+
+}  // namespace wickgrid::report

@@ -1,0 +1,44 @@
+#pragma once
+// The result of `wickgrid layout`: the drains laid over the treatment area, with the inputs they
+// came from, warnings and assumptions derived from what was computed. Writers format it; they never
+// call the engine.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "scenario/area_files.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/layout.hpp"
+
+namespace wickgrid::results {
+
+struct LayoutRequest {
+    std::string drain;  // a product of the scenario
+    Pattern pattern = Pattern::triangular;
+    double spacing_m = 0.0;
+    std::optional<double> angle_deg;
+    std::optional<layout::Point> origin;
+    double edge_offset_m = 0.0;
+    scenario::AreaFile area;
+    std::optional<scenario::AreaFile> exclusions;
+    std::optional<std::string> base_file;
+    std::vector<layout::BaseDepthPoint> base_points;
+};
+
+struct LayoutRecord {
+    const scenario::Scenario* scenario = nullptr;
+    LayoutRequest request;
+    std::string drain_name;
+    double design_length_m = 0.0;
+    layout::Layout layout;
+    double shortest_m = 0.0;
+    double longest_m = 0.0;
+    std::optional<double> drain_cost;  // total length × the product's cost per metre
+    std::vector<std::string> warnings;
+    std::vector<std::string> assumptions;
+};
+
+// Lays out the drains (the engine's lay_out) and derives the record. Throws what lay_out throws.
+LayoutRecord layout_record(const scenario::Scenario& s, LayoutRequest request);
+
+}  // namespace wickgrid::results
