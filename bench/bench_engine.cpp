@@ -6,6 +6,8 @@
 #include "wickgrid/search.hpp"
 #include "wickgrid/studies.hpp"
 #include "wickgrid/numerical.hpp"
+#include "report/layout_report.hpp"
+#include "results/layout_record.hpp"
 
 using namespace wickgrid;
 
@@ -87,3 +89,24 @@ static void BM_DesignStaged(benchmark::State& state) {
     for (auto _ : state) benchmark::DoNotOptimize(run_design(d));
 }
 BENCHMARK(BM_DesignStaged)->Unit(benchmark::kMillisecond);
+
+// A drain layout of about 100,000 drains (a 316 m square at 1 m, square pattern, drain lengths
+// from four boreholes), laid out and written as CSV and GeoJSON.
+static void BM_Layout100k(benchmark::State& state) {
+    const auto s = scenario::load_scenario(std::string(WICKGRID_SOURCE_DIR) + "/demo/scenario.yaml");
+    results::LayoutRequest q;
+    q.drain = s.site.products.front().name;
+    q.pattern = Pattern::square;
+    q.spacing_m = 1.0;
+    q.area.area = {{{{{0, 0}, {316, 0}, {316, 316}, {0, 316}}, {}}}};
+    q.base_points = {{0, 0, 12.0}, {316, 0, 14.0}, {316, 316, 15.0}, {0, 316, 13.0}};
+    std::size_t drains = 0;
+    for (auto _ : state) {
+        const auto record = results::layout_record(s, q);
+        drains = record.layout.drains.size();
+        benchmark::DoNotOptimize(report::layout_csv(record));
+        benchmark::DoNotOptimize(report::layout_geojson(record));
+    }
+    state.counters["drains"] = static_cast<double>(drains);
+}
+BENCHMARK(BM_Layout100k)->Unit(benchmark::kMillisecond);

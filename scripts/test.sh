@@ -19,21 +19,31 @@ cmake --build build/sanitize -j "$jobs"
 ASAN_OPTIONS=detect_leaks=1:abort_on_error=1 UBSAN_OPTIONS=print_stacktrace=1:halt_on_error=1 \
   ctest --test-dir build/sanitize --output-on-failure -j "$jobs" -LE matrix
 
-# Fuzz: about two minutes from the bundled scenarios as seeds (FUZZ_SECONDS to change). New corpus
-# entries and any finding go to a temporary folder; a finding fails the run and is printed.
+# Fuzz: the scenario loader for about two minutes and the layout's area readers for one, from the
+# bundled files as seeds (FUZZ_SECONDS and FUZZ_AREA_SECONDS to change). New corpus entries and any
+# finding go to a temporary folder; a finding fails the run and is printed.
 CXX=clang++ cmake -S . -B build/fuzz -G Ninja -DCMAKE_BUILD_TYPE=Debug -DWICKGRID_FUZZ=ON -DWICKGRID_TESTS=OFF \
       -DWICKGRID_BENCH=OFF -DCMAKE_CXX_FLAGS="-O1"
-cmake --build build/fuzz -j "$jobs" --target wickgrid_fuzz_scenario
-fuzz_dir=$(mktemp -d)
-mkdir -p "$fuzz_dir/corpus" "$fuzz_dir/findings"
-cp demo/scenario.yaml configs/*.yaml fuzz/corpus/*.yaml "$fuzz_dir/corpus/"
-if ! ./build/fuzz/wickgrid_fuzz_scenario "$fuzz_dir/corpus" -max_total_time="${FUZZ_SECONDS:-120}" -timeout=10 \
-      -rss_limit_mb=2048 -max_len=8192 -artifact_prefix="$fuzz_dir/findings/" > "$fuzz_dir/log" 2>&1; then
-  tail -n 60 "$fuzz_dir/log"
-  for f in "$fuzz_dir"/findings/*; do echo "finding $f:"; od -c "$f" | head -n 20; done
-  echo "fuzz: 0 passed, 1 failed"
-  exit 1
-fi
-grep -E "^Done [0-9]+ runs" "$fuzz_dir/log"
-rm -rf "$fuzz_dir"
-echo "fuzz: 1 passed, 0 failed"
+cmake --build build/fuzz -j "$jobs" --target wickgrid_fuzz_scenario wickgrid_fuzz_area
+
+# fuzz TARGET SECONDS SEED_FILES...
+fuzz() {
+  local target=$1 seconds=$2
+  shift 2
+  local dir
+  dir=$(mktemp -d)
+  mkdir -p "$dir/corpus" "$dir/findings"
+  cp "$@" "$dir/corpus/"
+  if ! "./build/fuzz/$target" "$dir/corpus" -max_total_time="$seconds" -timeout=10 \
+        -rss_limit_mb=2048 -max_len=8192 -artifact_prefix="$dir/findings/" > "$dir/log" 2>&1; then
+    tail -n 60 "$dir/log"
+    for f in "$dir"/findings/*; do echo "finding $f:"; od -c "$f" | head -n 20; done
+    echo "fuzz $target: 0 passed, 1 failed"
+    exit 1
+  fi
+  grep -E "^Done [0-9]+ runs" "$dir/log"
+  rm -rf "$dir"
+  echo "fuzz $target: 1 passed, 0 failed"
+}
+fuzz wickgrid_fuzz_scenario "${FUZZ_SECONDS:-120}" demo/scenario.yaml configs/*.yaml fuzz/corpus/*.yaml
+fuzz wickgrid_fuzz_area "${FUZZ_AREA_SECONDS:-60}" demo/zone-c-area.geojson demo/zone-c-boreholes.csv fuzz/corpus-area/*

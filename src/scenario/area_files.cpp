@@ -148,6 +148,16 @@ public:
         } catch (const json::parse_error& e) {
             throw ScenarioError(file_, mark_at(text_, e.byte > 0 ? e.byte - 1 : 0), "",
                                 "JSON syntax: " + std::string(e.what()).substr(std::string(e.what()).find(':') + 2));
+        } catch (const json::exception& e) {
+            // A number beyond double range ("number overflow parsing '5e2040'"): the parser names
+            // the text, not its place; the first occurrence of that text is where it stands.
+            const std::string what = e.what();
+            const auto open = what.find('\'');
+            const auto close = what.rfind('\'');
+            const auto at = open != std::string::npos && close > open ? text_.find(what.substr(open + 1, close - open - 1))
+                                                                     : std::string::npos;
+            throw ScenarioError(file_, at == std::string::npos ? Mark{0, 0} : mark_at(text_, at), "",
+                                "JSON: " + what.substr(what.find(']') + 2) + " (a number beyond the range of a double)");
         }
         AreaFile out;
         out.file = file_;

@@ -1,0 +1,224 @@
+// The layout's input files (GeoJSON and CSV areas, borehole base depths) with every error located,
+// and the layout command end to end: its outputs agree with each other and carry the cautions.
+#include <gtest/gtest.h>
+#include <nlohmann/json.hpp>
+
+#include "cli_helpers.hpp"
+#include "scenario/area_files.hpp"
+#include "scenario/csv_table.hpp"
+
+namespace wickgrid::scenario {
+namespace {
+using namespace wickgrid::cli_testing;
+
+// Runs a parse that must fail and returns the error.
+template <typename F>
+ScenarioError failure(F&& parse) {
+    try {
+        parse();
+    } catch (const ScenarioError& e) {
+        return e;
+    }
+    ADD_FAILURE() << "no ScenarioError";
+    return ScenarioError("", {}, "", "");
+}
+
+const char* square_geojson = R"({"type": "Polygon",
+ "coordinates": [
+  [[500000, 4000000], [500100, 4000000], [500100, 4000100], [500000, 4000100], [500000, 4000000]],
+  [[500040, 4000040], [500060, 4000040], [500060, 4000060], [500040, 4000060], [500040, 4000040]]
+ ]})";
+
+TEST(AreaFiles, GeoJsonPolygonWithAHole) {
+    const AreaFile f = parse_area(square_geojson, "a.geojson", false);
+    ASSERT_EQ(f.area.parts.size(), 1u);
+    EXPECT_EQ(f.area.parts[0].outer.size(), 4u);  // the repeated closing position dropped
+    ASSERT_EQ(f.area.parts[0].holes.size(), 1u);
+    EXPECT_DOUBLE_EQ(layout::area_m2(f.area), 100.0 * 100.0 - 20.0 * 20.0);
+    EXPECT_FALSE(f.crs_name.has_value());
+}
+
+TEST(AreaFiles, FeatureCollectionAndCrs) {
+    const std::string text = R"({"type": "FeatureCollection",
+ "crs": {"type": "name", "properties": {"name": "urn:ogc:def:crs:EPSG::32631"}},
+ "features": [
+  {"type": "Feature", "properties": {}, "geometry": {"type": "Polygon", "coordinates": [[[0,0],[100,0],[100,100],[0,0]]]}},
+  {"type": "Feature", "properties": {}, "geometry": {"type": "MultiPolygon", "coordinates": [[[[200,0],[300,0],[300,100],[200,0]]]]}}
+ ]})";
+    const AreaFile f = parse_area(text, "a.geojson", true);
+    EXPECT_EQ(f.area.parts.size(), 2u);
+    EXPECT_EQ(f.crs_name.value_or(""), "urn:ogc:def:crs:EPSG::32631");
+}
+
+struct LocatedRow {
+    const char* name;
+    std::string text;
+    bool projected;
+    int line;          // expected line of the error (0: no line)
+    const char* path;  // expected key path ("" when none)
+    const char* says;  // part of the message
+};
+
+TEST(AreaFiles, ErrorsAreLocated) {
+    const std::vector<LocatedRow> rows{
+        {"open ring (RFC 7946 §3.1.6)",
+         "{\"type\": \"Polygon\",\n \"coordinates\": [\n  [[500000, 4000000], [500100, 4000000], [500100, 4000100], [500000, 4000100]]\n ]}",
+         false, 3, "coordinates[0]", "not closed"},
+        {"figure of eight",
+         "{\"type\": \"Polygon\",\n \"coordinates\": [\n  [[500000, 4000000], [500100, 4000100], [500100, 4000000], [500000, 4000100], [500000, 4000000]]\n ]}",
+         false, 3, "coordinates[0]", "crosses itself"},
+        {"too few positions", "{\"type\": \"Polygon\",\n \"coordinates\": [[[500000, 4000000], [500100, 4000000], [500000, 4000000]]]}",
+         false, 2, "coordinates[0]", "at least 3"},
+        {"zero area", "{\"type\": \"Polygon\",\n \"coordinates\": [[[500000, 4000000], [500050, 4000050], [500100, 4000100], [500000, 4000000]]]}",
+         false, 2, "coordinates[0]", "zero area"},
+        {"a point is not an area", "{\"type\": \"Feature\", \"geometry\":\n {\"type\": \"Point\", \"coordinates\": [1, 2]}}", false, 2,
+         "geometry.type", "not an area"},
+        {"a position that is not [x, y]",
+         "{\"type\": \"Polygon\",\n \"coordinates\": [[[500000, 4000000],\n [500100, \"east\"], [500100, 4000100], [500000, 4000000]]]}",
+         false, 3, "coordinates[0][1]", "[x, y]"},
+        {"overlapping features",
+         "{\"type\": \"FeatureCollection\", \"features\": [\n"
+         "{\"type\": \"Feature\", \"geometry\": {\"type\": \"Polygon\", \"coordinates\": [[[500000,4000000],[500100,4000000],[500100,4000100],[500000,4000000]]]}},\n"
+         "{\"type\": \"Feature\", \"geometry\": {\"type\": \"Polygon\", \"coordinates\": [[[500050,4000000],[500150,4000000],[500150,4000100],[500050,4000000]]]}}]}",
+         false, 2, "features[0].geometry.coordinates", "overlap"},
+        {"longitude and latitude", "{\"type\": \"Polygon\",\n \"coordinates\": [[[2.35, 48.85], [2.36, 48.85], [2.36, 48.86], [2.35, 48.85]]]}",
+         false, 1, "", "longitude/latitude"},
+        {"a geographic crs even when confirmed projected",
+         "{\"type\": \"Polygon\",\n \"crs\": {\"type\": \"name\", \"properties\": {\"name\": \"urn:ogc:def:crs:OGC:1.3:CRS84\"}},\n"
+         " \"coordinates\": [[[500000, 4000000], [500100, 4000000], [500100, 4000100], [500000, 4000000]]]}",
+         true, 2, "crs", "longitude and latitude"},
+        {"a number beyond double range (fuzz finding)", "{\"type\": \"Polygon\",\n \"coordinates\": [[[5e2040, 0], [1, 0], [1, 1], [0, 0]]]}",
+         false, 2, "", "number overflow"},
+        {"JSON syntax", "{\"type\": \"Polygon\",\n \"coordinates\": [[[0, 0], [1, 0],, [1, 1], [0, 0]]]}", false, 2, "", "JSON syntax"},
+    };
+    for (const auto& row : rows) {
+        const ScenarioError e = failure([&] { parse_area(row.text, "area.geojson", row.projected); });
+        EXPECT_EQ(e.file(), "area.geojson") << row.name;
+        EXPECT_EQ(e.mark().line, row.line) << row.name << ": " << e.what();
+        EXPECT_EQ(e.key_path(), row.path) << row.name << ": " << e.what();
+        EXPECT_NE(std::string(e.what()).find(row.says), std::string::npos) << row.name << ": " << e.what();
+    }
+}
+
+TEST(AreaFiles, LocalGridNearTheOriginNeedsConfirmation) {
+    const std::string text = "{\"type\": \"Polygon\", \"coordinates\": [[[0, 0], [60, 0], [60, 40], [0, 40], [0, 0]]]}";
+    EXPECT_THROW(parse_area(text, "a.geojson", false), ScenarioError);
+    EXPECT_EQ(parse_area(text, "a.geojson", true).area.parts.size(), 1u);
+}
+
+TEST(AreaFiles, CsvVerticesWithPartsAndHoles) {
+    const std::string text =
+        "part,ring,x_m,y_m\n"
+        "1,0,500000,4000000\n1,0,500100,4000000\n1,0,500100,4000100\n1,0,500000,4000100\n"
+        "1,1,500040,4000040\n1,1,500060,4000040\n1,1,500060,4000060\n1,1,500040,4000060\n1,1,500040,4000040\n"
+        "2,0,500200,4000000\n2,0,500300,4000000\n2,0,500300,4000100\n";
+    const AreaFile f = parse_area(text, "a.csv", false);
+    ASSERT_EQ(f.area.parts.size(), 2u);
+    EXPECT_EQ(f.area.parts[0].holes.size(), 1u);
+    EXPECT_EQ(f.area.parts[0].holes[0].size(), 4u);
+    EXPECT_DOUBLE_EQ(layout::area_m2(f.area), 100.0 * 100.0 - 400.0 + 5000.0);
+}
+
+TEST(AreaFiles, CsvErrorsAreLocated) {
+    const std::vector<LocatedRow> rows{
+        {"not a number", "x_m,y_m\n500000,4000000\n500100,north\n500100,4000100\n", false, 3, "y_m", "not a number"},
+        {"missing column", "x,y\n1,2\n", false, 1, "", "no column 'x_m'"},
+        {"ring listed twice", "ring,x_m,y_m\n0,500000,4000000\n0,500100,4000000\n0,500100,4000100\n1,500040,4000040\n0,500000,4000100\n",
+         false, 6, "", "starts again"},
+        {"hole before its outline", "part,ring,x_m,y_m\n1,1,500040,4000040\n", false, 2, "", "before that part's outline"},
+        {"two vertices", "x_m,y_m\n500000,4000000\n500100,4000000\n", false, 2, "part 0 ring 0", "fewer than 3"},
+        {"a row too short", "x_m,y_m\n500000,4000000\n500100\n", false, 3, "", "has 1 fields"},
+        {"unclosed quote", "x_m,y_m\n\"500000,4000000\n", false, 2, "", "not closed"},
+    };
+    for (const auto& row : rows) {
+        const ScenarioError e = failure([&] { parse_area(row.text, "area.csv", row.projected); });
+        EXPECT_EQ(e.mark().line, row.line) << row.name << ": " << e.what();
+        EXPECT_EQ(e.key_path(), row.path) << row.name << ": " << e.what();
+        EXPECT_NE(std::string(e.what()).find(row.says), std::string::npos) << row.name << ": " << e.what();
+    }
+}
+
+TEST(BaseDepthFiles, ReadAndRefuse) {
+    const auto points = parse_base_depths("name,x_m,y_m,base_depth_m\n\"BH 1, north\",0,0,12.5\nBH2,10,0,14\n", "b.csv");
+    ASSERT_EQ(points.size(), 2u);
+    EXPECT_DOUBLE_EQ(points[0].depth_m, 12.5);
+    const auto negative = failure([] { parse_base_depths("x_m,y_m,base_depth_m\n0,0,12\n5,5,-3\n", "b.csv"); });
+    EXPECT_EQ(negative.mark().line, 3);
+    EXPECT_EQ(negative.mark().column, 5);
+    EXPECT_EQ(negative.key_path(), "base_depth_m");
+    const auto twice = failure([] { parse_base_depths("x_m,y_m,base_depth_m\n0,0,12\n0,0,13\n", "b.csv"); });
+    EXPECT_EQ(twice.mark().line, 3);
+    EXPECT_NE(std::string(twice.what()).find("line 2"), std::string::npos);
+    EXPECT_THROW(parse_base_depths("x_m,y_m,base_depth_m\n", "b.csv"), ScenarioError);
+}
+
+// The command end to end on the bundled demo files.
+const std::string demo_args = source("demo/scenario.yaml") + " --area " + source("demo/zone-c-area.geojson") +
+                              " --drain band-100x4 --pattern triangular --spacing 1.5 --base-depths " +
+                              source("demo/zone-c-boreholes.csv") + " --edge-offset-m 0.75";
+
+TEST(LayoutCommand, OutputsAgreeWithEachOther) {
+    const fs::path out = scratch();
+    const auto r = run("layout " + demo_args + " --json --out " + out.string());
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const auto j = nlohmann::json::parse(r.out);
+    for (const char* key : {"count", "total_length_m", "area_m2", "idealised_count", "drains", "cautions", "warnings"})
+        EXPECT_TRUE(j.contains(key)) << key;
+    const auto count = j["count"].get<std::size_t>();
+    ASSERT_EQ(j["drains"].size(), count);
+    for (const char* key : {"id", "x", "y", "length_m"}) EXPECT_TRUE(j["drains"][0].contains(key)) << key;
+    double total = 0.0;
+    for (const auto& d : j["drains"]) total += d["length_m"].get<double>();
+    EXPECT_NEAR(total, j["total_length_m"].get<double>(), 0.005 * static_cast<double>(count));
+    EXPECT_EQ(j["cautions"].size(), 4u);
+    // The demo's area: 27,925 m² (hand: shoelace on the outline less the 20 × 15 m hole).
+    EXPECT_NEAR(j["area_m2"].get<double>(), 27925.0, 0.01);
+
+    const std::string csv = slurp(out / "layout.csv");
+    EXPECT_EQ(static_cast<std::size_t>(std::count(csv.begin(), csv.end(), '\n')), count + 1);
+    const auto geo = nlohmann::json::parse(slurp(out / "layout.geojson"));
+    EXPECT_EQ(geo["features"].size(), count);
+    EXPECT_EQ(geo["features"][0]["properties"]["id"], 1);
+    EXPECT_EQ(geo["crs"]["properties"]["name"], "urn:ogc:def:crs:EPSG::32650");
+    EXPECT_EQ(nlohmann::json::parse(slurp(out / "layout.json"))["count"], count);
+    const std::string svg = slurp(out / "layout-plan.svg");
+    EXPECT_NE(svg.find(">N</text>"), std::string::npos);  // the file names its system: a north arrow
+    EXPECT_NE(slurp(out / "layout.html").find("Shepard, D. (1968)"), std::string::npos);
+}
+
+TEST(LayoutCommand, TerminalEndsWithTheCautions) {
+    const auto r = run("layout " + demo_args);
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    EXPECT_NE(r.out.find("idealised count"), std::string::npos);
+    EXPECT_NE(r.out.rfind("Local codes, standards and the judgement of a licensed engineer govern"), std::string::npos);
+    EXPECT_GT(r.out.rfind("licensed engineer"), r.out.rfind("Assumptions"));
+}
+
+TEST(LayoutCommand, BadInputsExitWithTheirCodes) {
+    const fs::path dir = scratch();
+    std::ofstream(dir / "open.geojson") << "{\"type\": \"Polygon\",\n \"coordinates\": [[[500000, 4000000], [500100, 4000000], "
+                                           "[500100, 4000100]]]}";
+    auto r = run("layout " + source("demo/scenario.yaml") + " --area " + (dir / "open.geojson").string() +
+                 " --drain band-100x4 --pattern square --spacing 1.5");
+    EXPECT_EQ(r.exit_code, 2);
+    EXPECT_NE(r.err.find("open.geojson:2:"), std::string::npos) << r.err;
+    r = run("layout " + demo_args + " --origin 512000");
+    EXPECT_EQ(r.exit_code, 2) << r.err;
+    const std::string area = source("demo/scenario.yaml") + " --area " + source("demo/zone-c-area.geojson");
+    r = run("layout " + area + " --drain band-100x4 --pattern square --spacing 1.5 --edge-offset-m 500");
+    EXPECT_EQ(r.exit_code, 5) << r.err;
+    EXPECT_NE(r.err.find("at least 500 m from its edge"), std::string::npos) << r.err;
+    r = run("layout " + area + " --drain no-such-drain --pattern square --spacing 1.5");
+    EXPECT_EQ(r.exit_code, 2) << r.err;
+    EXPECT_NE(r.err.find("no-such-drain"), std::string::npos) << r.err;
+    // An input file in the output folder under an output's name is never overwritten.
+    fs::copy_file(source("demo/zone-c-boreholes.csv"), dir / "layout.csv");
+    r = run("layout " + source("demo/scenario.yaml") + " --area " + source("demo/zone-c-area.geojson") +
+            " --drain band-100x4 --pattern square --spacing 1.5 --base-depths " + (dir / "layout.csv").string() +
+            " --out " + dir.string());
+    EXPECT_EQ(r.exit_code, 3) << r.err;
+    EXPECT_EQ(slurp(dir / "layout.csv"), slurp(source("demo/zone-c-boreholes.csv")));
+}
+
+}  // namespace
+}  // namespace wickgrid::scenario
