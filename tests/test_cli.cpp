@@ -10,6 +10,7 @@
 #include <nlohmann/json.hpp>
 #include <sstream>
 
+#include "results/design_record.hpp"
 #include "scenario/scenario.hpp"
 #include "wickgrid/design.hpp"
 #include "wickgrid/units.hpp"
@@ -189,8 +190,8 @@ TEST(Cli, CurveAtDaysMatchesEngine) {
     }
     const CommandRun table = run("curve " + source("demo/scenario.yaml") + " --drain band-100x4 --pattern square --spacing 1.5");
     EXPECT_EQ(table.exit_code, 0);
-    // title, blank, header, rule, rows, caution
-    EXPECT_EQ(std::count(table.out.begin(), table.out.end(), '\n'), 2 + 2 + 31 + 1);
+    // title, blank, header, rule, rows, blank, "Cautions:" and four cautions
+    EXPECT_EQ(std::count(table.out.begin(), table.out.end(), '\n'), 2 + 2 + 31 + 6);
     const CommandRun csv = run("curve " + source("demo/scenario.yaml") +
                         " --drain band-100x4 --pattern square --spacing 1.5 --points 5 --until-days 100 --csv");
     EXPECT_EQ(csv.out.rfind("time_days,degree_vertical,degree_radial,degree\n0,0,0,0\n25,", 0), 0u) << csv.out;
@@ -265,3 +266,29 @@ TEST(Cli, ExitCodesAndMessages) {
         << check.err;
     fs::remove_all(bad.parent_path());
 }
+
+namespace wickgrid {
+namespace {
+using namespace cli_testing;
+
+// Every command that shows results ends its terminal output with the full caution.
+TEST(Cli, EveryResultOnTheTerminalEndsWithTheCautions) {
+    const std::string block = results::caution_block();
+    for (const char* phrase : {"idealised theory", "site investigation and testing", "monitoring during construction is required",
+                               "licensed engineer govern"})
+        EXPECT_NE(block.find(phrase), std::string::npos) << phrase;
+    const std::string demo = source("demo/scenario.yaml");
+    const std::string cell = " --drain band-100x4 --pattern square --spacing 1.2";
+    for (const std::string& args :
+         {"design " + demo, "curve " + demo + cell, "sweep " + demo + " --samples 100",
+          "surcharge " + source("configs/staged-surcharge.yaml") + cell, "verify " + demo,
+          "layout " + demo + " --area " + source("demo/zone-c-area.geojson") + cell}) {
+        const CommandRun r = run(args);
+        EXPECT_LE(r.exit_code, 1) << args << "\n" << r.err;
+        ASSERT_GE(r.out.size(), block.size()) << args;
+        EXPECT_EQ(r.out.substr(r.out.size() - block.size()), block) << args;
+    }
+}
+
+}  // namespace
+}  // namespace wickgrid

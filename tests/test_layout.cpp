@@ -198,6 +198,7 @@ TEST(Layout, MalformedAreasAreNamed) {
         {"repeated vertices", {{{{{0, 0}, {10, 0}, {10, 0}, {0, 0}}, {}}}}, "fewer than 3", 0},
         {"collinear", {{{{{0, 0}, {5, 5}, {10, 10}}, {}}}}, "zero area", 0},
         {"not finite", {{{{{0, 0}, {10, 0}, {NAN, 10}}, {}}}}, "not a finite number", 0},
+        {"beyond any projected system", {{{{{0, 0}, {1e12, 0}, {1e12, 10}}, {}}}}, "beyond ±10⁹ m", 0},
         {"hole outside", {{{rectangle(0, 0, 10, 10), {rectangle(20, 20, 21, 21)}}}}, "hole outside", std::nullopt},
         {"bad hole", {{{rectangle(0, 0, 10, 10), {{{2, 2}, {3, 3}}}}}}, "hole has fewer than 3", 1},
         {"overlapping parts", {{{rectangle(0, 0, 10, 10), {}}, {rectangle(5, 5, 15, 15), {}}}}, "overlap", std::nullopt},
@@ -222,6 +223,9 @@ TEST(Layout, QuestionsWithoutAnAnswerAreEvaluationErrors) {
                  EvaluationError);
     EXPECT_THROW(lay_out(a, {}, {Pattern::square, 0.1, 0.0, std::nullopt, 0.0}, full_drains, 1000), EvaluationError);
     EXPECT_THROW(lay_out(a, {}, {Pattern::square, -1.0, 0.0, std::nullopt, 0.0}, full_drains, no_cap), InputError);
+    // Fuzz finding: a spacing so small, or an origin so far, that lattice indices would overflow.
+    EXPECT_THROW(lay_out(a, {}, {Pattern::square, 1e-300, 0.0, std::nullopt, 0.0}, full_drains, no_cap), EvaluationError);
+    EXPECT_THROW(lay_out(a, {}, {Pattern::square, 1.0, 0.0, Point{0.0, 1e300}, 0.0}, full_drains, no_cap), EvaluationError);
     EXPECT_THROW(lay_out(a, {}, {Pattern::square, 1.0, 0.0, std::nullopt, -1.0}, full_drains, no_cap), InputError);
 }
 

@@ -108,7 +108,7 @@ Runner add_surcharge(CLI::App& app) {
                 << report::fixed(result.settlement_at_removal_m * 1000.0, 0) << " mm = final primary settlement under the permanent load.\n";
         if (exceeds) out << "WARNING: the surcharge height exceeds the limit of " << report::fixed(*limit, 2) << " m.\n";
         out << "The method ignores " << ignores[0] << ", " << ignores[1] << " and " << ignores[2] << ".\n";
-        out << "Estimates from idealised theory: confirm parameters by site investigation and by monitoring.\n";
+        out << "\n" << results::caution_block();
         print_stdout(out.str());
         return static_cast<int>(ok);
     };

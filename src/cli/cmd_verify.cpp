@@ -131,7 +131,7 @@ Runner add_verify(CLI::App& app) {
                          "and smaller time steps, so the difference measures the design mesh's discretisation error. "
                          "Equivalent plane-strain and 1-D parameters are given for a uniform clay with the closed form "
                          "only.\n";
-            table << "Estimates from idealised theory: confirm parameters by site investigation and by monitoring.\n";
+            table << "\n" << results::caution_block();
             print_stdout(table.str());
         }
         return static_cast<int>(ok);

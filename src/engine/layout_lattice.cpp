@@ -31,6 +31,8 @@ using BSegment = bg::model::segment<BPoint>;
 // A drain this close outside an edge counts as on it: rounding in the rotation must not decide
 // whether a drain on the boundary is laid.
 constexpr double boundary_tolerance_m = 1e-6;
+// Projected coordinates in metres stay within a few times the Earth's circumference.
+constexpr double max_coordinate_m = 1e9;
 
 void append_ring(const Ring& ring, BPolygon::ring_type& out) {
     for (const auto& p : ring) out.emplace_back(p.x_m, p.y_m);
@@ -102,8 +104,11 @@ bool collinear(const Ring& ring) {
 
 // Checks one ring on its own: enough vertices, finite, some area, not crossing itself.
 std::optional<std::string> ring_problem(const Ring& ring) {
-    for (const auto& p : ring)
+    for (const auto& p : ring) {
         if (!std::isfinite(p.x_m) || !std::isfinite(p.y_m)) return "has a coordinate that is not a finite number";
+        if (std::abs(p.x_m) > max_coordinate_m || std::abs(p.y_m) > max_coordinate_m)
+            return "has a coordinate beyond ±10⁹ m, which no projected system in metres has";
+    }
     if (distinct_vertices(ring) < 3) return "has fewer than 3 distinct vertices";
     if (collinear(ring)) return "has zero area (its vertices lie on one line)";
     BPolygon alone;
@@ -163,9 +168,26 @@ BMulti grown(const BMulti& region) {
     return out;
 }
 
-// The lattice points of one row inside the region, as u positions in ascending order.
+[[noreturn]] void too_many(std::size_t max_drains) {
+    throw EvaluationError("drain layout", "more than " + std::to_string(max_drains) +
+                                              " drains at this spacing; lay out a smaller area or a wider spacing");
+}
+
+// Lattice indices from first to last (a lattice line through a span), refusing more than `room`.
+std::pair<long long, long long> index_range(double first, double last, std::size_t room, std::size_t max_drains) {
+    const double lo = std::ceil(first);
+    const double hi = std::floor(last);
+    if (!(hi - lo < static_cast<double>(room))) too_many(max_drains);
+    constexpr double max_index = 1e15;  // far inside long long, and exact in a double
+    if (!(std::abs(lo) < max_index && std::abs(hi) < max_index))
+        throw EvaluationError("drain layout", "the lattice origin lies too far from the area for this spacing");
+    return {static_cast<long long>(lo), static_cast<long long>(hi)};
+}
+
+// The lattice points of one row inside the region, as u positions in ascending order; at most
+// `room` of them.
 void row_points(const BMulti& region, double u_low, double u_high, double v, double shift_m, double spacing_m,
-                std::vector<double>& us) {
+                std::size_t room, std::size_t max_drains, std::vector<double>& us) {
     const BLine line{{u_low, v}, {u_high, v}};
     BMultiLine pieces;
     bg::intersection(line, region, pieces);
@@ -183,8 +205,7 @@ void row_points(const BMulti& region, double u_low, double u_high, double v, dou
     std::sort(spans.begin(), spans.end());
     double last = -std::numeric_limits<double>::infinity();
     for (const auto& [a, b] : spans) {
-        const auto k0 = static_cast<long long>(std::ceil((a - shift_m) / spacing_m));
-        const auto k1 = static_cast<long long>(std::floor((b - shift_m) / spacing_m));
+        const auto [k0, k1] = index_range((a - shift_m) / spacing_m, (b - shift_m) / spacing_m, room - us.size(), max_drains);
         for (long long k = k0; k <= k1; ++k) {
             const double u = shift_m + static_cast<double>(k) * spacing_m;
             if (u <= last) continue;  // spans that share an end give the point once
@@ -296,8 +317,9 @@ Layout lay_out(const Area& area, const Area& exclusions, const LatticeSpec& spec
     bg::model::box<BPoint> box;
     bg::envelope(rows_region, box);
     const double pitch = row_pitch_m(spec.pattern, spec.spacing_m);
-    const auto j0 = static_cast<long long>(std::ceil(box.min_corner().y() / pitch));
-    const auto j1 = static_cast<long long>(std::floor(box.max_corner().y() / pitch));
+    // A row holds at least one drain or none; rows beyond the cap cannot all be empty in a valid area
+    // (a far origin or a tiny spacing is caught here, before any index overflows).
+    const auto [j0, j1] = index_range(box.min_corner().y() / pitch, box.max_corner().y() / pitch, max_drains, max_drains);
     const double u_low = box.min_corner().x() - spec.spacing_m;
     const double u_high = box.max_corner().x() + spec.spacing_m;
     const double c = std::cos(angle_rad);
@@ -308,12 +330,10 @@ Layout lay_out(const Area& area, const Area& exclusions, const LatticeSpec& spec
         const double shift = spec.pattern == Pattern::triangular && odd ? spec.spacing_m / 2.0 : 0.0;
         const double v = static_cast<double>(j) * pitch;
         us.clear();
-        row_points(rows_region, u_low, u_high, v, shift, spec.spacing_m, us);
+        row_points(rows_region, u_low, u_high, v, shift, spec.spacing_m, max_drains - out.drains.size() + 1, max_drains, us);
         std::erase_if(us, [&](double u) { return !clear_of_edges(edges, BPoint{u, v}, spec.edge_offset_m); });
         if (us.empty()) continue;
-        if (out.drains.size() + us.size() > max_drains)
-            throw EvaluationError("drain layout", "more than " + std::to_string(max_drains) +
-                                                      " drains at this spacing; lay out a smaller area or a wider spacing");
+        if (out.drains.size() + us.size() > max_drains) too_many(max_drains);
         if (out.rows % 2 == 1) std::reverse(us.begin(), us.end());
         ++out.rows;
         for (const double u : us) {

@@ -135,8 +135,7 @@ std::string design_table(const results::DesignRecord& record) {
     out << "\n" << notes_under_table(record) << "\n";
     for (const auto& w : record.warnings) out << "WARNING: " << w << "\n";
     out << results::recommendation(record) << "\n";
-    out << "Estimates from idealised theory: confirm parameters by site investigation and by monitoring; local codes "
-           "and licensed practice govern.\n";
+    out << "\n" << results::caution_block();
     return out.str();
 }
 
@@ -291,7 +290,7 @@ std::string curve_table(const Site& site, const results::Curve& curve) {
     if (site.loading || curve.method == CellMethod::numerical)
         out << "\nDegrees are relative to the final permanent load; Ur is the radial degree that Carrillo's rule needs "
                "to give U.\n";
-    out << "Estimates from idealised theory: confirm parameters by site investigation and by monitoring.\n";
+    out << "\n" << results::caution_block();
     return out.str();
 }
 

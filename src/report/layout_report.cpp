@@ -104,8 +104,7 @@ std::string layout_table(const results::LayoutRecord& r) {
     o << "\nAssumptions:\n";
     for (const auto& a : r.assumptions) o << "  - " << a << "\n";
     for (const auto& w : r.warnings) o << "Warning: " << w << "\n";
-    o << "\nCautions:\n";
-    for (const auto& c : results::cautions()) o << "  - " << c << "\n";
+    o << "\n" << results::caution_block();
     return o.str();
 }
 
@@ -170,7 +169,11 @@ std::string layout_geojson(const results::LayoutRecord& r) {
         append_fixed(out, d.x_m, 3);
         out += ',';
         append_fixed(out, d.y_m, 3);
-        out += "]},\"properties\":{\"id\":" + std::to_string(d.id) + ",\"length_m\":";
+        out += "]},\"properties\":{\"id\":" + std::to_string(d.id) + ",\"x\":";
+        append_fixed(out, d.x_m, 3);
+        out += ",\"y\":";
+        append_fixed(out, d.y_m, 3);
+        out += ",\"length_m\":";
         append_fixed(out, d.length_m, 2);
         out += "}}";
     }

@@ -12,7 +12,7 @@ std::string layout_table(const results::LayoutRecord& r);
 nlohmann::json layout_json(const results::LayoutRecord& r);
 // id,x_m,y_m,length_m; coordinates to the millimetre, lengths to the centimetre.
 std::string layout_csv(const results::LayoutRecord& r);
-// A FeatureCollection of Points with properties id and length_m, in the area file's coordinates
+// A FeatureCollection of Points with properties id, x, y and length_m, in the area file's coordinates
 // (its "crs" member repeated when it had one).
 std::string layout_geojson(const results::LayoutRecord& r);
 // Plan view: area, holes, exclusion zones, drains, a scale bar; a north arrow when the area file

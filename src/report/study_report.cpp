@@ -193,8 +193,7 @@ std::string sweep_table(const results::DesignRecord& record) {
                 << "\n";
         }
     }
-    out << "\nEstimates from idealised theory: confirm parameters by site investigation and by monitoring; local codes "
-           "and licensed practice govern.\n";
+    out << "\n" << results::caution_block();
     return out.str();
 }
 

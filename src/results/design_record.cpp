@@ -236,4 +236,10 @@ const std::vector<std::string>& cautions() {
     return text;
 }
 
+std::string caution_block() {
+    std::string out = "Cautions:\n";
+    for (const auto& c : cautions()) out += "  - " + c + "\n";
+    return out;
+}
+
 }  // namespace wickgrid::results

@@ -70,5 +70,7 @@ std::string criterion_label(const Site& site);  // short: "U ≥ 90 %", "residua
 std::string recommendation(const DesignRecord& record);
 // The cautions every output carries.
 const std::vector<std::string>& cautions();
+// The cautions as the block that ends every terminal output ("Cautions:" and one line each).
+std::string caution_block();
 
 }  // namespace wickgrid::results
