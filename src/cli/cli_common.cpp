@@ -1,4 +1,6 @@
 // Helpers shared by the commands: options, cell models named on the command line, output files.
+#include <spdlog/spdlog.h>
+
 #include <cerrno>
 #include <cmath>
 #include <cstdio>
@@ -82,6 +84,12 @@ void print_stdout(const std::string& text) {
     const std::size_t written = std::fwrite(text.data(), 1, text.size(), stdout);
     if (written != text.size() || std::fflush(stdout) != 0 || std::ferror(stdout))
         throw report::OutputError(std::string("cannot write to standard output: ") + std::strerror(errno));
+}
+
+scenario::Scenario load_scenario_warned(const std::string& file) {
+    scenario::Scenario s = scenario::load_scenario(file);
+    for (const auto& w : s.input_warnings) spdlog::warn("{}", w);
+    return s;
 }
 
 void write_outputs(const std::string& dir, const std::vector<std::string>& input_files,

@@ -8,7 +8,7 @@ Runner add_check(CLI::App& app) {
     auto file = std::make_shared<std::string>();
     cmd->add_option("FILE", *file, "Scenario file (YAML)")->required();
     return [file] {
-        const auto s = scenario::load_scenario(*file);
+        const auto s = load_scenario_warned(*file);
         print_stdout(*file + ": valid scenario '" + s.title + "': " + std::to_string(s.site.products.size()) +
                      " drain product(s) × " + std::to_string(s.site.range.patterns.size()) + " pattern(s), method " +
                      std::string(to_string(s.site.method.method)) + "\n");

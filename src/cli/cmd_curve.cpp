@@ -40,7 +40,7 @@ Runner add_curve(CLI::App& app) {
     auto* json = cmd->add_flag("--json", o->json, "JSON on stdout");
     cmd->add_flag("--csv", o->csv, "CSV on stdout")->excludes(json);
     return [o] {
-        const auto s = scenario::load_scenario(o->file);
+        const auto s = load_scenario_warned(o->file);
         std::vector<double> times;
         for (const double d : o->at_days) {
             if (!(std::isfinite(d) && d >= 0.0)) throw InputError("--at-days", d, "a list of times of at least 0 days");

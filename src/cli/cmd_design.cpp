@@ -25,10 +25,11 @@ Runner add_design(CLI::App& app) {
     cmd->footer("Exit codes: 0 at least one design meets the criterion, 1 none does (outputs are still written), "
                 "2 bad input, 3 an output could not be written, 5 the criterion cannot be evaluated.");
     return [o] {
-        const auto s = scenario::load_scenario(o->file);
+        const auto s = load_scenario_warned(o->file);
         spdlog::info("designing {} drain product(s) × {} pattern(s)", s.site.products.size(), s.site.range.patterns.size());
         const results::DesignRecord record = results::design_record(s);
-        for (const auto& w : record.warnings) spdlog::warn("{}", w);
+        // The record's warnings start with the input's own, shown when it was read.
+        for (std::size_t i = s.input_warnings.size(); i < record.warnings.size(); ++i) spdlog::warn("{}", record.warnings[i]);
         const auto json_text = report::design_json(record).dump(2) + "\n";
         if (!o->out_dir.empty()) {
             write_outputs(o->out_dir, {o->file},

@@ -64,7 +64,7 @@ Runner add_layout(CLI::App& app) {
     cmd->footer("Exit codes: 0 ok, 2 bad input (located in the file), 3 an output could not be written, "
                 "5 no drain fits (the offset or exclusions leave no room, or too many drains).");
     return [o, angle, origin] {
-        const auto s = scenario::load_scenario(o->file);
+        const auto s = load_scenario_warned(o->file);
         results::LayoutRequest q;
         q.drain = s.drain(o->drain).name;
         q.pattern = pattern_option(o->pattern);
@@ -88,7 +88,7 @@ Runner add_layout(CLI::App& app) {
             inputs.push_back(o->base_depths);
         }
         const results::LayoutRecord record = results::layout_record(s, std::move(q));
-        for (const auto& w : record.warnings) spdlog::warn("{}", w);
+        for (std::size_t i = s.input_warnings.size(); i < record.warnings.size(); ++i) spdlog::warn("{}", record.warnings[i]);
         spdlog::info("laid {} drains in {} rows", record.layout.drains.size(), record.layout.rows);
         const std::string json_text = report::layout_json(record).dump(1) + "\n";
         if (!o->out_dir.empty()) {

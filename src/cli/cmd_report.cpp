@@ -21,7 +21,7 @@ Runner add_report(CLI::App& app) {
     cmd->add_option("--time-axis", o->time_axis, "Degree–time charts: linear or log")->check(CLI::IsMember({"linear", "log"}));
     cmd->footer("Studies in the scenario ('studies:' one-at-a-time and grid) are charted too. Exit codes as for design.");
     return [o] {
-        const auto s = scenario::load_scenario(o->file);
+        const auto s = load_scenario_warned(o->file);
         results::DesignRecord record = results::design_record(s, {true, o->time_axis == "log"});
         record.studies.grid_x = s.studies.grid_x;
         record.studies.grid_y = s.studies.grid_y;

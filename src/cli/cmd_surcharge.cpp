@@ -44,7 +44,7 @@ Runner add_surcharge(CLI::App& app) {
         ->check(positive_number());
     cmd->add_flag("--json", o->json, "JSON on stdout");
     return [o] {
-        const auto s = scenario::load_scenario(o->file);
+        const auto s = load_scenario_warned(o->file);
         const Site& site = s.site;
         if (!site.loading) s.fail_at("loading", "surcharge design needs a 'loading' block with the permanent stages");
         if (!site.has_settlement())

@@ -60,7 +60,7 @@ Runner add_sweep(CLI::App& app) {
     cmd->add_flag("--csv", o->csv, "CSV on stdout (needs exactly one study, see --only)")->excludes(json);
     cmd->add_option("--out", o->out_dir, "Also write sweep.json and one CSV per study into this folder");
     return [o] {
-        const auto s = scenario::load_scenario(o->file);
+        const auto s = load_scenario_warned(o->file);
         const Site& site = s.site;
         const bool tornado = wanted(*o, "tornado") && !s.studies.tornado.empty();
         const bool monte = wanted(*o, "monte_carlo") && s.studies.monte_carlo.has_value();

@@ -58,7 +58,7 @@ Runner add_verify(CLI::App& app) {
             throw UsageError("--radial-cells × --vertical-cells",
                              std::to_string(o->radial_cells) + " × " + std::to_string(o->vertical_cells) +
                                  " cells is more than the limit of " + std::to_string(defaults::max_reference_mesh_cells));
-        const auto s = scenario::load_scenario(o->file);
+        const auto s = load_scenario_warned(o->file);
         const Site& site = s.site;
         const results::DesignRecord record = results::design_record(s);
         const std::vector<double> times =

@@ -28,6 +28,9 @@ public:
     UsageError(const std::string& option, const std::string& message) : std::runtime_error(option + ": " + message) {}
 };
 
+// Loads a scenario (ScenarioError when it is bad) and shows its plausibility warnings on stderr.
+scenario::Scenario load_scenario_warned(const std::string& file);
+
 // Registers a subcommand; the returned function runs it after parsing.
 using Runner = std::function<int()>;
 Runner add_check(CLI::App& app);

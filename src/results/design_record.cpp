@@ -73,6 +73,7 @@ DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& opt
     record.scenario = &s;
     const Site& site = s.site;
     record.result = run_design(site);
+    record.warnings = s.input_warnings;
     for (const auto& row : record.result.rows)
         for (const auto& w : row.warnings)
             record.warnings.push_back(row.drain + " / " + std::string(to_string(row.pattern)) + ": " + w);

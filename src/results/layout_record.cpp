@@ -71,7 +71,8 @@ LayoutRecord layout_record(const scenario::Scenario& s, LayoutRequest request) {
     if (product.cost_per_m) r.drain_cost = *product.cost_per_m * r.layout.total_length_m;
     r.request = std::move(request);
     r.assumptions = layout_assumptions(r);
-    r.warnings = layout_warnings(r);
+    r.warnings = s.input_warnings;
+    for (auto& w : layout_warnings(r)) r.warnings.push_back(std::move(w));
     return r;
 }
 

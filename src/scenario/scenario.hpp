@@ -60,7 +60,10 @@ struct Scenario {
     std::vector<DrainEntry> drains;  // as given, in the order of site.products
     std::optional<double> fill_unit_weight_kN_per_m3;
     std::optional<double> surcharge_max_height_m;
+    std::optional<double> mandrel_width_m;  // as given (the site keeps the equivalent diameter)
     StudyRequests studies;
+    // Values allowed but outside the usual ranges (plausibility.hpp), located; every command shows them.
+    std::vector<std::string> input_warnings;
     std::map<std::string, Mark> marks;  // key path → where its value is
 
     const DrainEntry& drain(const std::string& name) const;  // throws ScenarioError if unknown

@@ -8,6 +8,7 @@
 #include <sstream>
 
 #include "scenario.hpp"
+#include "plausibility.hpp"
 #include "suggest.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/permeability.hpp"
@@ -358,6 +359,7 @@ void read_installation(const Reader& r, const YAML::Node& root, Scenario& s) {
     } else {
         const double width = units::mm_to_m(r.number(node, p, "mandrel_width_mm", positive("mm")));
         const double depth = units::mm_to_m(r.number(node, p, "mandrel_depth_mm", positive("mm")));
+        s.mandrel_width_m = std::max(width, depth);
         in.mandrel_diameter_m = mandrel_equivalent_diameter_m(width, depth);
     }
     in.smear_diameter_ratio = r.number(node, p, "smear_diameter_ratio", positive("(ds/dm)"));
@@ -773,6 +775,7 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     check_physics(r, s);
     read_studies(r, root, s);
     read_uncertain(r, root, s);
+    s.input_warnings = plausibility_warnings(s);
     return s;
 }
 
