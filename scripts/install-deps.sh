@@ -4,8 +4,8 @@
 # report render and print checks (poppler-utils reads the PDF), clang and its libFuzzer runtime for
 # the fuzz run.
 set -euo pipefail
-packages=(g++ cmake ninja-build libboost-math-dev libyaml-cpp-dev libspdlog-dev libcli11-dev
-          nlohmann-json3-dev libgtest-dev libbenchmark-dev libeigen3-dev)
+packages=(g++ cmake ninja-build libboost-dev libboost-math-dev libyaml-cpp-dev libspdlog-dev libcli11-dev
+          nlohmann-json3-dev libgtest-dev libbenchmark-dev libeigen3-dev libssl-dev)
 if [ "${1:-}" = "--test" ]; then
   packages+=(python3 python3-scipy python3-numpy python3-pil chromium poppler-utils clang libclang-rt-14-dev)
 fi

@@ -73,7 +73,7 @@ json design_json(const results::DesignRecord& record) {
     json schema = json::array();
     for (const auto& c : columns) schema.push_back({{"key", c.key}, {"heading", c.heading}, {"unit", c.unit}});
     const auto& s = *record.scenario;
-    return json{{"schema", 1},
+    json out{{"schema", 1},
                 {"wickgrid_version", version},
                 {"title", s.title},
                 {"scenario", s.file},
@@ -90,6 +90,23 @@ json design_json(const results::DesignRecord& record) {
                 {"warnings", string_array(record.warnings)},
                 {"assumptions", string_array(record.assumptions)},
                 {"cautions", string_array(results::cautions())}};
+    add_title_block(out, s);
+    return out;
+}
+
+void add_title_block(json& out, const scenario::Scenario& s) {
+    json project = json::object();
+    for (const auto& f : results::title_block(s)) {
+        if (f.project) project[f.key] = f.value;
+        else out[f.key] = f.value;
+    }
+    out["project"] = std::move(project);
+}
+
+std::string title_block_markdown(const scenario::Scenario& s) {
+    std::string out = "| | |\n|---|---|\n";
+    for (const auto& f : results::title_block(s)) out += "| " + markdown_text(f.label) + " | " + markdown_text(f.value) + " |\n";
+    return out;
 }
 
 std::string design_csv(const results::DesignRecord& record) {
@@ -214,7 +231,7 @@ std::string design_markdown(const results::DesignRecord& record) {
     const auto md = markdown_text;  // every piece of text is escaped: names cannot break the note
     std::ostringstream out;
     out << "# Vertical drain design note: " << md(s.title) << "\n\n";
-    out << "Scenario file: " << md(s.file) << ". Produced by wickgrid " << version << ".\n\n";
+    out << title_block_markdown(s) << "\n";
     out << "## Result\n\n" << md(results::recommendation(record)) << "\n\n";
     for (const auto& w : record.warnings) out << "**Warning:** " << md(w) << "\n\n";
     out << "## Inputs\n\n| quantity | value |\n|---|---|\n";

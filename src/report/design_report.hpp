@@ -21,6 +21,12 @@ nlohmann::json curve_json(const Site& site, const results::Curve& curve);
 std::string curve_csv(const results::Curve& curve);
 std::string curve_table(const Site& site, const results::Curve& curve);
 
+// The title block in a JSON output: "project" (the fields the scenario gives) and
+// "scenario_sha256" beside the "wickgrid_version" and "scenario" keys.
+void add_title_block(nlohmann::json& out, const scenario::Scenario& s);
+// The title block as a Markdown table.
+std::string title_block_markdown(const scenario::Scenario& s);
+
 // The rows of the inputs table (quantity, value) shared by the Markdown note and the HTML report.
 std::vector<std::pair<std::string, std::string>> input_rows(const results::DesignRecord& record);
 

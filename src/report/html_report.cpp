@@ -162,6 +162,19 @@ footer { margin-top: 2rem; font-size: .8rem; color: #4a5868; }
 }
 )";
 
+// Text as a CSS string literal inside a <style> element: quotes and backslashes escaped, and
+// '<' written as an escape so that no text can close the element.
+std::string css_string(const std::string& text) {
+    std::string out = "\"";
+    for (const char c : text) {
+        if (c == '"' || c == '\\') out += std::string("\\") + c;
+        else if (c == '<') out += "\\3C ";
+        else if (c == '\n' || c == '\r') out += ' ';
+        else out += c;
+    }
+    return out + "\"";
+}
+
 std::string cell(const std::string& key, double value, const std::string& shown) {
     std::ostringstream o;
     o.precision(17);
@@ -206,6 +219,22 @@ std::string inputs_table(const results::DesignRecord& record) {
 }
 }  // namespace
 
+std::string title_block_html(const scenario::Scenario& s) {
+    std::ostringstream o;
+    o << "<table class=\"title-block\">\n";
+    for (const auto& f : results::title_block(s))
+        o << "<tr><th class=\"text\">" << escape_xml(f.label) << "</th><td class=\"text\" data-key=\"" << f.key << "\">"
+          << escape_xml(f.value) << "</td></tr>\n";
+    o << "</table>\n";
+    return o.str();
+}
+
+std::string print_page_css(const scenario::Scenario& s) {
+    return "@page { @top-left { content: " + css_string(results::running_header(s)) +
+           "; font-size: 8pt; color: #4a5868; } @bottom-right { content: \"page \" counter(page) \" of \" counter(pages); "
+           "font-size: 8pt; color: #4a5868; } }\n";
+}
+
 ReportBundle build_report(const results::DesignRecord& record) {
     const Site& site = record.site();
     const auto& s = *record.scenario;
@@ -219,8 +248,8 @@ ReportBundle build_report(const results::DesignRecord& record) {
 
     std::ostringstream o;
     o << "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<title>" << escape_xml(s.title)
-      << "</title>\n<style>" << style_sheet << "</style>\n</head>\n<body>\n";
-    o << "<h1>Vertical drain design: " << escape_xml(s.title) << "</h1>\n";
+      << "</title>\n<style>" << style_sheet << print_page_css(s) << "</style>\n</head>\n<body>\n";
+    o << "<h1>Vertical drain design: " << escape_xml(s.title) << "</h1>\n" << title_block_html(s);
     o << "<section class=\"verdict\"><h2>Result</h2><p id=\"recommendation\">" << escape_xml(results::recommendation(record))
       << "</p></section>\n";
     o << "<section><h2>Inputs</h2>\n" << inputs_table(record) << "</section>\n";

@@ -19,6 +19,11 @@ struct ReportBundle {
     std::vector<Chart> charts;
 };
 
+// The title block as an HTML table, and the print rules that put the running header (project,
+// scenario title, revision) and "page N of M" on every printed page.
+std::string title_block_html(const scenario::Scenario& s);
+std::string print_page_css(const scenario::Scenario& s);
+
 // Draws the record's curves, series and studies and writes the HTML around them (formatting only:
 // the record was computed with charts, see results::RecordOptions).
 ReportBundle build_report(const results::DesignRecord& record);

@@ -5,7 +5,9 @@
 #include <cmath>
 #include <sstream>
 
+#include "design_report.hpp"
 #include "format.hpp"
+#include "html_report.hpp"
 #include "results/design_record.hpp"
 #include "svg_chart.hpp"
 #include "wickgrid/version.hpp"
@@ -113,8 +115,9 @@ json layout_json(const results::LayoutRecord& r) {
     json drains = json::array();
     for (const auto& d : l.drains)
         drains.push_back({{"id", d.id}, {"x", rounded(d.x_m, 3)}, {"y", rounded(d.y_m, 3)}, {"length_m", rounded(d.length_m, 2)}});
-    json out{{"wickgrid_version", version},
-             {"scenario", r.scenario->title},
+    json out{{"schema", 1},
+             {"wickgrid_version", version},
+             {"title", r.scenario->title},
              {"drain", r.drain_name},
              {"pattern", to_string(r.request.pattern)},
              {"spacing_m", r.request.spacing_m},
@@ -136,6 +139,7 @@ json layout_json(const results::LayoutRecord& r) {
              {"warnings", string_list(r.warnings)},
              {"assumptions", string_list(r.assumptions)},
              {"cautions", string_list(results::cautions())}};
+    add_title_block(out, *r.scenario);
     return out;
 }
 
@@ -247,8 +251,8 @@ std::string layout_html(const results::LayoutRecord& r) {
          "table { border-collapse: collapse; } th, td { border: 1px solid #c9d2d8; padding: .25rem .5rem; text-align: left; }\n"
          "th { background: #e8f1f0; } .warning { color: #8a3b00; font-weight: bold; }\n"
          ".cautions { border: 2px solid #c4621d; padding: .4rem 1rem; } figure svg { max-width: 100%; height: auto; }\n"
-         "@page { size: A4; margin: 15mm; }\n</style>\n</head>\n<body>\n";
-    o << "<h1>Drain layout: " << escape_xml(r.scenario->title) << "</h1>\n<table>\n";
+         "@page { size: A4; margin: 15mm; }\n" << print_page_css(*r.scenario) << "</style>\n</head>\n<body>\n";
+    o << "<h1>Drain layout: " << escape_xml(r.scenario->title) << "</h1>\n" << title_block_html(*r.scenario) << "<h2>Layout</h2>\n<table>\n";
     for (const auto& [k, v] : summary_rows(r)) o << "<tr><th>" << escape_xml(k) << "</th><td>" << escape_xml(v) << "</td></tr>\n";
     o << "</table>\n";
     for (const auto& w : r.warnings) o << "<p class=\"warning\">Warning: " << escape_xml(w) << "</p>\n";

@@ -9,6 +9,7 @@
 #include "wickgrid/errors.hpp"
 #include "wickgrid/names.hpp"
 #include "wickgrid/units.hpp"
+#include "wickgrid/version.hpp"
 
 namespace wickgrid::results {
 
@@ -235,6 +236,30 @@ const std::vector<std::string>& cautions() {
         "Local codes, standards and the judgement of a licensed engineer govern over this output.",
     };
     return text;
+}
+
+std::vector<TitleField> title_block(const scenario::Scenario& s) {
+    std::vector<TitleField> out;
+    const auto& p = s.project;
+    const std::pair<const char*, const std::optional<std::string>*> fields[] = {
+        {"name", &p.name}, {"number", &p.number}, {"revision", &p.revision},
+        {"prepared_by", &p.prepared_by}, {"checked_by", &p.checked_by}, {"date", &p.date}};
+    const char* labels[] = {"project", "project number", "revision", "prepared by", "checked by", "date"};
+    for (std::size_t i = 0; i < std::size(fields); ++i)
+        if (*fields[i].second) out.push_back({fields[i].first, labels[i], **fields[i].second, true});
+    out.push_back({"scenario", "scenario file", s.file, false});
+    out.push_back({"scenario_sha256", "scenario SHA-256", s.sha256, false});
+    out.push_back({"wickgrid_version", "wickgrid version", version, false});
+    return out;
+}
+
+std::string running_header(const scenario::Scenario& s) {
+    std::string out;
+    if (s.project.name) out += *s.project.name;
+    if (s.project.number) out += (out.empty() ? "" : " ") + ("(" + *s.project.number + ")");
+    out += (out.empty() ? "" : " — ") + s.title;
+    if (s.project.revision) out += " — rev. " + *s.project.revision;
+    return out;
 }
 
 std::string caution_block() {

@@ -68,6 +68,18 @@ std::vector<std::string> method_notes(const Site& site);
 std::string criterion_text(const Site& site);   // "U = 90.0 % by day 180", "residual settlement at most …"
 std::string criterion_label(const Site& site);  // short: "U ≥ 90 %", "residual ≤ 60 mm"
 std::string recommendation(const DesignRecord& record);
+// The title block of a printed output: the `project:` fields the scenario gives, then the scenario
+// file, its SHA-256 and the wickgrid version (key is the JSON key, label what a page shows).
+struct TitleField {
+    std::string key;
+    std::string label;
+    std::string value;
+    bool project = false;  // one of the `project:` fields (JSON puts those under "project")
+};
+std::vector<TitleField> title_block(const scenario::Scenario& s);
+// The line printed at the top of every page: project name and number, scenario title, revision.
+std::string running_header(const scenario::Scenario& s);
+
 // The cautions every output carries.
 const std::vector<std::string>& cautions();
 // The cautions as the block that ends every terminal output ("Cautions:" and one line each).

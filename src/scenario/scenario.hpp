@@ -53,9 +53,21 @@ struct StudyRequests {
     std::optional<MonteCarloSpec> monte_carlo;
 };
 
+// The optional `project:` block: what a title block of a printed note shows.
+struct ProjectInfo {
+    std::optional<std::string> name;
+    std::optional<std::string> number;
+    std::optional<std::string> revision;
+    std::optional<std::string> prepared_by;
+    std::optional<std::string> checked_by;
+    std::optional<std::string> date;
+};
+
 struct Scenario {
     std::string file;
     std::string title;
+    ProjectInfo project;
+    std::string sha256;  // of the file's bytes, so a printed result can be traced to its input
     Site site;  // everything the physics needs, in SI units
     std::vector<DrainEntry> drains;  // as given, in the order of site.products
     std::optional<double> fill_unit_weight_kN_per_m3;

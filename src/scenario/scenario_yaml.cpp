@@ -8,6 +8,7 @@
 #include <sstream>
 
 #include "scenario.hpp"
+#include "file_digest.hpp"
 #include "plausibility.hpp"
 #include "suggest.hpp"
 #include "wickgrid/errors.hpp"
@@ -173,7 +174,7 @@ private:
 const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "drains", "drain_length_m",
                                         "drain_outlets", "installation", "patterns", "spacing", "studies",
                                         "uncertain", "fill_unit_weight_kN_per_m3", "loading", "method",
-                                        "numerical_mesh"};
+                                        "numerical_mesh", "project"};
 
 void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "target");
@@ -341,6 +342,22 @@ void read_drains(const Reader& r, const YAML::Node& root, Scenario& s) {
         s.drains.push_back(std::move(d));
         s.site.products.push_back(std::move(product));
     }
+}
+
+void read_project(const Reader& r, const YAML::Node& root, Scenario& s) {
+    if (!root["project"]) return;
+    const YAML::Node node = root["project"];
+    r.expect_map(node, "project");
+    r.allow_keys(node, "project", {"name", "number", "revision", "prepared_by", "checked_by", "date"});
+    auto field = [&](const char* key, std::optional<std::string>& out) {
+        if (node[key]) out = r.text(node[key], std::string("project.") + key);
+    };
+    field("name", s.project.name);
+    field("number", s.project.number);
+    field("revision", s.project.revision);
+    field("prepared_by", s.project.prepared_by);
+    field("checked_by", s.project.checked_by);
+    field("date", s.project.date);
 }
 
 void read_installation(const Reader& r, const YAML::Node& root, Scenario& s) {
@@ -759,6 +776,7 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     const double schema = r.number(root, "", "schema", {1.0, true, 1.0, true, ""});
     (void)schema;
     s.title = root["title"] ? r.text(root["title"], "title") : file;
+    read_project(r, root, s);
     read_target(r, root, s);
     read_method(r, root, s);
     read_clay(r, root, s);
@@ -889,7 +907,9 @@ Scenario parse_scenario(const std::string& text, const std::string& file_label) 
         throw ScenarioError(file_label, {e.mark.line + 1, e.mark.column + 1}, "", "YAML syntax: " + e.msg);
     }
     try {
-        return read(root, file_label);
+        Scenario s = read(root, file_label);
+        s.sha256 = sha256_hex(text);
+        return s;
     } catch (const YAML::Exception& e) {  // structure yaml-cpp could not convert
         throw ScenarioError(file_label, {e.mark.line + 1, e.mark.column + 1}, "", e.msg);
     }
