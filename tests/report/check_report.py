@@ -131,6 +131,10 @@ def main():
                 text = subprocess.run(["pdftotext", "-layout", pdf, "-"], capture_output=True, text=True).stdout
                 for heading in ("drains/ha", "cost/ha", "t90"):
                     check(heading in text, f"printed report: column heading '{heading}' missing")
+                # The running header (project, number, revision) and page numbers on every page.
+                pages = text.count("\f") + 1
+                check(text.count("(HR-2041)") >= pages - 1, f"printed report: running header on {text.count('(HR-2041)')} of {pages} pages")
+                check(f"page 1 of {pages - 1}" in text or f"page 1 of {pages}" in text, "printed report: no 'page 1 of N'")
                 info = subprocess.run(["pdfinfo", "-f", "1", "-l", "999", pdf], capture_output=True, text=True).stdout
                 sizes = re.findall(r"Page\s+\d+ size:\s+([\d.]+) x ([\d.]+) pts", info)
                 check(bool(sizes), "pdfinfo gave no page sizes")
@@ -140,6 +144,21 @@ def main():
             else:
                 check(False, "poppler-utils (pdftotext, pdfinfo) is not installed (scripts/install-deps.sh --test)")
         check(requests == [], f"the report requested {requests}")
+        # The layout page: the plan view renders, prints on A4 and requests nothing.
+        layout_out = os.path.join(work, "layout")
+        r = wickgrid("layout", os.path.join(SOURCE, "demo/scenario.yaml"), "--area", os.path.join(SOURCE, "demo/zone-c-area.geojson"),
+                     "--drain", "band-100x4", "--pattern", "triangular", "--spacing", "1.2", "--out", layout_out)
+        check(r.returncode == 0, f"layout: exit {r.returncode}: {r.stderr}")
+        layout_page = os.path.join(layout_out, "layout.html")
+        ET.fromstring(open(layout_page, encoding="utf-8").read())
+        shot, printed, png, pdf, requests = render(chromium, layout_page, work, "layout")
+        check(shot.returncode == 0 and os.path.exists(png) and not_blank(png), "layout: screenshot failed or blank")
+        check(printed.returncode == 0 and os.path.exists(pdf), "layout: PDF failed")
+        check(requests == [], f"the layout page requested {requests}")
+        if os.path.exists(pdf) and shutil.which("pdftotext"):
+            text = subprocess.run(["pdftotext", "-layout", pdf, "-"], capture_output=True, text=True).stdout
+            for word in ("idealised count", "Cautions", "HR-2041"):
+                check(word in text, f"printed layout: '{word}' missing")
         # Control: a page that loads a loopback URL is seen by the same detector.
         control = os.path.join(work, "control.html")
         with open(control, "w") as f:
