@@ -1,5 +1,7 @@
 #include "report/design_report.hpp"
 
+#include "results/bibliography.hpp"
+
 #include <sstream>
 
 #include "report/columns.hpp"
@@ -252,6 +254,8 @@ std::string design_markdown(const results::DesignRecord& record) {
         << (record.result.ranking == RankingBasis::cost_per_hectare ? "cost per hectare" : "drain metres per hectare")
         << ".\n\n## Method and sources\n\n";
     for (const auto& line : record.method_notes) out << "- " << md(line) << "\n";
+    out << "\n## References\n\n";
+    for (const auto& key : results::reference_keys(record)) out << "- " << md(results::reference(key).text) << "\n";
     out << "\n## Assumptions\n\n";
     for (const auto& line : record.assumptions) out << "- " << md(line) << "\n";
     out << "\n## Cautions\n\n";

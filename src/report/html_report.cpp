@@ -1,5 +1,7 @@
 #include "html_report.hpp"
 
+#include "results/bibliography.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <sstream>
@@ -261,6 +263,9 @@ ReportBundle build_report(const results::DesignRecord& record) {
           << escape_xml(bundle.charts[i].caption) << "</figcaption>\n</figure>\n";
     o << "</section>\n<section><h2>Method and sources</h2>\n<ul>\n";
     for (const auto& line : record.method_notes) o << "<li>" << escape_xml(line) << "</li>\n";
+    o << "</ul>\n</section>\n<section id=\"references\"><h2>References</h2>\n<ul>\n";
+    for (const auto& key : results::reference_keys(record))
+        o << "<li data-key=\"" << key << "\">" << escape_xml(results::reference(key).text) << "</li>\n";
     o << "</ul>\n</section>\n<section><h2>Assumptions</h2>\n<ul>\n";
     for (const auto& line : record.assumptions) o << "<li>" << escape_xml(line) << "</li>\n";
     o << "</ul>\n</section>\n<section class=\"cautions\"><h2>Cautions</h2>\n<ul>\n";

@@ -8,6 +8,7 @@
 #include "design_report.hpp"
 #include "format.hpp"
 #include "html_report.hpp"
+#include "results/bibliography.hpp"
 #include "results/design_record.hpp"
 #include "svg_chart.hpp"
 #include "wickgrid/version.hpp"
@@ -261,8 +262,7 @@ std::string layout_html(const results::LayoutRecord& r) {
     for (const auto& a : r.assumptions) o << "<li>" << escape_xml(a) << "</li>\n";
     o << "</ul>\n";
     if (!r.request.base_points.empty())
-        o << "<h2>References</h2>\n<p>Shepard, D. (1968). A two-dimensional interpolation function for irregularly-"
-             "spaced data. Proceedings of the 23rd ACM National Conference, 517–524.</p>\n";
+        o << "<h2>References</h2>\n<p>" << escape_xml(results::reference("shepard1968").text) << "</p>\n";
     o << "<section class=\"cautions\"><h2>Cautions</h2>\n<ul>\n";
     for (const auto& c : results::cautions()) o << "<li>" << escape_xml(c) << "</li>\n";
     o << "</ul></section>\n<footer>wickgrid " << version << "</footer>\n</body>\n</html>\n";

@@ -187,7 +187,7 @@ std::vector<std::string> method_notes(const Site& site) {
         notes.push_back(
             "Method: numerical unit cell (axisymmetric finite volumes, coupled radial and vertical flow, the drain as a "
             "conduit of capacity qw, layered cv/ch/mv, drains that may stop short of the clay base; backward Euler). "
-            "Uv is the same cell without a drain; Ur is the radial degree that Carrillo's rule would need to give U. "
+            "Uv is the same cell without a drain; Ur is the radial degree that Carrillo's (1942) rule would need to give U. "
             "μ is the depth mean of μ(z) of Hansbo (1981) with each layer's kh = ch·mv·γw.");
         if (site.ground.profile) {
             notes.push_back("Storage mv of an e–log layer: the secant under the final permanent load.");
@@ -236,6 +236,27 @@ const std::vector<std::string>& cautions() {
         "Local codes, standards and the judgement of a licensed engineer govern over this output.",
     };
     return text;
+}
+
+std::vector<std::string> reference_keys(const DesignRecord& record) {
+    const Site& site = record.site();
+    const bool closed_form = site.method.method == CellMethod::closed_form;
+    std::vector<std::string> keys;
+    auto add = [&](const std::string& key) {
+        if (std::find(keys.begin(), keys.end(), key) == keys.end()) keys.push_back(key);
+    };
+    if (closed_form) add("terzaghi1925");  // the numerical cell solves the vertical flow itself
+    for (const char* key : {"barron1948", "hansbo1981", "carrillo1942"}) add(key);
+    if (closed_form && site.installation.smear_shape != SmearShape::constant)
+        add("walker_indraratna2006");
+    for (const auto& d : record.scenario->drains)
+        if (d.method) add(*d.method == EquivalentDiameterMethod::hansbo_1979 ? "hansbo1979"
+                          : *d.method == EquivalentDiameterMethod::rixner_1986 ? "rixner1986"
+                                                                                : "long_covo1994");
+    if (!site.criterion.residual()) add("alefeld1995");  // the residual criterion scans and bisects
+    if (site.loading && closed_form) add("olson1977");
+    if (record.studies.monte_carlo) add("clopper_pearson1934");
+    return keys;
 }
 
 std::vector<TitleField> title_block(const scenario::Scenario& s) {

@@ -80,6 +80,9 @@ std::vector<TitleField> title_block(const scenario::Scenario& s);
 // The line printed at the top of every page: project name and number, scenario title, revision.
 std::string running_header(const scenario::Scenario& s);
 
+// The bibliography keys of the methods this record used (results/bibliography.hpp).
+std::vector<std::string> reference_keys(const DesignRecord& record);
+
 // The cautions every output carries.
 const std::vector<std::string>& cautions();
 // The cautions as the block that ends every terminal output ("Cautions:" and one line each).
