@@ -58,6 +58,7 @@ int main(int argc, char** argv) {
     const cli::Runner report_cmd = cli::add_report(app);
     const cli::Runner verify = cli::add_verify(app);
     const cli::Runner layout_cmd = cli::add_layout(app);
+    const cli::Runner monitor = cli::add_monitor(app);
     // An unknown command name gets its own message (CLI11 would only say a subcommand is required).
     if (argc > 1 && argv[1][0] != '-') {
         std::vector<std::string> names;
@@ -93,6 +94,7 @@ int main(int argc, char** argv) {
         if (app.got_subcommand("report")) return report_cmd();
         if (app.got_subcommand("verify")) return verify();
         if (app.got_subcommand("layout")) return layout_cmd();
+        if (app.got_subcommand("monitor")) return monitor();
     } catch (const scenario::ScenarioError& e) {
         // A key the file does not give is reported against the file, without an invented line.
         report_error(e.mark().line > 0 ? e.what()

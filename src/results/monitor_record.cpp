@@ -1,0 +1,142 @@
+#include "monitor_record.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+#include "report/format.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/units.hpp"
+#include "wickgrid/studies.hpp"
+#include "wickgrid/vertical.hpp"
+
+namespace wickgrid::results {
+
+namespace {
+using report::fixed;
+double days(double s) { return units::seconds_to_days(s); }
+
+// The last change of load: the end of the last permanent stage or of the surcharge's placing, or
+// the plate's own last change of fill height, whichever is later.
+double last_load_change_s(const Site& site, const scenario::PlateRecord& plate) {
+    double t = 0.0;
+    if (site.loading) {
+        t = site.loading->end_of_construction_s();
+        if (site.loading->surcharge) t = std::max(t, site.loading->surcharge->end_s);
+    }
+    if (plate.last_fill_change_s) t = std::max(t, *plate.last_fill_change_s);
+    return t;
+}
+
+void analyse_asaoka(PlateAnalysis& a, const std::vector<monitoring::Reading>& used, const Site& site, const CellModel& design,
+                    std::optional<double> interval_s) {
+    try {
+        a.asaoka = monitoring::asaoka(used, a.window_start_s, interval_s);
+    } catch (const EvaluationError& e) {
+        a.notes.push_back("Asaoka: " + e.reason());
+        return;
+    }
+    const double relative_se = a.asaoka->final_settlement_se_m / std::abs(a.asaoka->final_settlement_m);
+    a.asaoka_reliable = relative_se <= asaoka_max_relative_se;
+    if (!a.asaoka_reliable)
+        a.notes.push_back("Asaoka: the standard error of s∞ is " + fixed(100.0 * relative_se, 0) +
+                          " % of it (more than 10 %): too noisy to rely on");
+    if (!site.ground.cv_m2_per_s) {
+        a.notes.push_back("Asaoka: no clay-wide cv to separate the vertical drainage from the radial; ch not given");
+        return;
+    }
+    const auto& fig = design.figures();
+    a.asaoka_ch_m2_per_s = monitoring::asaoka_ch_m2_per_s(
+        a.asaoka->beta1, a.asaoka->interval_s, fig.influence_diameter_m, fig.mu_depth_mean, *site.ground.cv_m2_per_s,
+        drainage_path_m(site.ground.thickness_m, site.ground.drainage));
+    if (!a.asaoka_ch_m2_per_s)
+        a.notes.push_back("Asaoka: the record settles no faster than vertical drainage alone would; ch not given");
+}
+
+void analyse_fit(PlateAnalysis& a, const std::vector<monitoring::Reading>& used, const scenario::Scenario& s,
+                 const DrainProductSpec& product, Pattern pattern, double spacing_m) {
+    try {
+        a.fit = monitoring::fit_ch_and_settlement(s.site, product, pattern, spacing_m, used);
+    } catch (const EvaluationError& e) {
+        a.notes.push_back("Direct fit: " + e.reason());
+        return;
+    }
+    const auto& ci = a.fit->ch_interval_95;
+    a.fit_reliable = !a.fit->at_search_bound && ci && (*ci)[1] / (*ci)[0] <= fit_max_interval_ratio;
+    if (a.fit->at_search_bound)
+        a.notes.push_back("Direct fit: ch sits at a bound of its search (a factor 100 from the design's): not determined");
+    else if (!ci)
+        a.notes.push_back("Direct fit: the record does not bound ch");
+    else if (!a.fit_reliable)
+        a.notes.push_back("Direct fit: the 95 % interval of ch spans a factor " + fixed((*ci)[1] / (*ci)[0], 1) +
+                          " (more than 4): too short or too noisy a record to forecast from");
+}
+}  // namespace
+
+MonitorRecord monitor_record(const scenario::Scenario& s, const std::string& drain, Pattern pattern, double spacing_m,
+                             const scenario::ReadingsFile& readings, std::optional<double> asaoka_interval_s) {
+    MonitorRecord r;
+    r.scenario = &s;
+    const DrainProductSpec& product = s.site.product(drain);
+    r.drain = product.name;
+    r.pattern = pattern;
+    r.spacing_m = spacing_m;
+    r.readings_file = readings.file;
+    r.design_ch_m2_per_s = s.site.ground.ch_m2_per_s.value_or(0.0);
+    r.warnings = readings.warnings;
+    const auto design = make_cell_model(s.site, product, pattern, spacing_m);
+    for (const auto& plate : readings.plates) {
+        PlateAnalysis a;
+        a.plate = plate.plate;
+        a.readings = plate.readings.size();
+        a.window_start_s = last_load_change_s(s.site, plate);
+        std::vector<monitoring::Reading> used = plate.readings;
+        if (s.site.loading && s.site.loading->surcharge && plate.readings.back().time_s > s.site.loading->surcharge->removal_s) {
+            a.window_end_s = s.site.loading->surcharge->removal_s;
+            std::erase_if(used, [&](const auto& x) { return x.time_s > *a.window_end_s; });
+            a.notes.push_back("Readings after the surcharge removal (day " + fixed(days(*a.window_end_s), 0) +
+                              ") are not used: rebound is outside the methods.");
+        }
+        if (used.empty()) {
+            a.notes.push_back("No reading before the surcharge removal.");
+            r.plates.push_back(std::move(a));
+            continue;
+        }
+        a.now_s = used.back().time_s;
+        analyse_asaoka(a, used, s.site, *design, asaoka_interval_s);
+        try {
+            a.hyperbolic = monitoring::hyperbolic(used, a.window_start_s);
+        } catch (const EvaluationError& e) {
+            a.notes.push_back("Hyperbolic: " + e.reason());
+        }
+        analyse_fit(a, used, s, product, pattern, spacing_m);
+        a.design_final_m = design->final_settlement_m();
+        a.design_forecast = monitoring::forecast(*design, a.design_final_m.value_or(0.0), s.site, a.now_s);
+        if (a.fit && a.fit_reliable) {
+            const Site fitted = with_input(s.site, StudyInput::ch, a.fit->ch_m2_per_s);
+            a.fitted_forecast = monitoring::forecast(*make_cell_model(fitted, product, pattern, spacing_m),
+                                                     a.fit->final_settlement_m, fitted, a.now_s);
+        }
+        r.plates.push_back(std::move(a));
+    }
+    r.assumptions = {
+        "Days count from the start of loading (the scenario's day 0); settlements from a plate installed then.",
+        "Asaoka (1978): the record resampled at a constant interval from the last load change (linear interpolation), "
+        "s_i = β0 + β1·s_(i−1) by least squares, s∞ = β0/(1 − β1); ch from β1 with radial and vertical drainage "
+        "together, −ln β1/Δt = 8ch/(De²μ) + π²cv/(4d²) (Magnan & Deroy 1980), μ the design cell's depth mean.",
+        "Hyperbolic (Tan, Inoue & Lee 1991), plain form: (t − t0)/(s − s0) = α + β(t − t0), s∞ = s0 + 1/β; it tends to "
+        "overestimate s∞ (Tan et al. give a correction, not applied here).",
+        "Asaoka's and the hyperbolic s∞ are limits under the load acting over the window: with a surcharge on, above "
+        "the final settlement under the permanent load (the direct fit's S).",
+        "Direct fit: s(t) = S·U(t; ch) of the design's cell model under the scenario's load history, least squares over "
+        "ln ch (Brent) with S exact; 95 % interval of ch from the Jacobian with Student's t.",
+        "Relied on only when: Asaoka's standard error of s∞ is at most 10 % of it; the direct fit's ch is inside its "
+        "search and its 95 % interval spans at most a factor 4. Otherwise the record is too short or too noisy and no "
+        "back-analysed forecast is given.",
+        "The back-analysed forecast keeps every other design input; a surcharge may come off when U relative to the "
+        "final permanent load reaches 1 (Johnson 1970).",
+    };
+    return r;
+}
+
+}  // namespace wickgrid::results

@@ -1,0 +1,54 @@
+#pragma once
+// The result of `wickgrid monitor`: each settlement plate back-analysed (Asaoka, hyperbolic, direct
+// fit of the site model) and forecast with the design and the back-analysed parameters. Writers
+// format it; they never call the engine.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "scenario/readings_file.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/monitoring.hpp"
+
+namespace wickgrid::results {
+
+// When a back-analysis is too uncertain to forecast from (the rules the README states).
+inline constexpr double asaoka_max_relative_se = 0.10;  // of s∞
+inline constexpr double fit_max_interval_ratio = 4.0;   // upper / lower 95 % bound of ch
+
+struct PlateAnalysis {
+    std::string plate;
+    std::size_t readings = 0;
+    double window_start_s = 0.0;  // the last load change
+    std::optional<double> window_end_s;  // the surcharge removal, when readings go past it
+    double now_s = 0.0;           // the last reading used
+    std::optional<monitoring::AsaokaFit> asaoka;
+    std::optional<double> asaoka_ch_m2_per_s;
+    bool asaoka_reliable = false;
+    std::optional<monitoring::HyperbolicFit> hyperbolic;
+    std::optional<monitoring::DirectFit> fit;
+    bool fit_reliable = false;
+    std::optional<double> design_final_m;
+    monitoring::Forecast design_forecast;
+    std::optional<monitoring::Forecast> fitted_forecast;
+    std::vector<std::string> notes;  // why a method gave nothing, or why it is not relied on
+};
+
+struct MonitorRecord {
+    const scenario::Scenario* scenario = nullptr;
+    std::string drain;
+    Pattern pattern = Pattern::triangular;
+    double spacing_m = 0.0;
+    std::string readings_file;
+    double design_ch_m2_per_s = 0.0;
+    std::vector<PlateAnalysis> plates;
+    std::vector<std::string> warnings;
+    std::vector<std::string> assumptions;
+};
+
+// Back-analyses every plate. Throws ScenarioError-free engine errors only for the design cell
+// itself (InputError, EvaluationError); a method that cannot analyse a plate leaves a note instead.
+MonitorRecord monitor_record(const scenario::Scenario& s, const std::string& drain, Pattern pattern, double spacing_m,
+                             const scenario::ReadingsFile& readings, std::optional<double> asaoka_interval_s);
+
+}  // namespace wickgrid::results

@@ -1,0 +1,104 @@
+#include "readings_file.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+
+#include "csv_table.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/units.hpp"
+
+namespace wickgrid::scenario {
+
+namespace {
+constexpr double most_settlement_mm = 20000.0;  // 20 m: beyond any consolidation settlement
+constexpr double most_fill_height_m = 50.0;
+constexpr double gap_to_warn = 3.0;  // a gap over 3 × the plate's median interval is named
+
+void refuse_other_units(const CsvTable& t) {
+    for (const char* other : {"settlement_m", "settlement_cm", "settlement", "settlement_in"})
+        if (const auto c = t.column(other))
+            throw ScenarioError(t.file, t.header[*c].mark, "",
+                                std::string("the column '") + other +
+                                    "' is not read: give settlements in millimetres as 'settlement_mm'");
+}
+
+void gap_warnings(const ReadingsFile& f, std::vector<std::string>& out) {
+    for (const auto& p : f.plates) {
+        if (p.readings.size() < 3) continue;
+        std::vector<double> gaps;
+        for (std::size_t i = 1; i < p.readings.size(); ++i) gaps.push_back(p.readings[i].time_s - p.readings[i - 1].time_s);
+        std::vector<double> sorted = gaps;
+        std::nth_element(sorted.begin(), sorted.begin() + sorted.size() / 2, sorted.end());
+        const double median = sorted[sorted.size() / 2];
+        for (std::size_t i = 0; i < gaps.size(); ++i)
+            if (gaps[i] > gap_to_warn * median)
+                out.push_back("plate " + p.plate + ": no reading between day " +
+                              format_value(units::seconds_to_days(p.readings[i].time_s)) + " and day " +
+                              format_value(units::seconds_to_days(p.readings[i + 1].time_s)) + " (" +
+                              format_value(gaps[i] / median) + " × the usual interval)");
+    }
+}
+}  // namespace
+
+ReadingsFile parse_readings(const std::string& text, const std::string& file) {
+    const CsvTable t = parse_csv(text, file);
+    refuse_other_units(t);
+    const std::size_t cp = t.required_column("plate");
+    const std::size_t cd = t.required_column("day");
+    const std::size_t cs = t.required_column("settlement_mm");
+    const auto cf = t.column("fill_height_m");
+    if (t.rows.empty()) throw ScenarioError(file, t.header.front().mark, "", "has a header but no readings");
+    ReadingsFile out;
+    out.file = file;
+    std::map<std::string, std::size_t> index;
+    std::map<std::string, std::pair<double, int>> last;  // plate → last day, its line
+    std::map<std::string, double> last_fill;
+    for (const auto& row : t.rows) {
+        const std::string& plate = row[cp].text;
+        if (plate.empty()) throw ScenarioError(file, row[cp].mark, "plate", "a reading without a plate name");
+        const double day = csv_number(t, row[cd], "day", "a day of at least 0 from the start of loading");
+        if (day < 0.0)
+            throw ScenarioError(file, row[cd].mark, "day", "'" + row[cd].text + "' is before the start of loading (day 0)");
+        const double mm = csv_number(t, row[cs], "settlement_mm", "a settlement in millimetres");
+        if (std::abs(mm) > most_settlement_mm)
+            throw ScenarioError(file, row[cs].mark, "settlement_mm",
+                                "'" + row[cs].text + "' mm is more than 20 m: the settlement must be in millimetres");
+        const int line = row.front().mark.line;
+        if (const auto it = last.find(plate); it != last.end()) {
+            if (day == it->second.first)
+                throw ScenarioError(file, row[cd].mark, "day",
+                                    "a second reading of plate " + plate + " on day " + row[cd].text + " (line " +
+                                        std::to_string(it->second.second) + " has one)");
+            if (day < it->second.first)
+                throw ScenarioError(file, row[cd].mark, "day",
+                                    "day " + row[cd].text + " of plate " + plate + " comes after day " +
+                                        format_value(it->second.first) + " (line " + std::to_string(it->second.second) +
+                                        "); list each plate's readings in time order");
+        }
+        last[plate] = {day, line};
+        if (!index.count(plate)) {
+            index[plate] = out.plates.size();
+            out.plates.push_back({plate, {}, std::nullopt});
+        }
+        PlateRecord& p = out.plates[index[plate]];
+        p.readings.push_back({units::days_to_seconds(day), mm / 1000.0});
+        if (cf) {
+            const double h = csv_number(t, row[*cf], "fill_height_m", "a fill height in metres");
+            if (h < 0.0 || h > most_fill_height_m)
+                throw ScenarioError(file, row[*cf].mark, "fill_height_m",
+                                    "'" + row[*cf].text + "' is not a fill height of 0–50 m: the height must be in metres");
+            if (const auto it = last_fill.find(plate); it != last_fill.end() && std::abs(h - it->second) > 1e-9)
+                p.last_fill_change_s = units::days_to_seconds(day);
+            last_fill[plate] = h;
+        }
+    }
+    gap_warnings(out, out.warnings);
+    return out;
+}
+
+ReadingsFile read_readings_file(const std::string& path) {
+    return parse_readings(read_input_file(path, "readings file"), path);
+}
+
+}  // namespace wickgrid::scenario

@@ -1,0 +1,181 @@
+// Monitoring back-analysis: the observational methods on records whose answer is known in closed
+// form, the direct fit on synthetic records made by the engine (known ch and final settlement,
+// staged fill and a surcharge, with and without noise), and hostile readings files.
+#include <gtest/gtest.h>
+#include <nlohmann/json.hpp>
+
+#include <cmath>
+#include <random>
+
+#include "cli_helpers.hpp"
+#include "scenario/readings_file.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/monitoring.hpp"
+#include "wickgrid/studies.hpp"
+#include "wickgrid/units.hpp"
+
+namespace wickgrid::monitoring {
+namespace {
+using namespace wickgrid::cli_testing;
+constexpr double day = units::seconds_per_day;
+
+// s = S(1 − e^(−λt)) gives β1 = e^(−λΔt) and β0 = S(1 − β1) exactly (Asaoka 1978, by hand).
+TEST(Asaoka, ExactOnAnExponentialRecord) {
+    const double S = 0.8, lambda = 0.02 / day;
+    std::vector<Reading> r;
+    for (int d = 0; d <= 200; d += 5) r.push_back({d * day, S * (1.0 - std::exp(-lambda * d * day))});
+    const AsaokaFit fit = asaoka(r, 50 * day, 10 * day);
+    EXPECT_NEAR(fit.beta1, std::exp(-lambda * 10 * day), 1e-9);  // interpolation is exact at the readings
+    EXPECT_NEAR(fit.final_settlement_m, S, 1e-6);
+    EXPECT_NEAR(fit.final_settlement_se_m, 0.0, 1e-6);
+    EXPECT_EQ(fit.resampled_m.size(), 16u);
+    // ch back from β1 with cv = 0: 8ch/(De²μ) = λ.
+    const auto ch = asaoka_ch_m2_per_s(fit.beta1, fit.interval_s, 1.5, 4.0, 0.0, 5.0);
+    ASSERT_TRUE(ch.has_value());
+    EXPECT_NEAR(*ch, lambda * 1.5 * 1.5 * 4.0 / 8.0, 1e-6 * *ch);
+    EXPECT_FALSE(asaoka_ch_m2_per_s(fit.beta1, fit.interval_s, 1.5, 4.0, 1.0, 1.0).has_value());  // vertical alone is faster
+}
+
+TEST(Asaoka, RefusesShortOrUnsettledRecords) {
+    std::vector<Reading> r{{0, 0.0}, {10 * day, 0.05}, {20 * day, 0.09}};
+    EXPECT_THROW(asaoka(r, 0.0, 10 * day), EvaluationError);  // 3 points
+    std::vector<Reading> linear;
+    for (int d = 0; d <= 100; d += 10) linear.push_back({d * day, 0.001 * d});
+    EXPECT_THROW(asaoka(linear, 0.0, 10 * day), EvaluationError);  // β1 = 1: no limit yet
+    EXPECT_THROW(asaoka(linear, 0.0, -1.0), InputError);
+}
+
+// s − s0 = (t − t0)/(α + β(t − t0)) gives α and β exactly (Tan, Inoue & Lee 1991, by hand).
+TEST(Hyperbolic, ExactOnAHyperbola) {
+    const double alpha = 50.0 * day, beta = 2.0, s0 = 0.1;
+    std::vector<Reading> r{{0, 0.0}, {30 * day, s0}};
+    for (int d = 40; d <= 400; d += 20) r.push_back({d * day, s0 + (d - 30) * day / (alpha + beta * (d - 30) * day)});
+    const HyperbolicFit fit = hyperbolic(r, 30 * day);
+    EXPECT_NEAR(fit.beta_per_m, beta, 1e-9);
+    EXPECT_NEAR(fit.alpha_s_per_m, alpha, 1e-6 * alpha);
+    EXPECT_NEAR(fit.final_settlement_m, s0 + 1.0 / beta, 1e-9);
+    EXPECT_THROW(hyperbolic({{0, 0}, {day, 0.01}, {2 * day, 0.02}}, 0.0), EvaluationError);
+}
+
+// A synthetic record from the engine: the staged, surcharged scenario with ch = 5.0 m²/year (the
+// design says 3.5) and a final settlement 15 % above the design's.
+struct Synthetic {
+    scenario::Scenario s;
+    double ch_true = units::per_year_to_per_second(5.0);
+    double final_true = 0.0;
+    std::string csv;
+};
+
+Synthetic synthetic(double noise_mm, unsigned seed, int every_days, int last_day) {
+    Synthetic x{scenario::load_scenario(source("configs/staged-surcharge.yaml")), units::per_year_to_per_second(5.0), 0.0, ""};
+    const auto& product = x.s.site.products.front();
+    const Site truth = with_input(x.s.site, StudyInput::ch, x.ch_true);
+    const auto model = make_cell_model(truth, product, Pattern::triangular, 1.5);
+    x.final_true = 1.15 * *model->final_settlement_m();
+    std::mt19937 rng(seed);
+    std::normal_distribution<double> noise(0.0, noise_mm);
+    x.csv = "plate,day,settlement_mm\n";
+    for (int d = every_days; d <= last_day; d += every_days) {
+        const double mm = 1000.0 * x.final_true * model->degree(d * day) + (noise_mm > 0 ? noise(rng) : 0.0);
+        x.csv += "SP1," + std::to_string(d) + "," + std::to_string(mm) + "\n";
+    }
+    return x;
+}
+
+nlohmann::json run_monitor(const Synthetic& x) {
+    const fs::path dir = scratch();
+    std::ofstream(dir / "readings.csv") << x.csv;
+    const auto r = run("monitor " + source("configs/staged-surcharge.yaml") + " --readings " + (dir / "readings.csv").string() +
+                       " --drain band-100x4 --pattern triangular --spacing 1.5 --json");
+    EXPECT_EQ(r.exit_code, 0) << r.err;
+    return nlohmann::json::parse(r.out);
+}
+
+TEST(DirectFit, RecoversChAndFinalSettlementFromAnExactRecord) {
+    const Synthetic x = synthetic(0.0, 1, 7, 245);
+    const auto j = run_monitor(x);
+    const auto& p = j["plates"][0];
+    EXPECT_NEAR(p["fit"]["ch_m2_per_year"].get<double>(), 5.0, 0.01 * 5.0);
+    EXPECT_NEAR(p["fit"]["final_settlement_mm"].get<double>(), 1000.0 * x.final_true, 0.01 * 1000.0 * x.final_true);
+    EXPECT_TRUE(p["fit"]["reliable"].get<bool>());
+    ASSERT_FALSE(p["forecast"].is_null());
+    EXPECT_FALSE(p["forecast"]["surcharge_removal_day"].is_null());
+    for (const char* key : {"final_settlement_mm", "beta0_mm", "beta1", "interval_days", "ch_m2_per_year"})
+        EXPECT_TRUE(p["asaoka"].contains(key)) << key;
+    EXPECT_TRUE(p["hyperbolic"].contains("final_settlement_mm"));
+    EXPECT_EQ(j["cautions"].size(), 4u);
+}
+
+TEST(DirectFit, DegradesGracefullyWithNoise) {
+    for (const double noise : {2.0, 5.0, 10.0}) {
+        const Synthetic x = synthetic(noise, 7, 7, 245);
+        const auto j = run_monitor(x);
+        const auto& fit = j["plates"][0]["fit"];
+        const double ch = fit["ch_m2_per_year"].get<double>();
+        const auto interval = fit["ch_interval_95"];
+        ASSERT_FALSE(interval.is_null()) << noise;
+        EXPECT_LE(interval[0].get<double>(), 5.0 * 1.02) << noise;  // the truth within (about) its interval
+        EXPECT_GE(interval[1].get<double>(), 5.0 * 0.98) << noise;
+        EXPECT_NEAR(ch, 5.0, 0.25 * 5.0) << noise;
+        std::printf("noise %.0f mm: ch %.2f (95 %% %.2f–%.2f) m²/year, S %.0f mm (true %.0f)\n", noise, ch,
+                    interval[0].get<double>(), interval[1].get<double>(), fit["final_settlement_mm"].get<double>(),
+                    1000.0 * x.final_true);
+    }
+}
+
+TEST(DirectFit, ARecordTooShortGivesNoForecast) {
+    const Synthetic x = synthetic(5.0, 3, 10, 30);  // three readings in the first month
+    const auto j = run_monitor(x);
+    const auto& p = j["plates"][0];
+    EXPECT_TRUE(p["forecast"].is_null());
+    EXPECT_FALSE(p["notes"].empty());
+}
+
+struct HostileRow {
+    const char* name;
+    const char* text;
+    int line;
+    const char* says;
+};
+
+TEST(ReadingsFile, EveryErrorNamesItsLine) {
+    const std::vector<HostileRow> rows{
+        {"no settlement column", "plate,day\nSP1,1\n", 1, "no column 'settlement_mm'"},
+        {"settlement in metres", "plate,day,settlement_m\nSP1,1,0.2\n", 1, "give settlements in millimetres"},
+        {"empty plate", "plate,day,settlement_mm\n,1,20\n", 2, "without a plate name"},
+        {"not a number", "plate,day,settlement_mm\nSP1,1,20\nSP1,8,twelve\n", 3, "not a number"},
+        {"negative day", "plate,day,settlement_mm\nSP1,-3,20\n", 2, "before the start of loading"},
+        {"out of order", "plate,day,settlement_mm\nSP1,10,20\nSP2,5,3\nSP1,8,25\n", 4, "comes after day 10 (line 2)"},
+        {"duplicated", "plate,day,settlement_mm\nSP1,10,20\nSP1,10,21\n", 3, "a second reading of plate SP1 on day 10"},
+        {"settlement units that do not fit", "plate,day,settlement_mm\nSP1,10,250000\n", 2, "more than 20 m"},
+        {"fill height units that do not fit", "plate,day,settlement_mm,fill_height_m\nSP1,10,20,1500\n", 2, "0–50 m"},
+        {"no readings", "plate,day,settlement_mm\n", 1, "no readings"},
+        {"short row", "plate,day,settlement_mm\nSP1,10\n", 2, "has 2 fields"},
+    };
+    for (const auto& row : rows) {
+        try {
+            scenario::parse_readings(row.text, "r.csv");
+            ADD_FAILURE() << row.name << ": accepted";
+        } catch (const scenario::ScenarioError& e) {
+            EXPECT_EQ(e.mark().line, row.line) << row.name << ": " << e.what();
+            EXPECT_NE(std::string(e.what()).find(row.says), std::string::npos) << row.name << ": " << e.what();
+        }
+    }
+}
+
+TEST(ReadingsFile, PlatesGapsAndFillChanges) {
+    const auto f = scenario::parse_readings(
+        "plate,day,settlement_mm,fill_height_m\nSP1,0,0,0\nSP2,0,0,0\nSP1,10,50,1\nSP1,20,80,2\nSP1,30,100,2\n"
+        "SP1,40,110,2\nSP1,200,150,2\n",
+        "r.csv");
+    ASSERT_EQ(f.plates.size(), 2u);
+    EXPECT_EQ(f.plates[0].readings.size(), 6u);
+    EXPECT_DOUBLE_EQ(f.plates[0].readings[2].settlement_m, 0.08);
+    EXPECT_DOUBLE_EQ(*f.plates[0].last_fill_change_s, 20 * day);
+    ASSERT_EQ(f.warnings.size(), 1u);
+    EXPECT_NE(f.warnings[0].find("between day 40 and day 200"), std::string::npos) << f.warnings[0];
+}
+
+}  // namespace
+}  // namespace wickgrid::monitoring
