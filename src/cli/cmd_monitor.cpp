@@ -38,7 +38,7 @@ Runner add_monitor(CLI::App& app) {
                          ->check(positive_number());
     auto* json = cmd->add_flag("--json", o->json, "JSON on stdout");
     cmd->add_flag("--csv", o->csv, "CSV on stdout (one row per plate)")->excludes(json);
-    cmd->add_option("--out", o->out_dir, "Also write monitor.json and monitor.csv into this folder");
+    cmd->add_option("--out", o->out_dir, "Also write monitor.json, monitor.csv and monitor.html (charts) into this folder");
     cmd->footer("Exit codes: 0 ok, 2 bad input (the readings file names its line), 3 an output could not be written, "
                 "5 the installed cell cannot be evaluated.");
     return [o, interval] {
@@ -53,7 +53,9 @@ Runner add_monitor(CLI::App& app) {
         const std::string json_text = report::monitor_json(record).dump(2) + "\n";
         if (!o->out_dir.empty())
             write_outputs(o->out_dir, {o->file, o->readings},
-                          {{"monitor.json", json_text}, {"monitor.csv", report::monitor_csv(record)}});
+                          {{"monitor.json", json_text},
+                           {"monitor.csv", report::monitor_csv(record)},
+                           {"monitor.html", report::monitor_html(record)}});
         if (o->json) print_stdout(json_text);
         else if (o->csv) print_stdout(report::monitor_csv(record));
         else print_stdout(report::monitor_table(record));

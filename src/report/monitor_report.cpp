@@ -4,6 +4,9 @@
 
 #include "design_report.hpp"
 #include "format.hpp"
+#include "html_report.hpp"
+#include "results/bibliography.hpp"
+#include "svg_chart.hpp"
 #include "wickgrid/units.hpp"
 #include "wickgrid/version.hpp"
 
@@ -136,6 +139,105 @@ std::string monitor_csv(const results::MonitorRecord& r) {
     return csv_document({"plate", "readings", "last_reading_day", "asaoka_final_settlement_mm", "asaoka_ch_m2_per_year",
                          "hyperbolic_final_settlement_mm", "fit_ch_m2_per_year", "fit_final_settlement_mm", "fit_reliable"},
                         rows);
+}
+
+namespace {
+std::string settlement_chart(const results::PlateAnalysis& a, const Site& site) {
+    LineChart c;
+    c.title = "Plate " + a.plate + ": settlement against time";
+    c.x_label = "time (days)";
+    c.y_label = "settlement (mm)";
+    Series obs{"observed", {}, {}, 0, true};
+    for (const auto& r : a.observed) {
+        obs.x.push_back(days(r.time_s));
+        obs.y.push_back(r.settlement_m * 1000.0);
+    }
+    c.series.push_back(obs);
+    auto curve = [&](const std::string& name, const std::vector<double>& m, int style) {
+        Series s{name, {}, {}, style, false};
+        for (std::size_t i = 0; i < m.size(); ++i) {
+            s.x.push_back(days(a.curve_times_s[i]));
+            s.y.push_back(m[i] * 1000.0);
+        }
+        c.series.push_back(s);
+    };
+    if (!a.design_curve_m.empty()) curve("design", a.design_curve_m, 1);
+    if (!a.fitted_curve_m.empty()) curve(a.fit_reliable ? "back-analysed" : "back-analysed (not relied on)", a.fitted_curve_m, 2);
+    c.marker_x = days(site.criterion.deadline_s);
+    c.marker_label = "deadline";
+    return render(c);
+}
+
+std::string asaoka_chart(const results::PlateAnalysis& a) {
+    const auto& f = *a.asaoka;
+    LineChart c;
+    c.title = "Plate " + a.plate + ": Asaoka plot (Δt = " + fixed(days(f.interval_s), 1) + " days)";
+    c.x_label = "settlement s(i−1) (mm)";
+    c.y_label = "settlement s(i) (mm)";
+    Series pts{"resampled readings", {}, {}, 0, true};
+    for (std::size_t i = 0; i + 1 < f.resampled_m.size(); ++i) {
+        pts.x.push_back(f.resampled_m[i] * 1000.0);
+        pts.y.push_back(f.resampled_m[i + 1] * 1000.0);
+    }
+    const double lo = 0.9 * pts.x.front();
+    const double hi = std::max(1.05 * f.final_settlement_m, f.resampled_m.back()) * 1000.0;
+    c.series.push_back(pts);
+    c.series.push_back({"fit s(i) = β0 + β1·s(i−1)", {lo, hi}, {f.beta0_m * 1000.0 + f.beta1 * lo, f.beta0_m * 1000.0 + f.beta1 * hi}, 1, false});
+    c.series.push_back({"45° line", {lo, hi}, {lo, hi}, 2, false});
+    return render(c);
+}
+
+std::vector<std::string> monitor_reference_keys(const results::MonitorRecord& r) {
+    std::vector<std::string> keys{"asaoka1978", "magnan_deroy1980", "tan1991", "hansbo1981", "carrillo1942"};
+    if (r.scenario->site.loading && r.scenario->site.loading->surcharge) keys.push_back("johnson1970");
+    return keys;
+}
+}  // namespace
+
+std::string monitor_html(const results::MonitorRecord& r) {
+    const auto& s = *r.scenario;
+    std::ostringstream o;
+    o << "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<title>Monitoring: " << escape_xml(s.title)
+      << "</title>\n<style>\nbody { font-family: sans-serif; max-width: 64rem; margin: auto; padding: 1rem; color: #1d2731; }\n"
+         "table { border-collapse: collapse; } th, td { border: 1px solid #c9d2d8; padding: .2rem .4rem; text-align: right; }\n"
+         "th { background: #e8f1f0; } .text { text-align: left; } .cautions { border: 2px solid #c4621d; padding: .4rem 1rem; }\n"
+         "figure { page-break-inside: avoid; } figure svg { max-width: 100%; height: auto; }\n"
+         "@page { size: A4; margin: 15mm; }\n"
+      << print_page_css(s) << "</style>\n</head>\n<body>\n<h1>Monitoring back-analysis: " << escape_xml(s.title) << "</h1>\n"
+      << title_block_html(s) << "<p>" << escape_xml(r.drain) << ", " << to_string(r.pattern) << " at " << fixed(r.spacing_m, 2)
+      << " m; readings from " << escape_xml(r.readings_file) << ".</p>\n<h2>Plates</h2>\n<table>\n<tr><th class=\"text\">plate</th>"
+         "<th>readings</th><th>Asaoka s∞ (mm)</th><th>Asaoka ch (m²/year)</th><th>hyperbolic s∞ (mm)</th><th>fit ch (m²/year)</th>"
+         "<th>fit s∞ (mm)</th><th>U now (%)</th><th>criterion met (day)</th><th>surcharge off (day)</th></tr>\n";
+    for (const auto& a : r.plates) {
+        const auto& f = a.fitted_forecast ? *a.fitted_forecast : a.design_forecast;
+        o << "<tr><td class=\"text\">" << escape_xml(a.plate) << "</td><td>" << a.readings << "</td><td>"
+          << (a.asaoka ? fixed(a.asaoka->final_settlement_m * 1000.0, 0) : "–") << "</td><td>"
+          << (a.asaoka_ch_m2_per_s ? fixed(per_year(*a.asaoka_ch_m2_per_s), 2) : "–") << "</td><td>"
+          << (a.hyperbolic ? fixed(a.hyperbolic->final_settlement_m * 1000.0, 0) : "–") << "</td><td>"
+          << (a.fit ? fixed(per_year(a.fit->ch_m2_per_s), 2) + (a.fit_reliable ? "" : " (not relied on)") : "–") << "</td><td>"
+          << (a.fit ? fixed(a.fit->final_settlement_m * 1000.0, 0) : "–") << "</td><td>" << fixed(100.0 * f.degree_now, 1)
+          << (a.fitted_forecast ? "" : " (design)") << "</td><td>" << escape_xml(day_text(f.criterion_met_s)) << "</td><td>"
+          << escape_xml(day_text(f.surcharge_removal_s)) << "</td></tr>\n";
+    }
+    o << "</table>\n";
+    for (const auto& w : r.warnings) o << "<p><strong>Warning:</strong> " << escape_xml(w) << "</p>\n";
+    for (const auto& a : r.plates) {
+        o << "<h2>Plate " << escape_xml(a.plate) << "</h2>\n<figure>" << settlement_chart(a, s.site) << "</figure>\n";
+        if (a.asaoka) o << "<figure>" << asaoka_chart(a) << "</figure>\n";
+        if (!a.notes.empty()) {
+            o << "<ul>\n";
+            for (const auto& n : a.notes) o << "<li>" << escape_xml(n) << "</li>\n";
+            o << "</ul>\n";
+        }
+    }
+    o << "<h2>Method and assumptions</h2>\n<ul>\n";
+    for (const auto& a : r.assumptions) o << "<li>" << escape_xml(a) << "</li>\n";
+    o << "</ul>\n<h2>References</h2>\n<ul>\n";
+    for (const auto& key : monitor_reference_keys(r)) o << "<li>" << escape_xml(results::reference(key).text) << "</li>\n";
+    o << "</ul>\n<section class=\"cautions\"><h2>Cautions</h2>\n<ul>\n";
+    for (const auto& c : results::cautions()) o << "<li>" << escape_xml(c) << "</li>\n";
+    o << "</ul></section>\n</body>\n</html>\n";
+    return o.str();
 }
 
 }  // namespace wickgrid::report

@@ -165,6 +165,18 @@ std::string render(const LineChart& chart) {
     for (std::size_t k = 0; k < chart.series.size(); ++k) {
         const auto& s = chart.series[k];
         const int st = s.style % 5;
+        const double ly = top + 18 + 20.0 * static_cast<double>(k);
+        if (s.points) {
+            for (std::size_t i = 0; i < s.x.size(); ++i) {
+                if (chart.log_x && !(s.x[i] > 0)) continue;
+                o << "<circle cx=\"" << num(ax.map(s.x[i])) << "\" cy=\"" << num(ay.map(std::clamp(s.y[i], ylo, yhi)))
+                  << "\" r=\"2.5\" fill=\"" << colours[st] << "\"/>\n";
+            }
+            o << "<circle cx=\"" << num(width - 146) << "\" cy=\"" << num(ly) << "\" r=\"3\" fill=\"" << colours[st]
+              << "\"/>\n<text x=\"" << num(width - 126) << "\" y=\"" << num(ly + 4)
+              << "\" font-family=\"sans-serif\" font-size=\"11\" fill=\"#1d2a33\">" << escape_xml(s.name) << "</text>\n";
+            continue;
+        }
         o << "<polyline fill=\"none\" stroke=\"" << colours[st] << "\" stroke-width=\"2\"";
         if (*dashes[st]) o << " stroke-dasharray=\"" << dashes[st] << "\"";
         o << " points=\"";
@@ -173,7 +185,6 @@ std::string render(const LineChart& chart) {
             o << num(ax.map(s.x[i])) << ',' << num(ay.map(std::clamp(s.y[i], ylo, yhi))) << ' ';
         }
         o << "\"/>\n";
-        const double ly = top + 18 + 20.0 * static_cast<double>(k);
         o << "<line x1=\"" << num(width - 160) << "\" y1=\"" << num(ly) << "\" x2=\"" << num(width - 132) << "\" y2=\""
           << num(ly) << "\" stroke=\"" << colours[st] << "\" stroke-width=\"2\"";
         if (*dashes[st]) o << " stroke-dasharray=\"" << dashes[st] << "\"";

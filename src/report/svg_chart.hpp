@@ -12,6 +12,7 @@ struct Series {
     std::string name;
     std::vector<double> x, y;
     int style = 0;  // colour and dash from the house palette
+    bool points = false;  // observations: a dot at each point, no line
 };
 
 struct LineChart {

@@ -15,6 +15,7 @@ namespace wickgrid::results {
 namespace {
 using report::fixed;
 double days(double s) { return units::seconds_to_days(s); }
+constexpr int chart_points = 120;
 
 // The last change of load: the end of the last permanent stage or of the surcharge's placing, or
 // the plate's own last change of fill height, whichever is later.
@@ -112,10 +113,16 @@ MonitorRecord monitor_record(const scenario::Scenario& s, const std::string& dra
         analyse_fit(a, used, s, product, pattern, spacing_m);
         a.design_final_m = design->final_settlement_m();
         a.design_forecast = monitoring::forecast(*design, a.design_final_m.value_or(0.0), s.site, a.now_s);
-        if (a.fit && a.fit_reliable) {
+        a.observed = plate.readings;
+        const double until = 1.2 * std::max(s.site.criterion.deadline_s, plate.readings.back().time_s);
+        for (int i = 0; i <= chart_points; ++i) a.curve_times_s.push_back(until * i / chart_points);
+        if (a.design_final_m)
+            for (const double u : design->combined(a.curve_times_s)) a.design_curve_m.push_back(*a.design_final_m * u);
+        if (a.fit) {
             const Site fitted = with_input(s.site, StudyInput::ch, a.fit->ch_m2_per_s);
-            a.fitted_forecast = monitoring::forecast(*make_cell_model(fitted, product, pattern, spacing_m),
-                                                     a.fit->final_settlement_m, fitted, a.now_s);
+            const auto model = make_cell_model(fitted, product, pattern, spacing_m);
+            for (const double u : model->combined(a.curve_times_s)) a.fitted_curve_m.push_back(a.fit->final_settlement_m * u);
+            if (a.fit_reliable) a.fitted_forecast = monitoring::forecast(*model, a.fit->final_settlement_m, fitted, a.now_s);
         }
         r.plates.push_back(std::move(a));
     }

@@ -32,6 +32,11 @@ struct PlateAnalysis {
     monitoring::Forecast design_forecast;
     std::optional<monitoring::Forecast> fitted_forecast;
     std::vector<std::string> notes;  // why a method gave nothing, or why it is not relied on
+    // For the charts: the readings, and the settlement of the design and of the fitted model.
+    std::vector<monitoring::Reading> observed;
+    std::vector<double> curve_times_s;
+    std::vector<double> design_curve_m;  // empty without a design settlement model
+    std::vector<double> fitted_curve_m;  // empty without a fit
 };
 
 struct MonitorRecord {

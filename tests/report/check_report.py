@@ -159,6 +159,23 @@ def main():
             text = subprocess.run(["pdftotext", "-layout", pdf, "-"], capture_output=True, text=True).stdout
             for word in ("idealised count", "Cautions", "HR-2041"):
                 check(word in text, f"printed layout: '{word}' missing")
+        # The monitoring page: its charts are well-formed SVG, it renders, prints and requests nothing.
+        monitor_out = os.path.join(work, "monitor")
+        r = wickgrid("monitor", os.path.join(SOURCE, "configs/staged-surcharge.yaml"), "--readings",
+                     os.path.join(SOURCE, "configs/staged-surcharge-readings.csv"), "--drain", "band-100x4",
+                     "--pattern", "triangular", "--spacing", "1.5", "--out", monitor_out)
+        check(r.returncode == 0, f"monitor: exit {r.returncode}: {r.stderr}")
+        monitor_page = os.path.join(monitor_out, "monitor.html")
+        root = ET.fromstring(open(monitor_page, encoding="utf-8").read())
+        check(len(list(root.iter(SVG_NS + "svg"))) >= 4, "monitor: fewer than 4 charts")
+        shot, printed, png, pdf, requests = render(chromium, monitor_page, work, "monitor")
+        check(shot.returncode == 0 and os.path.exists(png) and not_blank(png), "monitor: screenshot failed or blank")
+        check(printed.returncode == 0 and os.path.exists(pdf), "monitor: PDF failed")
+        check(requests == [], f"the monitoring page requested {requests}")
+        if os.path.exists(pdf) and shutil.which("pdftotext"):
+            text = subprocess.run(["pdftotext", "-layout", pdf, "-"], capture_output=True, text=True).stdout
+            for word in ("Asaoka plot", "Cautions", "Asaoka, A. (1978)"):
+                check(word in text, f"printed monitoring page: '{word}' missing")
         # Control: a page that loads a loopback URL is seen by the same detector.
         control = os.path.join(work, "control.html")
         with open(control, "w") as f:
