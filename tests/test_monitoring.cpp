@@ -164,6 +164,48 @@ TEST(ReadingsFile, EveryErrorNamesItsLine) {
     }
 }
 
+TEST(PiezometerFile, EveryErrorNamesItsLine) {
+    const std::vector<HostileRow> rows{
+        {"no pressure column", "piezometer,day,depth_m\nPZ1,1,4\n", 1, "no column 'excess_pore_pressure_kPa'"},
+        {"empty name", "piezometer,day,depth_m,excess_pore_pressure_kPa\n,1,4,10\n", 2, "without a piezometer name"},
+        {"negative day", "piezometer,day,depth_m,excess_pore_pressure_kPa\nPZ1,-1,4,10\n", 2, "before the start"},
+        {"depth moves", "piezometer,day,depth_m,excess_pore_pressure_kPa\nPZ1,1,4,10\nPZ1,2,5,10\n", 3, "one depth per piezometer"},
+        {"depth units", "piezometer,day,depth_m,excess_pore_pressure_kPa\nPZ1,1,4000,10\n", 2, "0–200 m"},
+        {"pressure in Pa", "piezometer,day,depth_m,excess_pore_pressure_kPa\nPZ1,1,4,25000\n", 2, "must be in kPa"},
+        {"twice on a day", "piezometer,day,depth_m,excess_pore_pressure_kPa\nPZ1,1,4,10\nPZ1,1,4,11\n", 3, "(line 2 has one)"},
+        {"out of order", "piezometer,day,depth_m,excess_pore_pressure_kPa\nPZ1,5,4,10\nPZ1,2,4,11\n", 3, "comes after day 5 (line 2)"},
+    };
+    for (const auto& row : rows) {
+        try {
+            scenario::parse_piezometers(row.text, "p.csv");
+            ADD_FAILURE() << row.name << ": accepted";
+        } catch (const scenario::ScenarioError& e) {
+            EXPECT_EQ(e.mark().line, row.line) << row.name << ": " << e.what();
+            EXPECT_NE(std::string(e.what()).find(row.says), std::string::npos) << row.name << ": " << e.what();
+        }
+    }
+}
+
+TEST(MonitorCommand, BundledRecordsWithPiezometers) {
+    const fs::path out = scratch();
+    const auto r = run("monitor " + source("configs/staged-surcharge.yaml") + " --readings " +
+                       source("configs/staged-surcharge-readings.csv") + " --piezometers " +
+                       source("configs/staged-surcharge-piezometers.csv") +
+                       " --drain band-100x4 --pattern triangular --spacing 1.5 --json --out " + out.string());
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const auto j = nlohmann::json::parse(r.out);
+    ASSERT_EQ(j["plates"].size(), 2u);
+    ASSERT_EQ(j["piezometers"].size(), 2u);
+    EXPECT_EQ(j["piezometers"][1]["depth_m"], 9.0);
+    EXPECT_EQ(j["plates"][0]["asaoka"]["residuals_mm"].size(), j["plates"][0]["asaoka"]["points"].get<std::size_t>() - 1);
+    // The invented record was made with ch = 5.0 m²/year (2 and 4 mm of noise).
+    for (const auto& p : j["plates"]) EXPECT_NEAR(p["fit"]["ch_m2_per_year"].get<double>(), 5.0, 0.25);
+    const std::string html = slurp(out / "monitor.html");
+    EXPECT_NE(html.find("Excess pore pressure against time"), std::string::npos);
+    EXPECT_NE(html.find("Asaoka plot"), std::string::npos);
+    EXPECT_EQ(nlohmann::json::parse(slurp(out / "monitor.json"))["plates"].size(), 2u);
+}
+
 TEST(ReadingsFile, PlatesGapsAndFillChanges) {
     const auto f = scenario::parse_readings(
         "plate,day,settlement_mm,fill_height_m\nSP1,0,0,0\nSP2,0,0,0\nSP1,10,50,1\nSP1,20,80,2\nSP1,30,100,2\n"

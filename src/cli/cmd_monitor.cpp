@@ -14,6 +14,7 @@ namespace {
 struct MonitorOptions {
     std::string file;
     std::string readings;
+    std::string piezometers;
     std::string drain;
     std::string pattern;
     double spacing_m = 0.0;
@@ -30,6 +31,8 @@ Runner add_monitor(CLI::App& app) {
     cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
     cmd->add_option("--readings", o->readings, "CSV with plate,day,settlement_mm[,fill_height_m]; days from the start of loading")
         ->required();
+    cmd->add_option("--piezometers", o->piezometers,
+                    "CSV with piezometer,day,depth_m,excess_pore_pressure_kPa (shown against the design)");
     cmd->add_option("--drain", o->drain, "Drain product installed (a name from the scenario)")->required();
     cmd->add_option("--pattern", o->pattern, "Pattern installed: triangular or square")->required()->check(pattern_check());
     cmd->add_option("--spacing", o->spacing_m, "Spacing installed (m)")->required()->check(positive_number());
@@ -48,11 +51,16 @@ Runner add_monitor(CLI::App& app) {
         model_from_options(s, o->drain, pattern, o->spacing_m);  // the installed cell, refused with the option at fault
         const std::optional<double> asaoka_interval =
             interval->count() > 0 ? std::optional(units::days_to_seconds(o->interval_days)) : std::nullopt;
-        const auto record = results::monitor_record(s, s.drain(o->drain).name, pattern, o->spacing_m, readings, asaoka_interval);
+        auto record = results::monitor_record(s, s.drain(o->drain).name, pattern, o->spacing_m, readings, asaoka_interval);
+        std::vector<std::string> inputs{o->file, o->readings};
+        if (!o->piezometers.empty()) {
+            results::add_piezometers(record, scenario::read_piezometer_file(o->piezometers));
+            inputs.push_back(o->piezometers);
+        }
         for (const auto& w : record.warnings) spdlog::warn("{}", w);
         const std::string json_text = report::monitor_json(record).dump(2) + "\n";
         if (!o->out_dir.empty())
-            write_outputs(o->out_dir, {o->file, o->readings},
+            write_outputs(o->out_dir, inputs,
                           {{"monitor.json", json_text},
                            {"monitor.csv", report::monitor_csv(record)},
                            {"monitor.html", report::monitor_html(record)}});

@@ -38,6 +38,11 @@ json plate_json(const results::PlateAnalysis& a) {
                        {"beta1_se", a.asaoka->beta1_se},
                        {"interval_days", days(a.asaoka->interval_s)},
                        {"points", a.asaoka->resampled_m.size()},
+                       {"residuals_mm", [&] {
+                            json rs = json::array();
+                            for (const double x : a.asaoka->residuals_m) rs.push_back(x * 1000.0);
+                            return rs;
+                        }()},
                        {"ch_m2_per_year", a.asaoka_ch_m2_per_s ? json(per_year(*a.asaoka_ch_m2_per_s)) : json(nullptr)},
                        {"reliable", a.asaoka_reliable}};
     else p["asaoka"] = nullptr;
@@ -75,8 +80,22 @@ json monitor_json(const results::MonitorRecord& r) {
     for (const auto& w : r.warnings) list.push_back(w);
     for (const auto& a : r.assumptions) assumptions.push_back(a);
     for (const auto& c : results::cautions()) cautions.push_back(c);
+    json piezometers = json::array();
+    for (const auto& p : r.piezometers) {
+        double peak = p.readings.front().second;
+        for (const auto& [t, u] : p.readings) peak = std::max(peak, u);
+        json readings = json::array();
+        for (const auto& [t, u] : p.readings) readings.push_back({{"day", days(t)}, {"excess_pore_pressure_kPa", u}});
+        piezometers.push_back({{"piezometer", p.piezometer},
+                               {"depth_m", p.depth_m},
+                               {"last_day", days(p.readings.back().first)},
+                               {"last_excess_pore_pressure_kPa", p.readings.back().second},
+                               {"peak_excess_pore_pressure_kPa", peak},
+                               {"readings", readings}});
+    }
     json out{{"schema", 1},
              {"title", r.scenario->title},
+             {"piezometers", piezometers},
              {"readings", r.readings_file},
              {"drain", r.drain},
              {"pattern", to_string(r.pattern)},
@@ -187,6 +206,32 @@ std::string asaoka_chart(const results::PlateAnalysis& a) {
     return render(c);
 }
 
+std::string pore_pressure_chart(const results::MonitorRecord& r) {
+    LineChart c;
+    c.title = "Excess pore pressure against time";
+    c.x_label = "time (days)";
+    c.y_label = "excess pore pressure (kPa)";
+    static const int observed_styles[] = {0, 2, 3, 4};  // style 1 is the design's line
+    for (std::size_t k = 0; k < r.piezometers.size(); ++k) {
+        const auto& p = r.piezometers[k];
+        Series s{p.piezometer + " at " + fixed(p.depth_m, 1) + " m", {}, {}, observed_styles[k % 4], true};
+        for (const auto& [t, u] : p.readings) {
+            s.x.push_back(days(t));
+            s.y.push_back(u);
+        }
+        c.series.push_back(s);
+    }
+    if (!r.design_mean_excess_kPa.empty()) {
+        Series d{"design (clay mean)", {}, {}, 1, false};
+        for (std::size_t i = 0; i < r.design_mean_excess_kPa.size(); ++i) {
+            d.x.push_back(days(r.pore_times_s[i]));
+            d.y.push_back(r.design_mean_excess_kPa[i]);
+        }
+        c.series.push_back(d);
+    }
+    return render(c);
+}
+
 std::vector<std::string> monitor_reference_keys(const results::MonitorRecord& r) {
     std::vector<std::string> keys{"asaoka1978", "magnan_deroy1980", "tan1991", "hansbo1981", "carrillo1942"};
     if (r.scenario->site.loading && r.scenario->site.loading->surcharge) keys.push_back("johnson1970");
@@ -230,6 +275,10 @@ std::string monitor_html(const results::MonitorRecord& r) {
             o << "</ul>\n";
         }
     }
+    if (!r.piezometers.empty())
+        o << "<h2>Piezometers</h2>\n<figure>" << pore_pressure_chart(r)
+          << "<figcaption>Observed excess pore pressure at each piezometer; the design line is the mean over the clay "
+             "(applied load less U × the final permanent load), not the value at a piezometer's depth.</figcaption></figure>\n";
     o << "<h2>Method and assumptions</h2>\n<ul>\n";
     for (const auto& a : r.assumptions) o << "<li>" << escape_xml(a) << "</li>\n";
     o << "</ul>\n<h2>References</h2>\n<ul>\n";

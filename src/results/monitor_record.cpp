@@ -146,4 +146,31 @@ MonitorRecord monitor_record(const scenario::Scenario& s, const std::string& dra
     return r;
 }
 
+void add_piezometers(MonitorRecord& record, std::vector<scenario::PiezometerRecord> piezometers) {
+    record.piezometers = std::move(piezometers);
+    const Site& site = record.scenario->site;
+    if (!site.loading || record.piezometers.empty()) return;
+    double until = site.criterion.deadline_s;
+    for (const auto& p : record.piezometers) until = std::max(until, p.readings.back().first);
+    until *= 1.2;
+    const auto design = make_cell_model(site, site.product(record.drain), record.pattern, record.spacing_m);
+    // After a surcharge comes off the closed form holds the settlement (no rebound): the curve stops there.
+    if (site.loading->surcharge) until = std::min(until, site.loading->surcharge->removal_s);
+    for (int i = 0; i <= chart_points; ++i) record.pore_times_s.push_back(until * i / chart_points);
+    const auto u = design->combined(record.pore_times_s);
+    const LoadHistory& h = *site.loading;
+    for (std::size_t i = 0; i < u.size(); ++i) {
+        const double t = record.pore_times_s[i];
+        double applied = h.permanent_at_kPa(t);
+        if (h.surcharge && t < h.surcharge->removal_s) {
+            const auto& sc = *h.surcharge;
+            const double share = sc.end_s > sc.start_s ? std::clamp((t - sc.start_s) / (sc.end_s - sc.start_s), 0.0, 1.0)
+                                                       : (t >= sc.start_s ? 1.0 : 0.0);
+            applied += share * sc.pressure_kPa;
+        }
+        // Linear theory: the mean effective stress gained is U × the final permanent load.
+        record.design_mean_excess_kPa.push_back(applied - u[i] * h.permanent_kPa());
+    }
+}
+
 }  // namespace wickgrid::results

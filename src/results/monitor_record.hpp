@@ -49,7 +49,15 @@ struct MonitorRecord {
     std::vector<PlateAnalysis> plates;
     std::vector<std::string> warnings;
     std::vector<std::string> assumptions;
+    // Piezometers, shown against the design's depth-mean excess pore pressure p(t) − U(t)·p_final
+    // (empty without a load history).
+    std::vector<scenario::PiezometerRecord> piezometers;
+    std::vector<double> pore_times_s;
+    std::vector<double> design_mean_excess_kPa;
 };
+
+// Adds the piezometer records and the design's depth-mean excess pore pressure over their span.
+void add_piezometers(MonitorRecord& record, std::vector<scenario::PiezometerRecord> piezometers);
 
 // Back-analyses every plate. Throws ScenarioError-free engine errors only for the design cell
 // itself (InputError, EvaluationError); a method that cannot analyse a plate leaves a note instead.

@@ -97,6 +97,59 @@ ReadingsFile parse_readings(const std::string& text, const std::string& file) {
     return out;
 }
 
+std::vector<PiezometerRecord> parse_piezometers(const std::string& text, const std::string& file) {
+    const CsvTable t = parse_csv(text, file);
+    const std::size_t cn = t.required_column("piezometer");
+    const std::size_t cd = t.required_column("day");
+    const std::size_t cz = t.required_column("depth_m");
+    const std::size_t cu = t.required_column("excess_pore_pressure_kPa");
+    if (t.rows.empty()) throw ScenarioError(file, t.header.front().mark, "", "has a header but no readings");
+    std::vector<PiezometerRecord> out;
+    std::map<std::string, std::size_t> index;
+    std::map<std::string, int> last_line;
+    for (const auto& row : t.rows) {
+        const std::string& name = row[cn].text;
+        if (name.empty()) throw ScenarioError(file, row[cn].mark, "piezometer", "a reading without a piezometer name");
+        const double day = csv_number(t, row[cd], "day", "a day of at least 0 from the start of loading");
+        if (day < 0.0)
+            throw ScenarioError(file, row[cd].mark, "day", "'" + row[cd].text + "' is before the start of loading (day 0)");
+        const double depth = csv_number(t, row[cz], "depth_m", "a depth in metres");
+        if (depth < 0.0 || depth > 200.0)
+            throw ScenarioError(file, row[cz].mark, "depth_m", "'" + row[cz].text + "' is not a depth of 0–200 m below the top of the clay");
+        const double u = csv_number(t, row[cu], "excess_pore_pressure_kPa", "an excess pore pressure in kPa");
+        if (u < -200.0 || u > 2000.0)
+            throw ScenarioError(file, row[cu].mark, "excess_pore_pressure_kPa",
+                                "'" + row[cu].text + "' is outside −200…2000 kPa: the pressure must be in kPa");
+        const int line = row.front().mark.line;
+        if (!index.count(name)) {
+            index[name] = out.size();
+            out.push_back({name, depth, {}});
+        }
+        PiezometerRecord& p = out[index[name]];
+        if (depth != p.depth_m)
+            throw ScenarioError(file, row[cz].mark, "depth_m",
+                                "piezometer " + name + " was at " + format_value(p.depth_m) + " m (line " +
+                                    std::to_string(last_line[name]) + "); one depth per piezometer");
+        const double time = units::days_to_seconds(day);
+        if (!p.readings.empty() && time == p.readings.back().first)
+            throw ScenarioError(file, row[cd].mark, "day",
+                                "a second reading of piezometer " + name + " on day " + row[cd].text + " (line " +
+                                    std::to_string(last_line[name]) + " has one)");
+        if (!p.readings.empty() && time < p.readings.back().first)
+            throw ScenarioError(file, row[cd].mark, "day",
+                                "day " + row[cd].text + " of piezometer " + name + " comes after day " +
+                                    format_value(units::seconds_to_days(p.readings.back().first)) + " (line " +
+                                    std::to_string(last_line[name]) + "); list each piezometer's readings in time order");
+        p.readings.emplace_back(time, u);
+        last_line[name] = line;
+    }
+    return out;
+}
+
+std::vector<PiezometerRecord> read_piezometer_file(const std::string& path) {
+    return parse_piezometers(read_input_file(path, "piezometer file"), path);
+}
+
 ReadingsFile read_readings_file(const std::string& path) {
     return parse_readings(read_input_file(path, "readings file"), path);
 }

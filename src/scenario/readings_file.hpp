@@ -29,4 +29,15 @@ struct ReadingsFile {
 ReadingsFile parse_readings(const std::string& text, const std::string& file);
 ReadingsFile read_readings_file(const std::string& path);
 
+// Piezometer readings (CSV): columns piezometer, day, depth_m, excess_pore_pressure_kPa.
+struct PiezometerRecord {
+    std::string piezometer;
+    double depth_m = 0.0;  // below the top of the clay; one depth per piezometer
+    std::vector<std::pair<double, double>> readings;  // (time s, excess pore pressure kPa), ascending
+};
+// Throws ScenarioError (located) as parse_readings does, and for a piezometer whose depth changes,
+// a depth outside 0–200 m or an excess pore pressure outside −200…2000 kPa (a value in Pa?).
+std::vector<PiezometerRecord> parse_piezometers(const std::string& text, const std::string& file);
+std::vector<PiezometerRecord> read_piezometer_file(const std::string& path);
+
 }  // namespace wickgrid::scenario
