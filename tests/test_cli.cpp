@@ -290,5 +290,27 @@ TEST(Cli, EveryResultOnTheTerminalEndsWithTheCautions) {
     }
 }
 
+// The sub-layer table adds up to the design row it belongs to (the same computation, by slices).
+TEST(Cli, SubLayerTableAddsUpToTheDesignRow) {
+    for (const char* file : {"configs/staged-surcharge.yaml", "configs/layered-staged-numerical.yaml"}) {
+        const auto j = json::parse(run("design " + source(file) + " --json").out);
+        ASSERT_FALSE(j["sublayers"].empty()) << file;
+        double final_mm = 0.0, deadline_mm = 0.0, thickness = 0.0;
+        for (const auto& r : j["sublayers"]) {
+            final_mm += r["final_settlement_mm"].get<double>();
+            deadline_mm += r["settlement_at_deadline_mm"].get<double>();
+            thickness += r["thickness_m"].get<double>();
+        }
+        const json* best = nullptr;
+        for (const auto& d : j["designs"])
+            if (d["rank"] == 1) best = &d;
+        ASSERT_NE(best, nullptr) << file;
+        EXPECT_NEAR(final_mm, (*best)["ultimate_settlement_mm"].get<double>(), 1e-6 * final_mm) << file;
+        EXPECT_NEAR(deadline_mm, (*best)["settlement_at_deadline_mm"].get<double>(), 1e-6 * final_mm) << file;
+        EXPECT_GT(thickness, 0.0);
+    }
+    EXPECT_TRUE(json::parse(run("design " + source("demo/scenario.yaml") + " --json").out)["sublayers"].empty());
+}
+
 }  // namespace
 }  // namespace wickgrid

@@ -92,6 +92,12 @@ json design_json(const results::DesignRecord& record) {
                 {"warnings", string_array(record.warnings)},
                 {"assumptions", string_array(record.assumptions)},
                 {"cautions", string_array(results::cautions())}};
+    json sublayers = json::array();
+    for (const auto& r : record.sublayers)
+        sublayers.push_back({{"layer", r.layer}, {"depth_m", r.depth_m}, {"thickness_m", r.thickness_m},
+                             {"sigma_v0_kPa", r.sigma_v0_kPa}, {"delta_sigma_kPa", r.delta_sigma_kPa},
+                             {"final_settlement_mm", r.final_m * 1000.0}, {"settlement_at_deadline_mm", r.at_deadline_m * 1000.0}});
+    out["sublayers"] = sublayers;
     add_title_block(out, s);
     return out;
 }
@@ -109,6 +115,19 @@ std::string title_block_markdown(const scenario::Scenario& s) {
     std::string out = "| | |\n|---|---|\n";
     for (const auto& f : results::title_block(s)) out += "| " + markdown_text(f.label) + " | " + markdown_text(f.value) + " |\n";
     return out;
+}
+
+std::vector<std::string> sublayer_header() {
+    return {"layer", "depth (m)", "thickness (m)", "σ'v0 (kPa)", "Δσ' (kPa)", "final settlement (mm)",
+            "settlement at the deadline (mm)"};
+}
+
+std::vector<std::vector<std::string>> sublayer_table_rows(const results::DesignRecord& record) {
+    std::vector<std::vector<std::string>> rows;
+    for (const auto& r : record.sublayers)
+        rows.push_back({std::to_string(r.layer), fixed(r.depth_m, 2), fixed(r.thickness_m, 2), fixed(r.sigma_v0_kPa, 1),
+                        fixed(r.delta_sigma_kPa, 1), fixed(r.final_m * 1000.0, 1), fixed(r.at_deadline_m * 1000.0, 1)});
+    return rows;
 }
 
 std::string design_csv(const results::DesignRecord& record) {
@@ -252,7 +271,22 @@ std::string design_markdown(const results::DesignRecord& record) {
     }
     out << "\n" << md(notes_under_table(record)) << " Ranked by "
         << (record.result.ranking == RankingBasis::cost_per_hectare ? "cost per hectare" : "drain metres per hectare")
-        << ".\n\n## Method and sources\n\n";
+        << ".\n\n";
+    if (!record.sublayers.empty()) {
+        out << "## Settlement by sub-layer\n\nFor the recommended design (the first row when none meets the criterion), "
+               "under the final permanent load; at the deadline with the design's average degree of settlement.\n\n|";
+        for (const auto& h : sublayer_header()) out << ' ' << md(h) << " |";
+        out << "\n|";
+        for (std::size_t i = 0; i < sublayer_header().size(); ++i) out << "---|";
+        out << "\n";
+        for (const auto& row : sublayer_table_rows(record)) {
+            out << "|";
+            for (const auto& cell : row) out << ' ' << md(cell) << " |";
+            out << "\n";
+        }
+        out << "\n";
+    }
+    out << "## Method and sources\n\n";
     for (const auto& line : record.method_notes) out << "- " << md(line) << "\n";
     out << "\n## References\n\n";
     for (const auto& key : results::reference_keys(record)) out << "- " << md(results::reference(key).text) << "\n";

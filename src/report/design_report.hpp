@@ -27,6 +27,10 @@ void add_title_block(nlohmann::json& out, const scenario::Scenario& s);
 // The title block as a Markdown table.
 std::string title_block_markdown(const scenario::Scenario& s);
 
+// The sub-layer table (header and rows, units in the headings) shared by the note and the report.
+std::vector<std::string> sublayer_header();
+std::vector<std::vector<std::string>> sublayer_table_rows(const results::DesignRecord& record);
+
 // The rows of the inputs table (quantity, value) shared by the Markdown note and the HTML report.
 std::vector<std::pair<std::string, std::string>> input_rows(const results::DesignRecord& record);
 

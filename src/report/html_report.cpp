@@ -257,6 +257,19 @@ ReportBundle build_report(const results::DesignRecord& record) {
     o << "<section><h2>Inputs</h2>\n" << inputs_table(record) << "</section>\n";
     o << "<section class=\"results-section\"><h2>Results for every drain and pattern</h2>\n" << results_table(record)
       << "</section>\n";
+    if (!record.sublayers.empty()) {
+        o << "<section><h2>Settlement by sub-layer</h2>\n<p>For the recommended design (the first row when none meets the "
+             "criterion), under the final permanent load; at the deadline with the design's average degree of "
+             "settlement.</p>\n<table class=\"sublayers\">\n<tr>";
+        for (const auto& h : sublayer_header()) o << "<th>" << escape_xml(h) << "</th>";
+        o << "</tr>\n";
+        for (const auto& row : sublayer_table_rows(record)) {
+            o << "<tr>";
+            for (const auto& cell : row) o << "<td>" << escape_xml(cell) << "</td>";
+            o << "</tr>\n";
+        }
+        o << "</table>\n</section>\n";
+    }
     o << "<section><h2>Charts</h2>\n";
     for (std::size_t i = 0; i < bundle.charts.size(); ++i)
         o << "<figure id=\"chart-" << i + 1 << "\">\n" << bundle.charts[i].svg << "<figcaption>Figure " << i + 1 << ". "

@@ -8,6 +8,7 @@
 #include "report/format.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/names.hpp"
+#include "wickgrid/settlement.hpp"
 #include "wickgrid/units.hpp"
 #include "wickgrid/version.hpp"
 
@@ -69,6 +70,28 @@ Curve curve_of(const Site& site, const DrainProductSpec& product, Pattern patter
     return {product.name, pattern, spacing_m, model->method(), degree_curve(*model, times_s)};
 }
 
+namespace {
+std::vector<SubLayerRow> sublayer_rows(const DesignRecord& record) {
+    const Site& site = record.site();
+    const DesignRow* row = record.result.best();
+    if (!row && !record.result.rows.empty()) row = &record.result.rows.front();
+    if (!row || !site.loading || !site.ground.profile || !row->ultimate_settlement_m || !row->settlement_at_deadline_m)
+        return {};
+    const SoilProfile& profile = *site.ground.profile;
+    const double load = site.loading->permanent_kPa();
+    const double share = *row->settlement_at_deadline_m / *row->ultimate_settlement_m;
+    const auto all = slices(profile);
+    std::vector<SubLayerRow> out;
+    std::size_t k = 0;
+    for (std::size_t l = 0; l < profile.layers.size(); ++l)
+        for (int i = 0; i < profile.slices_per_layer; ++i, ++k) {
+            const double final_m = slice_settlement_m(profile.layers[l], all[k], load);
+            out.push_back({l + 1, all[k].depth_m, all[k].thickness_m, all[k].sigma_v0_kPa, load, final_m, share * final_m});
+        }
+    return out;
+}
+}  // namespace
+
 DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& options) {
     DesignRecord record;
     record.scenario = &s;
@@ -87,6 +110,7 @@ DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& opt
     record.log_time = options.charts && options.log_time;
     record.assumptions = assumptions(site);
     record.method_notes = method_notes(site);
+    record.sublayers = sublayer_rows(record);
     return record;
 }
 

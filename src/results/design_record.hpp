@@ -36,12 +36,26 @@ struct Studies {
     std::optional<MonteCarloSpec> monte_carlo_spec;
 };
 
+// One slice of the settlement computation for the recommended design (the first row when none is
+// feasible): depth, initial effective stress, stress increase under the final permanent load, its
+// final settlement and its settlement at the deadline (the design's average degree of settlement).
+struct SubLayerRow {
+    std::size_t layer = 0;  // 1-based
+    double depth_m = 0.0;
+    double thickness_m = 0.0;
+    double sigma_v0_kPa = 0.0;
+    double delta_sigma_kPa = 0.0;
+    double final_m = 0.0;
+    double at_deadline_m = 0.0;
+};
+
 struct DesignRecord {
     const scenario::Scenario* scenario = nullptr;  // the inputs, echoed (title, file, drains as given)
     DesignResult result;
     std::vector<Curve> chart_curves;  // the recommended product (or the first) in every pattern
     std::vector<SpacingSeries> spacing_vs_time;
     Studies studies;
+    std::vector<SubLayerRow> sublayers;  // empty without clay layers and a load history
     std::vector<std::string> warnings;
     std::vector<std::string> assumptions;
     std::vector<std::string> method_notes;
