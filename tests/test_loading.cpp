@@ -131,3 +131,15 @@ TEST(SettlementHistory, SurchargeAndResidual) {
     EXPECT_NEAR(with.settlement_m(151 * day), std::max(with.settlement_m(150 * day), plain.settlement_m(151 * day)), 1e-15);
     EXPECT_THROW(SettlementHistory(linear, LoadHistory{}, u), InputError);
 }
+
+// The applied load the report charts: lifts pro rata over their ramps, the surcharge while it is on
+// (values by hand).
+TEST(LoadHistoryApplied, LiftsRampAndTheSurchargeComesOff) {
+    const double day = wickgrid::units::seconds_per_day;
+    wickgrid::LoadHistory h{{{0.0, 20 * day, 30.0}}, wickgrid::Surcharge{25 * day, 30 * day, 50 * day, 10.0}};
+    EXPECT_DOUBLE_EQ(h.applied_at_kPa(10 * day), 15.0);
+    EXPECT_DOUBLE_EQ(h.applied_at_kPa(27.5 * day), 35.0);
+    EXPECT_DOUBLE_EQ(h.applied_at_kPa(40 * day), 40.0);
+    EXPECT_DOUBLE_EQ(h.applied_at_kPa(60 * day), 30.0);
+    EXPECT_DOUBLE_EQ(h.applied_at_kPa(60 * day), h.permanent_at_kPa(60 * day));
+}

@@ -28,6 +28,7 @@ struct LoadHistory {
 
     double permanent_kPa() const;
     double permanent_at_kPa(double time_s) const;  // applied so far (ramps pro rata)
+    double applied_at_kPa(double time_s) const;    // the permanent load so far plus the surcharge while it is on
     double end_of_construction_s() const;          // when the last permanent stage is complete
 };
 

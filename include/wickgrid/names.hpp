@@ -53,6 +53,16 @@ inline constexpr std::array study_input_names{
     Named<StudyInput>{StudyInput::smear_permeability_ratio, "smear_permeability_ratio"},
     Named<StudyInput>{StudyInput::discharge_capacity, "discharge_capacity_m3_per_year"},
     Named<StudyInput>{StudyInput::discharge_capacity_factor, "discharge_capacity_factor"}};
+// What a chart or a printed table calls each study input (the scenario keys above stay the names).
+inline constexpr std::array study_input_labels{
+    Named<StudyInput>{StudyInput::ch, "ch, horizontal coefficient of consolidation (m²/year)"},
+    Named<StudyInput>{StudyInput::cv, "cv, vertical coefficient of consolidation (m²/year)"},
+    Named<StudyInput>{StudyInput::kh, "kh, horizontal permeability (m/s)"},
+    Named<StudyInput>{StudyInput::smear_diameter_ratio, "ds/dm, smear zone over mandrel diameter"},
+    Named<StudyInput>{StudyInput::smear_permeability_ratio, "kh/ks, undisturbed over smeared permeability"},
+    Named<StudyInput>{StudyInput::discharge_capacity, "qw, drain discharge capacity (m³/year)"},
+    Named<StudyInput>{StudyInput::discharge_capacity_factor, "factor on each product's qw"}};
+
 inline constexpr std::array distribution_names{Named<DistributionKind>{DistributionKind::normal, "normal"},
                                                Named<DistributionKind>{DistributionKind::lognormal, "lognormal"},
                                                Named<DistributionKind>{DistributionKind::uniform, "uniform"},
@@ -89,5 +99,8 @@ std::string_view to_string(RadialTheory theory);
 std::string_view to_string(CellMethod method);
 std::string_view to_string(CriterionKind kind);
 std::string_view to_string(RankingBasis basis);
+
+// A study input as charts and printed tables call it.
+constexpr std::string_view study_input_label(StudyInput input) { return name_of(study_input_labels, input); }
 
 }  // namespace wickgrid

@@ -25,6 +25,16 @@ double LoadHistory::permanent_at_kPa(double time_s) const {
     return q;
 }
 
+double LoadHistory::applied_at_kPa(double time_s) const {
+    double q = permanent_at_kPa(time_s);
+    if (surcharge && time_s >= surcharge->start_s && time_s < surcharge->removal_s) {
+        const auto& s = *surcharge;
+        q += s.end_s > s.start_s ? s.pressure_kPa * std::min(1.0, (time_s - s.start_s) / (s.end_s - s.start_s))
+                                 : s.pressure_kPa;
+    }
+    return q;
+}
+
 double LoadHistory::end_of_construction_s() const {
     double end = 0.0;
     for (const auto& s : stages) end = std::max(end, s.end_s);

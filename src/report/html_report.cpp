@@ -58,6 +58,23 @@ Chart degree_chart(const Site& site, const results::Curve& curve, bool log_time)
             render(c)};
 }
 
+// The load history on the same time axis as the degree and settlement charts below it.
+Chart load_chart(const Site& site, const results::Curve& curve, const std::vector<double>& load_kPa, bool log_time) {
+    LineChart c = time_chart(site, "Applied load", log_time ? "time since start of loading (days, logarithmic)"
+                                                            : "time since start of loading (days)",
+                             "applied load (kPa)");
+    c.log_x = log_time;
+    c.y_min = 0.0;
+    Series load{"fill and surcharge", {}, {}, 3};
+    for (std::size_t i = 0; i < load_kPa.size(); ++i) {
+        load.x.push_back(days(curve.points[i].time_s));
+        load.y.push_back(load_kPa[i]);
+    }
+    c.series = {load};
+    return {"load-time.svg", "Applied load against time (the lifts and the surcharge of the scenario), on the time axis of "
+                             "the charts below.", render(c)};
+}
+
 Chart settlement_chart(const Site& site, const std::vector<results::Curve>& curves, bool log_time) {
     LineChart c = time_chart(site, "Settlement, " + curves.front().drain, "time since start of loading (days)",
                              "settlement (mm)");
@@ -105,7 +122,7 @@ std::vector<Chart> study_charts(const results::Studies& studies, const std::vect
             for (const auto& t : *studies.tornado) {
                 if (t.drain != row.drain || t.pattern != row.pattern) continue;
                 const auto end = [](const SpacingLimit& l) { return l.feasible ? std::optional<double>(l.spacing_m) : std::nullopt; };
-                c.bars.push_back({std::string(to_string(t.input)), end(t.at_low), end(t.at_high),
+                c.bars.push_back({std::string(study_input_label(t.input)), end(t.at_low), end(t.at_high),
                                   tick_text(study_value_from_si(t.input, t.low_si)),
                                   tick_text(study_value_from_si(t.input, t.high_si))});
             }
@@ -118,8 +135,8 @@ std::vector<Chart> study_charts(const results::Studies& studies, const std::vect
         for (const auto& row : rows) {
             ShadedGrid g;
             g.title = "Required spacing (m): " + row.drain + ", " + std::string(to_string(row.pattern));
-            g.x_label = std::string(to_string(studies.grid_x.input));
-            g.y_label = std::string(to_string(studies.grid_y.input));
+            g.x_label = std::string(study_input_label(studies.grid_x.input));
+            g.y_label = std::string(study_input_label(studies.grid_y.input));
             g.value_label = "required spacing (m)";
             for (const double x : studies.grid_x.values()) g.xs.push_back(study_value_from_si(studies.grid_x.input, x));
             for (const double y : studies.grid_y.values()) g.ys.push_back(study_value_from_si(studies.grid_y.input, y));
@@ -241,6 +258,8 @@ ReportBundle build_report(const results::DesignRecord& record) {
     const Site& site = record.site();
     const auto& s = *record.scenario;
     ReportBundle bundle;
+    if (!record.load_kPa.empty())
+        bundle.charts.push_back(load_chart(site, record.chart_curves.front(), record.load_kPa, record.log_time));
     for (const auto& curve : record.chart_curves) bundle.charts.push_back(degree_chart(site, curve, record.log_time));
     if (!record.spacing_vs_time.empty())
         bundle.charts.push_back(design_chart(site, record.spacing_vs_time, record.chart_curves.front().drain));

@@ -108,6 +108,8 @@ DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& opt
             record.spacing_vs_time.push_back(spacing_series(site, *row));
         }
     record.log_time = options.charts && options.log_time;
+    if (site.loading && !record.chart_curves.empty())
+        for (const auto& p : record.chart_curves.front().points) record.load_kPa.push_back(site.loading->applied_at_kPa(p.time_s));
     record.assumptions = assumptions(site);
     record.method_notes = method_notes(site);
     record.sublayers = sublayer_rows(record);

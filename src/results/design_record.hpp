@@ -56,6 +56,8 @@ struct DesignRecord {
     std::vector<SpacingSeries> spacing_vs_time;
     Studies studies;
     std::vector<SubLayerRow> sublayers;  // empty without clay layers and a load history
+    // The applied load (kPa) at the chart times (empty without a load history or charts).
+    std::vector<double> load_kPa;
     std::vector<std::string> warnings;
     std::vector<std::string> assumptions;
     std::vector<std::string> method_notes;

@@ -160,16 +160,8 @@ void add_piezometers(MonitorRecord& record, std::vector<scenario::PiezometerReco
     const auto u = design->combined(record.pore_times_s);
     const LoadHistory& h = *site.loading;
     for (std::size_t i = 0; i < u.size(); ++i) {
-        const double t = record.pore_times_s[i];
-        double applied = h.permanent_at_kPa(t);
-        if (h.surcharge && t < h.surcharge->removal_s) {
-            const auto& sc = *h.surcharge;
-            const double share = sc.end_s > sc.start_s ? std::clamp((t - sc.start_s) / (sc.end_s - sc.start_s), 0.0, 1.0)
-                                                       : (t >= sc.start_s ? 1.0 : 0.0);
-            applied += share * sc.pressure_kPa;
-        }
         // Linear theory: the mean effective stress gained is U × the final permanent load.
-        record.design_mean_excess_kPa.push_back(applied - u[i] * h.permanent_kPa());
+        record.design_mean_excess_kPa.push_back(h.applied_at_kPa(record.pore_times_s[i]) - u[i] * h.permanent_kPa());
     }
 }
 

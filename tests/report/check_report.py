@@ -94,8 +94,16 @@ def main():
         external = [u for u in re.findall(r"(?:https?|ftp)://[^\s\"'<>)]+", text) if u != "http://www.w3.org/2000/svg"]
         check(not external, f"{scenario}: external references {external[:3]}")
         check(not re.search(r"\s(src|href)=", text), f"{scenario}: src/href attribute")
-        for word in ("Cautions", "Method and sources", "Hansbo (1981)", "site investigation", "RECOMMENDED"):
+        for word in ("Cautions", "Method and sources", "Hansbo (1981)", "site investigation", "RECOMMENDED", "References"):
             check(word in text, f"{scenario}: '{word}' missing")
+        # Study charts speak in words and units, not scenario keys.
+        for f in svgs:
+            if f.startswith(("tornado", "grid")):
+                chart = open(os.path.join(out, f), encoding="utf-8").read()
+                check("smear_permeability_ratio" not in chart and "ch_m2_per_year" not in chart, f"{f}: a scenario key as a label")
+                check("kh/ks, undisturbed over smeared permeability" in chart, f"{f}: no human label for kh/ks")
+        if "staged" in scenario:
+            check("load-time.svg" in svgs, f"{scenario}: no load–time chart")
         # Numbers equal those of design --json.
         doc = json.loads(wickgrid("design", os.path.join(SOURCE, scenario), "--json").stdout)
         rows = {(d["drain"], d["pattern"]): d for d in doc["designs"]}
