@@ -5,6 +5,7 @@
 #include <sstream>
 
 #include "report/columns.hpp"
+#include "wickgrid/geometry.hpp"
 #include "wickgrid/names.hpp"
 #include "wickgrid/units.hpp"
 #include "wickgrid/version.hpp"
@@ -211,13 +212,25 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
     for (std::size_t i = 0; i < site.products.size(); ++i) {
         const auto& p = site.products[i];
         const auto& d = s.drains[i];
-        rows.emplace_back("drain " + p.name, "dw = " + fixed(p.equivalent_diameter_m * 1000.0, 1) + " mm (" +
+        const std::string size = d.width_m && d.thickness_m ? fixed(*d.width_m * 1000.0, 0) + " × " +
+                                                                  fixed(*d.thickness_m * 1000.0, 1) + " mm, "
+                                                            : std::string();
+        rows.emplace_back("drain " + p.name, size + "dw = " + fixed(p.equivalent_diameter_m * 1000.0, 1) + " mm (" +
                                                  (d.method ? std::string(to_string(*d.method)) : std::string("given")) +
                                                  "), qw = " +
                                                  fixed(units::per_second_to_per_year(p.discharge_capacity_m3_per_s), 1) +
                                                  " m³/year" +
                                                  (p.cost_per_m ? ", cost " + fixed(*p.cost_per_m, 2) + " per m" : std::string()));
     }
+    rows.emplace_back("influence diameter De", fixed(influence_diameter_factor(Pattern::triangular), 3) +
+                                                   " × spacing (triangular), " +
+                                                   fixed(influence_diameter_factor(Pattern::square), 3) +
+                                                   " × spacing (square): equal area, Barron (1948)");
+    rows.emplace_back("units of time and water", "1 year = " + fixed(units::days_per_year, 2) + " days, 1 day = " +
+                                                     fixed(units::seconds_per_day, 0) + " s; γw = " +
+                                                     fixed(units::gamma_w_kN_per_m3, 2) + " kN/m³");
+    if (s.fill_unit_weight_kN_per_m3)
+        rows.emplace_back("fill unit weight", fixed(*s.fill_unit_weight_kN_per_m3, 1) + " kN/m³");
     if (site.loading) {
         for (std::size_t i = 0; i < site.loading->stages.size(); ++i) {
             const auto& st = site.loading->stages[i];
