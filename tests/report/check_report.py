@@ -74,7 +74,8 @@ def not_blank(png):
 
 def main():
     work = tempfile.mkdtemp(prefix="wickgrid-report-")
-    for scenario in ("demo/scenario.yaml", "configs/staged-surcharge.yaml"):
+    bundled = ["demo/scenario.yaml"] + sorted("configs/" + f for f in os.listdir(os.path.join(SOURCE, "configs")) if f.endswith(".yaml"))
+    for scenario in bundled:
         out = os.path.join(work, os.path.basename(scenario).replace(".yaml", ""))
         r = wickgrid("report", os.path.join(SOURCE, scenario), "--out", out)
         check(r.returncode == 0, f"report {scenario}: exit {r.returncode}: {r.stderr}")
@@ -152,6 +153,29 @@ def main():
             else:
                 check(False, "poppler-utils (pdftotext, pdfinfo) is not installed (scripts/install-deps.sh --test)")
         check(requests == [], f"the report requested {requests}")
+        # Every bundled scenario's report prints whole: every results heading on paper, no page over A4.
+        for scenario in bundled[1:]:
+            tag = os.path.basename(scenario).replace(".yaml", "")
+            page = os.path.join(work, tag, "report.html")
+            pdf = os.path.join(work, f"{tag}.pdf")
+            profile = tempfile.mkdtemp(prefix="wickgrid-chromium-")
+            printed = subprocess.run([chromium, *chromium_flags(profile), f"--print-to-pdf={pdf}", "file://" + page],
+                                     capture_output=True, text=True, timeout=120)
+            shutil.rmtree(profile, ignore_errors=True)
+            check(printed.returncode == 0 and os.path.exists(pdf), f"{scenario}: PDF failed")
+            if os.path.exists(pdf) and shutil.which("pdftotext"):
+                text = subprocess.run(["pdftotext", "-layout", pdf, "-"], capture_output=True, text=True).stdout
+                # Each heading of the results table (its first word: a heading may wrap on paper).
+                root = ET.fromstring(open(page, encoding="utf-8").read())
+                table = next(t for t in root.iter("table") if t.get("class") == "results")
+                headings = ["".join(th.itertext()).split()[0] for th in table.iter("th")]
+                check(len(headings) >= 10, f"{scenario}: only {len(headings)} result headings")
+                for heading in headings:
+                    check(heading in text, f"{scenario}: printed column heading '{heading}' missing")
+                info = subprocess.run(["pdfinfo", "-f", "1", "-l", "999", pdf], capture_output=True, text=True).stdout
+                for w, h in re.findall(r"Page\s+\d+ size:\s+([\d.]+) x ([\d.]+) pts", info):
+                    check(max(float(w), float(h)) <= 842.5 and min(float(w), float(h)) <= 595.5,
+                          f"{scenario}: a printed page is larger than A4: {w} x {h} pts")
         # The layout page: the plan view renders, prints on A4 and requests nothing.
         layout_out = os.path.join(work, "layout")
         r = wickgrid("layout", os.path.join(SOURCE, "demo/scenario.yaml"), "--area", os.path.join(SOURCE, "demo/zone-c-area.geojson"),
