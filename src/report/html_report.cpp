@@ -1,4 +1,5 @@
 #include "html_report.hpp"
+#include "unit_cell_sketch.hpp"
 
 #include "results/bibliography.hpp"
 
@@ -258,6 +259,12 @@ ReportBundle build_report(const results::DesignRecord& record) {
     const Site& site = record.site();
     const auto& s = *record.scenario;
     ReportBundle bundle;
+    if (const std::string sketch = unit_cell_sketch(record); !sketch.empty())
+        bundle.charts.push_back({"unit-cell.svg",
+                                 "The unit cell of the recommended design, drawn from the inputs: the pattern in plan with "
+                                 "the influence circle; in section the clay, the drain, its smear zone (widened to be seen) "
+                                 "and outlets.",
+                                 sketch});
     if (!record.load_kPa.empty())
         bundle.charts.push_back(load_chart(site, record.chart_curves.front(), record.load_kPa, record.log_time));
     for (const auto& curve : record.chart_curves) bundle.charts.push_back(degree_chart(site, curve, record.log_time));

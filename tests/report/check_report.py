@@ -122,6 +122,12 @@ def main():
                 check(abs(got - expected) <= 1e-9 * max(1.0, abs(expected)), f"{scenario} {key} {field}: {got} vs {expected}")
                 compared += 1
         check(compared >= 20, f"{scenario}: only {compared} numbers compared")
+        # The unit-cell sketch shows the recommended design's spacing and influence diameter.
+        best = [d for d in doc["designs"] if d["rank"] == 1]
+        if best:
+            sketch = open(os.path.join(out, "unit-cell.svg"), encoding="utf-8").read()
+            check(f"s = {best[0]['spacing_m']:.2f} m" in sketch, f"{scenario}: the sketch's spacing is not the design's")
+            check(f"De = {best[0]['influence_diameter_m']:.3f} m" in sketch, f"{scenario}: the sketch's De is not the design's")
 
     chromium = shutil.which("chromium")
     check(chromium is not None, "chromium is not installed (scripts/install-deps.sh --test installs it)")
