@@ -1,5 +1,5 @@
-// libFuzzer target: an area file (GeoJSON or CSV) and a base-depth file through their readers, and
-// a valid area through the layout. Any exception other than the project's named errors is a
+// libFuzzer target: an area file (GeoJSON or CSV), a base-depth file, plate and piezometer readings
+// through their readers, and a valid area through the layout. Any exception other than the project's named errors is a
 // finding, as is any sanitizer report. Harness limit: the spacing is chosen for about 2,000 drains
 // so that each input runs quickly under the sanitizers.
 #include <cmath>
@@ -8,6 +8,7 @@
 #include <string>
 
 #include "scenario/area_files.hpp"
+#include "scenario/readings_file.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/layout.hpp"
 
@@ -17,6 +18,16 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     try {
         const auto base = scenario::parse_base_depths(text, "fuzz.csv");
         if (base.empty()) __builtin_trap();
+    } catch (const scenario::ScenarioError&) {
+    }
+    try {
+        const auto r = scenario::parse_readings(text, "fuzz.csv");
+        if (r.plates.empty()) __builtin_trap();
+    } catch (const scenario::ScenarioError&) {
+    }
+    try {
+        const auto p = scenario::parse_piezometers(text, "fuzz.csv");
+        if (p.empty()) __builtin_trap();
     } catch (const scenario::ScenarioError&) {
     }
     try {

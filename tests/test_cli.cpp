@@ -282,7 +282,9 @@ TEST(Cli, EveryResultOnTheTerminalEndsWithTheCautions) {
     for (const std::string& args :
          {"design " + demo, "curve " + demo + cell, "sweep " + demo + " --samples 100",
           "surcharge " + source("configs/staged-surcharge.yaml") + cell, "verify " + demo,
-          "layout " + demo + " --area " + source("demo/zone-c-area.geojson") + cell}) {
+          "layout " + demo + " --area " + source("demo/zone-c-area.geojson") + cell,
+          "monitor " + source("configs/staged-surcharge.yaml") + " --readings " +
+              source("configs/staged-surcharge-readings.csv") + cell}) {
         const CommandRun r = run(args);
         EXPECT_LE(r.exit_code, 1) << args << "\n" << r.err;
         ASSERT_GE(r.out.size(), block.size()) << args;
