@@ -112,6 +112,19 @@ TEST(MonteCarlo, MatchesQuadratureOfTheSameProbability) {
     EXPECT_GE(exact, row.probability_low);
     EXPECT_LE(exact, row.probability_high);
     EXPECT_LT(row.probability_high - row.probability_low, 0.02);
+    // The histogram holds every sample, and the bins wholly above the design spacing hold no more
+    // than the probability, those from its bin up no less.
+    std::size_t counted = row.infeasible_samples, above = 0, from_bin = 0;
+    for (std::size_t b = 0; b < row.histogram_counts.size(); ++b) {
+        counted += row.histogram_counts[b];
+        const double lo = row.histogram_low_m + static_cast<double>(b) * row.histogram_bin_m;
+        if (lo >= *spec.spacing_m) above += row.histogram_counts[b];
+        if (lo + row.histogram_bin_m >= *spec.spacing_m) from_bin += row.histogram_counts[b];
+    }
+    EXPECT_EQ(counted, spec.samples);
+    EXPECT_EQ(row.histogram_counts.size(), monte_carlo_histogram_bins);
+    EXPECT_LE(static_cast<double>(above) / spec.samples, row.probability);
+    EXPECT_GE(static_cast<double>(from_bin) / spec.samples, row.probability);
 }
 
 TEST(MonteCarlo, ReproducibleAndIndependentOfThreads) {

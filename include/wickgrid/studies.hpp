@@ -140,7 +140,15 @@ struct MonteCarloRow {
     double feasible_fraction = 0.0;               // samples that meet the target at the minimum spacing
     double median_spacing_m = 0.0;
     std::size_t unevaluated = 0;  // samples the site's model refused (counted as not meeting the criterion)
+    // Histogram of the samples' limiting spacings: equal bins from the smallest to the largest
+    // feasible limit; samples with no feasible spacing are counted apart.
+    double histogram_low_m = 0.0;
+    double histogram_bin_m = 0.0;
+    std::vector<std::size_t> histogram_counts;
+    std::size_t infeasible_samples = 0;
 };
+
+inline constexpr std::size_t monte_carlo_histogram_bins = 24;
 
 struct MonteCarloResult {
     std::size_t samples = 0;

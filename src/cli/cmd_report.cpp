@@ -19,7 +19,7 @@ Runner add_report(CLI::App& app) {
     cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
     cmd->add_option("--out", o->out_dir, "Folder for report.html and the chart SVG files")->required();
     cmd->add_option("--time-axis", o->time_axis, "Degree–time charts: linear or log")->check(CLI::IsMember({"linear", "log"}));
-    cmd->footer("Studies in the scenario ('studies:' one-at-a-time and grid) are charted too. Exit codes as for design.");
+    cmd->footer("Studies in the scenario ('studies:' one-at-a-time and grid, 'uncertain:' Monte Carlo) are charted too. Exit codes as for design.");
     return [o] {
         const auto s = load_scenario_warned(o->file);
         results::DesignRecord record = results::design_record(s, {true, o->time_axis == "log"});
@@ -27,6 +27,10 @@ Runner add_report(CLI::App& app) {
         record.studies.grid_y = s.studies.grid_y;
         if (!s.studies.tornado.empty()) record.studies.tornado = tornado_study(s.site, record.result, s.studies.tornado);
         if (s.studies.grid_given) record.studies.grid = grid_study(s.site, s.studies.grid_x, s.studies.grid_y);
+        if (s.studies.monte_carlo) {  // the scenario's own samples and seed, so the report repeats sweep's figures
+            record.studies.monte_carlo = monte_carlo(s.site, record.result, *s.studies.monte_carlo);
+            record.studies.monte_carlo_spec = *s.studies.monte_carlo;
+        }
         const auto bundle = report::build_report(record);
         std::vector<std::pair<std::string, std::string>> files{{"report.html", bundle.html}};
         for (const auto& chart : bundle.charts) files.emplace_back(chart.file, chart.svg);

@@ -49,6 +49,23 @@ void apply(CellSpec& cell, const CellSpec& product, const Site& base, StudyInput
 }
 }  // namespace
 
+namespace {
+// Counts the sorted limits into equal bins over the feasible ones (limit > 0).
+void histogram(const std::vector<double>& sorted, MonteCarloRow& row) {
+    const auto first = std::upper_bound(sorted.begin(), sorted.end(), 0.0);
+    row.infeasible_samples = static_cast<std::size_t>(first - sorted.begin());
+    if (first == sorted.end()) return;
+    row.histogram_low_m = *first;
+    const double span = sorted.back() - *first;
+    row.histogram_bin_m = span > 0.0 ? span / static_cast<double>(monte_carlo_histogram_bins) : 0.0;
+    row.histogram_counts.assign(span > 0.0 ? monte_carlo_histogram_bins : 1, 0);
+    for (auto it = first; it != sorted.end(); ++it) {
+        const auto bin = span > 0.0 ? static_cast<std::size_t>((*it - row.histogram_low_m) / row.histogram_bin_m) : 0;
+        ++row.histogram_counts[std::min(bin, row.histogram_counts.size() - 1)];
+    }
+}
+}  // namespace
+
 MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_result,
                              const MonteCarloSpec& spec, const Progress& progress) {
     if (spec.samples < 1) throw InputError("Monte Carlo samples", 0.0, "at least 1");
@@ -218,6 +235,7 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
             row.reliability_at_maximum = quantile >= bounds.max_m;
         }
         row.median_spacing_m = s[n / 2];
+        histogram(s, row);
         result.rows.push_back(row);
     }
     return result;

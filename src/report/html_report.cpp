@@ -20,6 +20,13 @@ namespace {
 double days(double s) { return units::seconds_to_days(s); }
 
 // A line chart against time with the deadline marked.
+// A drain name as part of a file name: letters, digits, '-' and '_' kept, anything else '_'.
+std::string safe_file_part(const std::string& name) {
+    std::string out;
+    for (const char c : name) out += std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' ? c : '_';
+    return out;
+}
+
 LineChart time_chart(const Site& site, std::string title, std::string x_label, std::string y_label) {
     LineChart c;
     c.title = std::move(title);
@@ -146,6 +153,38 @@ std::vector<Chart> study_charts(const results::Studies& studies, const std::vect
                     g.values.push_back(cell.limit.feasible ? std::optional<double>(cell.limit.spacing_m) : std::nullopt);
             charts.push_back({"grid-" + std::string(to_string(row.pattern)) + ".svg",
                               "Required spacing over two inputs at once.", render(g)});
+        }
+    if (studies.monte_carlo)
+        for (const auto& m : studies.monte_carlo->rows) {
+            if (m.histogram_counts.empty()) continue;
+            LineChart c;
+            c.title = "Monte Carlo: limiting spacing, " + m.drain + ", " + std::string(to_string(m.pattern));
+            c.x_label = "limiting spacing of a sample (m)";
+            c.y_label = "samples";
+            c.y_min = 0.0;
+            Series bars{"samples per bin", {}, {}, 0};
+            double x = m.histogram_low_m;
+            bars.x.push_back(x);
+            bars.y.push_back(0.0);
+            for (const std::size_t count : m.histogram_counts) {  // drawn as steps: the outline of the bars
+                bars.x.insert(bars.x.end(), {x, x + m.histogram_bin_m});
+                bars.y.insert(bars.y.end(), 2, static_cast<double>(count));
+                x += m.histogram_bin_m;
+            }
+            bars.x.push_back(x);
+            bars.y.push_back(0.0);
+            c.series.push_back(bars);
+            if (m.reliability_spacing_m) {
+                c.marker_x = *m.reliability_spacing_m;
+                c.marker_label = "reliability spacing " + fixed(*m.reliability_spacing_m, 2) + " m";
+            }
+            charts.push_back({"monte-carlo-" + std::string(to_string(m.pattern)) + "-" + safe_file_part(m.drain) + ".svg",
+                              "Limiting spacing of each Monte Carlo sample (" + std::to_string(studies.monte_carlo->samples) +
+                                  " samples" +
+                                  (m.infeasible_samples ? ", " + std::to_string(m.infeasible_samples) + " with no feasible spacing"
+                                                        : std::string()) +
+                                  "), with the spacing reached at the stated reliability.",
+                              render(c)});
         }
     return charts;
 }
@@ -283,6 +322,23 @@ ReportBundle build_report(const results::DesignRecord& record) {
     o << "<section><h2>Inputs</h2>\n" << inputs_table(record) << "</section>\n";
     o << "<section class=\"results-section\"><h2>Results for every drain and pattern</h2>\n" << results_table(record)
       << "</section>\n";
+    if (const auto& mc = record.studies.monte_carlo) {
+        const auto& spec = *record.studies.monte_carlo_spec;
+        o << "<section><h2>Reliability (Monte Carlo)</h2>\n<p>" << mc->samples << " samples, seed " << mc->seed
+          << "; the probability that the criterion is met at each design spacing with its "
+          << fixed(100.0 * spec.confidence, 0) << " % Clopper–Pearson interval, and the spacing met with "
+          << fixed(100.0 * spec.reliability, 0) << " % reliability.</p>\n<table class=\"reliability\">\n<tr><th class=\"text\">drain</th>"
+             "<th class=\"text\">pattern</th><th>spacing (m)</th><th>P (%)</th><th>interval (%)</th><th>spacing at "
+          << fixed(100.0 * spec.reliability, 0)
+          << " % (m)</th><th>median limit (m)</th><th>samples not evaluated</th></tr>\n";
+        for (const auto& m : mc->rows)
+            o << "<tr><td class=\"text\">" << escape_xml(m.drain) << "</td><td class=\"text\">" << to_string(m.pattern)
+              << "</td><td>" << fixed(m.spacing_m, 2) << "</td><td>" << fixed(100.0 * m.probability, 1) << "</td><td>"
+              << fixed(100.0 * m.probability_low, 1) << "–" << fixed(100.0 * m.probability_high, 1) << "</td><td>"
+              << (m.reliability_spacing_m ? fixed(*m.reliability_spacing_m, 3) : "none") << "</td><td>"
+              << fixed(m.median_spacing_m, 3) << "</td><td>" << m.unevaluated << "</td></tr>\n";
+        o << "</table>\n</section>\n";
+    }
     if (!record.sublayers.empty()) {
         o << "<section><h2>Settlement by sub-layer</h2>\n<p>For the recommended design (the first row when none meets the "
              "criterion), under the final permanent load; at the deadline with the design's average degree of "

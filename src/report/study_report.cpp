@@ -82,7 +82,11 @@ nlohmann::json sweep_json(const results::DesignRecord& record) {
                             {"reliability_at_max_spacing", m.reliability_at_maximum},
                             {"median_spacing_limit_m", m.median_spacing_m},
                             {"feasible_fraction", m.feasible_fraction},
-                            {"unevaluated_samples", m.unevaluated}});
+                            {"unevaluated_samples", m.unevaluated},
+                            {"histogram", {{"low_m", m.histogram_low_m},
+                                           {"bin_m", m.histogram_bin_m},
+                                           {"counts", m.histogram_counts},
+                                           {"infeasible_samples", m.infeasible_samples}}}});
         const auto& spec = *r.monte_carlo_spec;
         doc["monte_carlo"] = {{"samples", r.monte_carlo->samples}, {"seed", r.monte_carlo->seed},
                               {"reliability", spec.reliability}, {"confidence", spec.confidence},

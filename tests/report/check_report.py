@@ -122,6 +122,23 @@ def main():
                 check(abs(got - expected) <= 1e-9 * max(1.0, abs(expected)), f"{scenario} {key} {field}: {got} vs {expected}")
                 compared += 1
         check(compared >= 20, f"{scenario}: only {compared} numbers compared")
+        # The reliability table repeats sweep's Monte Carlo (same samples and seed), with a histogram per design.
+        reliability = [t for t in root.iter("table") if t.get("class") == "reliability"]
+        if "uncertain:" in open(os.path.join(SOURCE, scenario), encoding="utf-8").read():
+            check(len(reliability) == 1, f"{scenario}: no reliability table")
+            sweep = json.loads(wickgrid("sweep", os.path.join(SOURCE, scenario), "--only", "monte_carlo", "--json").stdout)
+            expected = {(m["drain"], m["pattern"]): m for m in sweep["monte_carlo"]["rows"]}
+            shown = 0
+            for tr in reliability[0].iter("tr") if reliability else []:
+                cells = ["".join(td.itertext()) for td in tr.iter("td")]
+                if not cells:
+                    continue
+                m = expected[(cells[0], cells[1])]
+                check(abs(float(cells[3]) - 100 * m["probability"]) <= 0.051, f"{scenario}: P {cells[3]} vs sweep")
+                check(abs(float(cells[5]) - m["reliability_spacing_m"]) <= 0.0006, f"{scenario}: reliability spacing vs sweep")
+                shown += 1
+            check(shown == len(expected), f"{scenario}: {shown} reliability rows for {len(expected)} designs")
+            check(sum(1 for f in svgs if f.startswith("monte-carlo-")) == len(expected), f"{scenario}: histograms missing")
         # The unit-cell sketch shows the recommended design's spacing and influence diameter.
         best = [d for d in doc["designs"] if d["rank"] == 1]
         if best:
