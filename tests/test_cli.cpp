@@ -292,6 +292,41 @@ TEST(Cli, EveryResultOnTheTerminalEndsWithTheCautions) {
     }
 }
 
+// Several scenarios in one run: one folder each and a summary; JSON as one array; standard input.
+TEST(Cli, BatchOfThreeScenariosGivesThreeFoldersAndASummary) {
+    const fs::path out = scratch();
+    const std::string files = source("demo/scenario.yaml") + " " + source("configs/staged-surcharge.yaml") + " " +
+                              source("configs/one-way-drainage.yaml");
+    const CommandRun r = run("design " + files + " --out " + out.string());
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    for (const char* folder : {"scenario", "staged-surcharge", "one-way-drainage"})
+        EXPECT_TRUE(fs::exists(out / folder / "design.json")) << folder;
+    const auto summary = json::parse(slurp(out / "summary.json"));
+    ASSERT_EQ(summary.size(), 3u);
+    // Each summary row is its scenario's own recommended design.
+    const auto single = json::parse(run("design " + source("configs/staged-surcharge.yaml") + " --json").out);
+    for (const auto& d : single["designs"])
+        if (d["rank"] == 1) {
+            EXPECT_EQ(summary[1]["drain"], d["drain"]);
+            EXPECT_EQ(summary[1]["spacing_m"], d["spacing_m"]);
+        }
+    const std::string csv = slurp(out / "summary.csv");
+    EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 4);
+    // JSON: one array; a file that fails is reported and the others still run, with the worst exit code.
+    const CommandRun batch = run("design " + source("demo/scenario.yaml") + " /no/such/file.yaml --json");
+    EXPECT_EQ(batch.exit_code, 2);
+    EXPECT_NE(batch.err.find("/no/such/file.yaml"), std::string::npos);
+    const auto array = json::parse(batch.out);
+    ASSERT_TRUE(array.is_array());
+    EXPECT_EQ(array.size(), 1u);
+    EXPECT_EQ(run("design " + files + " --csv").exit_code, 2);  // one table only
+    // Standard input.
+    const CommandRun piped = run("check - < " + source("demo/scenario.yaml"));
+    EXPECT_EQ(piped.exit_code, 0) << piped.err;
+    EXPECT_NE(piped.out.find("valid scenario"), std::string::npos);
+    EXPECT_EQ(run("check - - < " + source("demo/scenario.yaml")).exit_code, 2);
+}
+
 // The sub-layer table adds up to the design row it belongs to (the same computation, by slices).
 TEST(Cli, SubLayerTableAddsUpToTheDesignRow) {
     for (const char* file : {"configs/staged-surcharge.yaml", "configs/layered-staged-numerical.yaml"}) {

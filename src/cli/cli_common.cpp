@@ -1,11 +1,14 @@
 // Helpers shared by the commands: options, cell models named on the command line, output files.
 #include <spdlog/spdlog.h>
 
+#include <algorithm>
 #include <cerrno>
 #include <cmath>
 #include <cstdio>
 #include <cstring>
 #include <filesystem>
+#include <iostream>
+#include <sstream>
 
 #include "commands.hpp"
 #include "report/atomic_file.hpp"
@@ -87,9 +90,106 @@ void print_stdout(const std::string& text) {
 }
 
 scenario::Scenario load_scenario_warned(const std::string& file) {
-    scenario::Scenario s = scenario::load_scenario(file);
+    static bool stdin_read = false;  // standard input holds one scenario; a second "-" has nothing left
+    scenario::Scenario s = [&] {
+        if (file != "-") return scenario::load_scenario(file);
+        if (stdin_read) throw UsageError("FILE", "'-' (standard input) may be given once");
+        stdin_read = true;
+        std::ostringstream text;
+        text << std::cin.rdbuf();
+        return scenario::parse_scenario(text.str(), "<stdin>");
+    }();
     for (const auto& w : s.input_warnings) spdlog::warn("{}", w);
     return s;
+}
+
+std::string terminal_safe(const std::string& text) {
+    std::string out;
+    for (const char c : text) {
+        const auto u = static_cast<unsigned char>(c);
+        out += (u < 0x20 && c != '\n') || u == 0x7F ? '?' : c;
+    }
+    return out;
+}
+
+void report_error(const std::string& text) { std::fprintf(stderr, "wickgrid: error: %s\n", terminal_safe(text).c_str()); }
+
+int report_current_exception() {
+    try {
+        throw;
+    } catch (const scenario::ScenarioError& e) {
+        // A key the file does not give is reported against the file, without an invented line.
+        report_error(e.mark().line > 0 ? e.what()
+                                       : e.file() + ": " + (e.key_path().empty() ? "" : e.key_path() + ": ") + e.message());
+        return bad_input;
+    } catch (const UsageError& e) {
+        report_error(e.what());
+        std::fprintf(stderr, "Run 'wickgrid COMMAND --help' for usage.\n");
+        return bad_input;
+    } catch (const EvaluationError& e) {
+        report_error(e.what());
+        return cannot_evaluate;
+    } catch (const InputError& e) {
+        report_error(e.what());
+        return bad_input;
+    } catch (const report::OutputError& e) {
+        report_error(e.what());
+        return output_failed;
+    } catch (const std::exception& e) {
+        report_error(std::string("unexpected failure: ") + e.what());
+        return internal_error;
+    } catch (...) {
+        report_error("unexpected failure");
+        return internal_error;
+    }
+}
+
+std::string BatchItem::out_dir(const std::string& dir) const {
+    return count == 1 || dir.empty() ? dir : (std::filesystem::path(dir) / folder).string();
+}
+
+namespace {
+// A folder name per file: its stem, numbered when two files share one.
+std::vector<std::string> folder_names(const std::vector<std::string>& files) {
+    std::vector<std::string> out;
+    for (const auto& f : files) {
+        std::string stem = f == "-" ? "stdin" : std::filesystem::path(f).stem().string();
+        if (stem.empty() || stem == "." || stem == "..") stem = "scenario";
+        std::string name = stem;
+        for (int k = 2; std::find(out.begin(), out.end(), name) != out.end(); ++k) name = stem + "-" + std::to_string(k);
+        out.push_back(name);
+    }
+    return out;
+}
+}  // namespace
+
+int run_each(const std::vector<std::string>& files, BatchFormat format, const std::function<int(const BatchItem&)>& body) {
+    if (files.size() == 1) return body({files[0], 1, "", [](const std::string& text) { print_stdout(text); }});
+    if (format.csv) throw UsageError("--csv", "writes one table: give one scenario file (or --json, or --out DIR)");
+    const auto folders = folder_names(files);
+    int worst = ok;
+    std::vector<std::string> outputs;
+    for (std::size_t i = 0; i < files.size(); ++i) {
+        std::string buffer;
+        int code = ok;
+        try {
+            code = body({files[i], files.size(), folders[i], [&buffer](const std::string& text) { buffer += text; }});
+        } catch (...) {
+            code = report_current_exception();
+        }
+        worst = std::max(worst, code);
+        if (buffer.empty()) continue;
+        if (format.json) {
+            while (!buffer.empty() && buffer.back() == '\n') buffer.pop_back();
+            outputs.push_back(buffer);
+        } else {
+            outputs.push_back("== " + files[i] + " ==\n" + buffer);
+        }
+    }
+    std::string all;
+    for (std::size_t i = 0; i < outputs.size(); ++i) all += (i ? (format.json ? ",\n" : "\n") : "") + outputs[i];
+    print_stdout(format.json ? "[\n" + all + (outputs.empty() ? "" : "\n") + "]\n" : all);
+    return worst;
 }
 
 void write_outputs(const std::string& dir, const std::vector<std::string>& input_files,

@@ -11,7 +11,7 @@ namespace wickgrid::cli {
 
 namespace {
 struct CurveOptions {
-    std::string file;
+    std::vector<std::string> files;
     std::string drain;
     std::string pattern;
     double spacing_m = 0.0;
@@ -26,7 +26,7 @@ struct CurveOptions {
 Runner add_curve(CLI::App& app) {
     auto* cmd = app.add_subcommand("curve", "Degree of consolidation against time for one drain, pattern and spacing");
     auto o = std::make_shared<CurveOptions>();
-    cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
+    cmd->add_option("FILE", o->files, "Scenario file (YAML); several files, or - for standard input")->required();
     cmd->add_option("--drain", o->drain, "Drain product name from the scenario")->required();
     cmd->add_option("--pattern", o->pattern, "triangular or square")->required()->check(pattern_check());
     cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(positive_number());
@@ -40,27 +40,30 @@ Runner add_curve(CLI::App& app) {
     auto* json = cmd->add_flag("--json", o->json, "JSON on stdout");
     cmd->add_flag("--csv", o->csv, "CSV on stdout")->excludes(json);
     return [o] {
-        const auto s = load_scenario_warned(o->file);
-        std::vector<double> times;
-        for (const double d : o->at_days) {
-            if (!(std::isfinite(d) && d >= 0.0)) throw InputError("--at-days", d, "a list of times of at least 0 days");
-            if (!times.empty() && units::days_to_seconds(d) < times.back())
-                throw InputError("--at-days", d, "in ascending order");
-            times.push_back(units::days_to_seconds(d));
-        }
-        if (times.empty()) {
-            const double until = o->until_days > 0.0 ? units::days_to_seconds(o->until_days)
-                                                     : defaults::curve_span_of_deadline * s.site.criterion.deadline_s;
-            times = even_times_s(until, o->points);
-        }
-        const Pattern pattern = pattern_option(o->pattern);
-        const auto model = model_from_options(s, o->drain, pattern, o->spacing_m);
-        const results::Curve curve{s.drain(o->drain).name, pattern, o->spacing_m, model->method(),
-                                   degree_curve(*model, times)};
-        if (o->json) print_stdout(report::curve_json(s.site, curve).dump(2) + "\n");
-        else if (o->csv) print_stdout(report::curve_csv(curve));
-        else print_stdout(report::curve_table(s.site, curve));
-        return static_cast<int>(ok);
+        return run_each(o->files, {o->json, o->csv}, [&](const BatchItem& item) {
+            const std::string& file = item.file;
+            const auto s = load_scenario_warned(file);
+            std::vector<double> times;
+            for (const double d : o->at_days) {
+                if (!(std::isfinite(d) && d >= 0.0)) throw InputError("--at-days", d, "a list of times of at least 0 days");
+                if (!times.empty() && units::days_to_seconds(d) < times.back())
+                    throw InputError("--at-days", d, "in ascending order");
+                times.push_back(units::days_to_seconds(d));
+            }
+            if (times.empty()) {
+                const double until = o->until_days > 0.0 ? units::days_to_seconds(o->until_days)
+                                                         : defaults::curve_span_of_deadline * s.site.criterion.deadline_s;
+                times = even_times_s(until, o->points);
+            }
+            const Pattern pattern = pattern_option(o->pattern);
+            const auto model = model_from_options(s, o->drain, pattern, o->spacing_m);
+            const results::Curve curve{s.drain(o->drain).name, pattern, o->spacing_m, model->method(),
+                                       degree_curve(*model, times)};
+            if (o->json) item.print(report::curve_json(s.site, curve).dump(2) + "\n");
+            else if (o->csv) item.print(report::curve_csv(curve));
+            else item.print(report::curve_table(s.site, curve));
+            return static_cast<int>(ok);
+        });
     };
 }
 

@@ -14,7 +14,7 @@ namespace wickgrid::cli {
 
 namespace {
 struct LayoutOptions {
-    std::string file;
+    std::vector<std::string> files;
     std::string area;
     std::string drain;
     std::string pattern;
@@ -35,7 +35,7 @@ struct LayoutOptions {
 Runner add_layout(CLI::App& app) {
     auto* cmd = app.add_subcommand("layout", "Drain positions over a treatment area: counts, lengths, set-out files");
     auto o = std::make_shared<LayoutOptions>();
-    cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
+    cmd->add_option("FILE", o->files, "Scenario file (YAML); several files, or - for standard input")->required();
     cmd->add_option("--area", o->area,
                     "Treatment area: GeoJSON Polygon/MultiPolygon (holes allowed) or CSV with x_m,y_m[,part,ring]; "
                     "metres of a projected coordinate system")
@@ -64,47 +64,50 @@ Runner add_layout(CLI::App& app) {
     cmd->footer("Exit codes: 0 ok, 2 bad input (located in the file), 3 an output could not be written, "
                 "5 no drain fits (the offset or exclusions leave no room, or too many drains).");
     return [o, angle, origin] {
-        const auto s = load_scenario_warned(o->file);
-        results::LayoutRequest q;
-        q.drain = s.drain(o->drain).name;
-        q.pattern = pattern_option(o->pattern);
-        q.spacing_m = o->spacing_m;
-        if (angle->count() > 0) q.angle_deg = o->angle_deg;
-        if (origin->count() > 0) {
-            for (const double v : o->origin)
-                if (!std::isfinite(v)) throw UsageError("--origin", "give two finite coordinates X,Y in metres");
-            q.origin = layout::Point{o->origin.at(0), o->origin.at(1)};
-        }
-        q.edge_offset_m = o->edge_offset_m;
-        q.area = scenario::read_area_file(o->area, o->projected);
-        std::vector<std::string> inputs{o->file, o->area};
-        if (!o->exclude.empty()) {
-            q.exclusions = scenario::read_area_file(o->exclude, o->projected);
-            inputs.push_back(o->exclude);
-        }
-        if (!o->base_depths.empty()) {
-            q.base_points = scenario::read_base_depth_file(o->base_depths);
-            q.base_file = o->base_depths;
-            inputs.push_back(o->base_depths);
-        }
-        const results::LayoutRecord record = results::layout_record(s, std::move(q));
-        for (std::size_t i = s.input_warnings.size(); i < record.warnings.size(); ++i) spdlog::warn("{}", record.warnings[i]);
-        spdlog::info("laid {} drains in {} rows", record.layout.drains.size(), record.layout.rows);
-        const std::string json_text = report::layout_json(record).dump(1) + "\n";
-        if (!o->out_dir.empty()) {
-            write_outputs(o->out_dir, inputs,
-                          {{"layout.json", json_text},
-                           {"layout.csv", report::layout_csv(record)},
-                           {"layout.geojson", report::layout_geojson(record)},
-                           {"layout-plan.svg", report::layout_svg(record)},
-                           {"layout.html", report::layout_html(record)}});
-            spdlog::info("wrote layout.json, layout.csv, layout.geojson, layout-plan.svg and layout.html to {}", o->out_dir);
-        }
-        if (o->json) print_stdout(json_text);
-        else if (o->csv) print_stdout(report::layout_csv(record));
-        else if (o->geojson) print_stdout(report::layout_geojson(record));
-        else print_stdout(report::layout_table(record));
-        return static_cast<int>(ok);
+        return run_each(o->files, {o->json, o->csv || o->geojson}, [&](const BatchItem& item) {
+            const std::string& file = item.file;
+            const auto s = load_scenario_warned(file);
+            results::LayoutRequest q;
+            q.drain = s.drain(o->drain).name;
+            q.pattern = pattern_option(o->pattern);
+            q.spacing_m = o->spacing_m;
+            if (angle->count() > 0) q.angle_deg = o->angle_deg;
+            if (origin->count() > 0) {
+                for (const double v : o->origin)
+                    if (!std::isfinite(v)) throw UsageError("--origin", "give two finite coordinates X,Y in metres");
+                q.origin = layout::Point{o->origin.at(0), o->origin.at(1)};
+            }
+            q.edge_offset_m = o->edge_offset_m;
+            q.area = scenario::read_area_file(o->area, o->projected);
+            std::vector<std::string> inputs{file, o->area};
+            if (!o->exclude.empty()) {
+                q.exclusions = scenario::read_area_file(o->exclude, o->projected);
+                inputs.push_back(o->exclude);
+            }
+            if (!o->base_depths.empty()) {
+                q.base_points = scenario::read_base_depth_file(o->base_depths);
+                q.base_file = o->base_depths;
+                inputs.push_back(o->base_depths);
+            }
+            const results::LayoutRecord record = results::layout_record(s, std::move(q));
+            for (std::size_t i = s.input_warnings.size(); i < record.warnings.size(); ++i) spdlog::warn("{}", record.warnings[i]);
+            spdlog::info("laid {} drains in {} rows", record.layout.drains.size(), record.layout.rows);
+            const std::string json_text = report::layout_json(record).dump(1) + "\n";
+            if (!o->out_dir.empty()) {
+                write_outputs(item.out_dir(o->out_dir), inputs,
+                              {{"layout.json", json_text},
+                               {"layout.csv", report::layout_csv(record)},
+                               {"layout.geojson", report::layout_geojson(record)},
+                               {"layout-plan.svg", report::layout_svg(record)},
+                               {"layout.html", report::layout_html(record)}});
+                spdlog::info("wrote layout.json, layout.csv, layout.geojson, layout-plan.svg and layout.html to {}", item.out_dir(o->out_dir));
+            }
+            if (o->json) item.print(json_text);
+            else if (o->csv) item.print(report::layout_csv(record));
+            else if (o->geojson) item.print(report::layout_geojson(record));
+            else item.print(report::layout_table(record));
+            return static_cast<int>(ok);
+        });
     };
 }
 

@@ -12,7 +12,7 @@ namespace wickgrid::cli {
 
 namespace {
 struct MonitorOptions {
-    std::string file;
+    std::vector<std::string> files;
     std::string readings;
     std::string piezometers;
     std::string drain;
@@ -28,7 +28,7 @@ struct MonitorOptions {
 Runner add_monitor(CLI::App& app) {
     auto* cmd = app.add_subcommand("monitor", "Back-analyse settlement plate readings and forecast the rest");
     auto o = std::make_shared<MonitorOptions>();
-    cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
+    cmd->add_option("FILE", o->files, "Scenario file (YAML); several files, or - for standard input")->required();
     cmd->add_option("--readings", o->readings, "CSV with plate,day,settlement_mm[,fill_height_m]; days from the start of loading")
         ->required();
     cmd->add_option("--piezometers", o->piezometers,
@@ -45,29 +45,32 @@ Runner add_monitor(CLI::App& app) {
     cmd->footer("Exit codes: 0 ok, 2 bad input (the readings file names its line), 3 an output could not be written, "
                 "5 the installed cell cannot be evaluated.");
     return [o, interval] {
-        const auto s = load_scenario_warned(o->file);
-        const auto readings = scenario::read_readings_file(o->readings);
-        const Pattern pattern = pattern_option(o->pattern);
-        model_from_options(s, o->drain, pattern, o->spacing_m);  // the installed cell, refused with the option at fault
-        const std::optional<double> asaoka_interval =
-            interval->count() > 0 ? std::optional(units::days_to_seconds(o->interval_days)) : std::nullopt;
-        auto record = results::monitor_record(s, s.drain(o->drain).name, pattern, o->spacing_m, readings, asaoka_interval);
-        std::vector<std::string> inputs{o->file, o->readings};
-        if (!o->piezometers.empty()) {
-            results::add_piezometers(record, scenario::read_piezometer_file(o->piezometers));
-            inputs.push_back(o->piezometers);
-        }
-        for (const auto& w : record.warnings) spdlog::warn("{}", w);
-        const std::string json_text = report::monitor_json(record).dump(2) + "\n";
-        if (!o->out_dir.empty())
-            write_outputs(o->out_dir, inputs,
-                          {{"monitor.json", json_text},
-                           {"monitor.csv", report::monitor_csv(record)},
-                           {"monitor.html", report::monitor_html(record)}});
-        if (o->json) print_stdout(json_text);
-        else if (o->csv) print_stdout(report::monitor_csv(record));
-        else print_stdout(report::monitor_table(record));
-        return static_cast<int>(ok);
+        return run_each(o->files, {o->json, o->csv}, [&](const BatchItem& item) {
+            const std::string& file = item.file;
+            const auto s = load_scenario_warned(file);
+            const auto readings = scenario::read_readings_file(o->readings);
+            const Pattern pattern = pattern_option(o->pattern);
+            model_from_options(s, o->drain, pattern, o->spacing_m);  // the installed cell, refused with the option at fault
+            const std::optional<double> asaoka_interval =
+                interval->count() > 0 ? std::optional(units::days_to_seconds(o->interval_days)) : std::nullopt;
+            auto record = results::monitor_record(s, s.drain(o->drain).name, pattern, o->spacing_m, readings, asaoka_interval);
+            std::vector<std::string> inputs{file, o->readings};
+            if (!o->piezometers.empty()) {
+                results::add_piezometers(record, scenario::read_piezometer_file(o->piezometers));
+                inputs.push_back(o->piezometers);
+            }
+            for (const auto& w : record.warnings) spdlog::warn("{}", w);
+            const std::string json_text = report::monitor_json(record).dump(2) + "\n";
+            if (!o->out_dir.empty())
+                write_outputs(item.out_dir(o->out_dir), inputs,
+                              {{"monitor.json", json_text},
+                               {"monitor.csv", report::monitor_csv(record)},
+                               {"monitor.html", report::monitor_html(record)}});
+            if (o->json) item.print(json_text);
+            else if (o->csv) item.print(report::monitor_csv(record));
+            else item.print(report::monitor_table(record));
+            return static_cast<int>(ok);
+        });
     };
 }
 

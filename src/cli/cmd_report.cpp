@@ -7,7 +7,7 @@ namespace wickgrid::cli {
 
 namespace {
 struct ReportCommandOptions {
-    std::string file;
+    std::vector<std::string> files;
     std::string out_dir;
     std::string time_axis = "linear";
 };
@@ -16,27 +16,30 @@ struct ReportCommandOptions {
 Runner add_report(CLI::App& app) {
     auto* cmd = app.add_subcommand("report", "Write a self-contained HTML design report with SVG charts");
     auto o = std::make_shared<ReportCommandOptions>();
-    cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
+    cmd->add_option("FILE", o->files, "Scenario file (YAML); several files, or - for standard input")->required();
     cmd->add_option("--out", o->out_dir, "Folder for report.html and the chart SVG files")->required();
     cmd->add_option("--time-axis", o->time_axis, "Degree–time charts: linear or log")->check(CLI::IsMember({"linear", "log"}));
     cmd->footer("Studies in the scenario ('studies:' one-at-a-time and grid, 'uncertain:' Monte Carlo) are charted too. Exit codes as for design.");
     return [o] {
-        const auto s = load_scenario_warned(o->file);
-        results::DesignRecord record = results::design_record(s, {true, o->time_axis == "log"});
-        record.studies.grid_x = s.studies.grid_x;
-        record.studies.grid_y = s.studies.grid_y;
-        if (!s.studies.tornado.empty()) record.studies.tornado = tornado_study(s.site, record.result, s.studies.tornado);
-        if (s.studies.grid_given) record.studies.grid = grid_study(s.site, s.studies.grid_x, s.studies.grid_y);
-        if (s.studies.monte_carlo) {  // the scenario's own samples and seed, so the report repeats sweep's figures
-            record.studies.monte_carlo = monte_carlo(s.site, record.result, *s.studies.monte_carlo);
-            record.studies.monte_carlo_spec = *s.studies.monte_carlo;
-        }
-        const auto bundle = report::build_report(record);
-        std::vector<std::pair<std::string, std::string>> files{{"report.html", bundle.html}};
-        for (const auto& chart : bundle.charts) files.emplace_back(chart.file, chart.svg);
-        write_outputs(o->out_dir, {o->file}, files);
-        print_stdout("wrote " + o->out_dir + "/report.html and " + std::to_string(bundle.charts.size()) + " chart(s)\n");
-        return static_cast<int>(record.result.any_feasible() ? ok : no_feasible_design);
+        return run_each(o->files, {false, false}, [&](const BatchItem& item) {
+            const std::string& file = item.file;
+            const auto s = load_scenario_warned(file);
+            results::DesignRecord record = results::design_record(s, {true, o->time_axis == "log"});
+            record.studies.grid_x = s.studies.grid_x;
+            record.studies.grid_y = s.studies.grid_y;
+            if (!s.studies.tornado.empty()) record.studies.tornado = tornado_study(s.site, record.result, s.studies.tornado);
+            if (s.studies.grid_given) record.studies.grid = grid_study(s.site, s.studies.grid_x, s.studies.grid_y);
+            if (s.studies.monte_carlo) {  // the scenario's own samples and seed, so the report repeats sweep's figures
+                record.studies.monte_carlo = monte_carlo(s.site, record.result, *s.studies.monte_carlo);
+                record.studies.monte_carlo_spec = *s.studies.monte_carlo;
+            }
+            const auto bundle = report::build_report(record);
+            std::vector<std::pair<std::string, std::string>> files{{"report.html", bundle.html}};
+            for (const auto& chart : bundle.charts) files.emplace_back(chart.file, chart.svg);
+            write_outputs(item.out_dir(o->out_dir), {file}, files);
+            item.print("wrote " + item.out_dir(o->out_dir) + "/report.html and " + std::to_string(bundle.charts.size()) + " chart(s)\n");
+            return static_cast<int>(record.result.any_feasible() ? ok : no_feasible_design);
+        });
     };
 }
 

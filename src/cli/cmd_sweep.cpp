@@ -15,7 +15,7 @@ namespace wickgrid::cli {
 
 namespace {
 struct SweepOptions {
-    std::string file;
+    std::vector<std::string> files;
     std::vector<std::string> only;
     std::optional<std::size_t> samples;
     std::optional<std::uint64_t> seed;
@@ -49,7 +49,7 @@ bool wanted(const SweepOptions& o, const std::string& study) {
 Runner add_sweep(CLI::App& app) {
     auto* cmd = app.add_subcommand("sweep", "Sensitivity (one at a time, grid) and Monte Carlo studies of the design");
     auto o = std::make_shared<SweepOptions>();
-    cmd->add_option("FILE", o->file, "Scenario file (YAML) with optional 'studies' and 'uncertain' blocks")->required();
+    cmd->add_option("FILE", o->files, "Scenario file (YAML) with optional 'studies' and 'uncertain' blocks; several files, or - for standard input")->required();
     cmd->add_option("--only", o->only, "Studies to run: tornado, grid, monte_carlo (comma-separated; default all)")
         ->delimiter(',')
         ->check(CLI::IsMember({"tornado", "grid", "monte_carlo"}));
@@ -60,54 +60,57 @@ Runner add_sweep(CLI::App& app) {
     cmd->add_flag("--csv", o->csv, "CSV on stdout (needs exactly one study, see --only)")->excludes(json);
     cmd->add_option("--out", o->out_dir, "Also write sweep.json and one CSV per study into this folder");
     return [o] {
-        const auto s = load_scenario_warned(o->file);
-        const Site& site = s.site;
-        const bool tornado = wanted(*o, "tornado") && !s.studies.tornado.empty();
-        const bool monte = wanted(*o, "monte_carlo") && s.studies.monte_carlo.has_value();
-        if (!o->only.empty()) {
-            if (wanted(*o, "tornado") && s.studies.tornado.empty())
-                throw UsageError("--only tornado", "needs a 'studies: tornado:' block in " + s.file);
-            if (wanted(*o, "monte_carlo") && !s.studies.monte_carlo)
-                throw UsageError("--only monte_carlo", "needs an 'uncertain:' block in " + s.file);
-        }
-        const bool grid = wanted(*o, "grid");
-        if (o->csv && (tornado + grid + monte) != 1)
-            throw UsageError("--csv", "writes exactly 1 study, and " + std::to_string(tornado + grid + monte) +
-                                          " are asked: choose one with --only, or use --json or --out");
-        results::DesignRecord record = results::design_record(s);
-        results::Studies& r = record.studies;
-        r.grid_x = s.studies.grid_x;
-        r.grid_y = s.studies.grid_y;
-        if (tornado) r.tornado = tornado_study(site, record.result, s.studies.tornado);
-        if (grid) r.grid = grid_study(site, s.studies.grid_x, s.studies.grid_y);
-        if (monte) {
-            MonteCarloSpec spec = *s.studies.monte_carlo;
-            if (o->samples) spec.samples = *o->samples;
-            if (o->seed) spec.seed = *o->seed;
-            spec.threads = o->threads;
-            spdlog::info("Monte Carlo: {} samples × {} designs", spec.samples, record.result.rows.size());
-            const auto started = std::chrono::steady_clock::now();
-            r.monte_carlo = monte_carlo(site, record.result, spec, progress_bar());
-            const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
-            spdlog::info("Monte Carlo: {:.0f} samples per second, {} designs each, {} thread(s)",
-                         static_cast<double>(spec.samples) / std::max(seconds, 1e-9), record.result.rows.size(),
-                         r.monte_carlo->threads);
-            r.monte_carlo_spec = spec;
-        }
-        const std::string json_text = report::sweep_json(record).dump(2) + "\n";
-        if (!o->out_dir.empty()) {
-            std::vector<std::pair<std::string, std::string>> files{{"sweep.json", json_text}};
-            if (r.tornado) files.emplace_back("tornado.csv", report::tornado_csv(site, *r.tornado));
-            if (r.grid) files.emplace_back("grid.csv", report::grid_csv(*r.grid, r.grid_x, r.grid_y));
-            if (r.monte_carlo) files.emplace_back("monte_carlo.csv", report::monte_carlo_csv(*r.monte_carlo));
-            write_outputs(o->out_dir, {o->file}, files);
-        }
-        if (o->json) print_stdout(json_text);
-        else if (o->csv) print_stdout(r.tornado ? report::tornado_csv(site, *r.tornado)
-                                      : r.grid  ? report::grid_csv(*r.grid, r.grid_x, r.grid_y)
-                                                : report::monte_carlo_csv(*r.monte_carlo));
-        else print_stdout(report::sweep_table(record));
-        return static_cast<int>(ok);
+        return run_each(o->files, {o->json, o->csv}, [&](const BatchItem& item) {
+            const std::string& file = item.file;
+            const auto s = load_scenario_warned(file);
+            const Site& site = s.site;
+            const bool tornado = wanted(*o, "tornado") && !s.studies.tornado.empty();
+            const bool monte = wanted(*o, "monte_carlo") && s.studies.monte_carlo.has_value();
+            if (!o->only.empty()) {
+                if (wanted(*o, "tornado") && s.studies.tornado.empty())
+                    throw UsageError("--only tornado", "needs a 'studies: tornado:' block in " + s.file);
+                if (wanted(*o, "monte_carlo") && !s.studies.monte_carlo)
+                    throw UsageError("--only monte_carlo", "needs an 'uncertain:' block in " + s.file);
+            }
+            const bool grid = wanted(*o, "grid");
+            if (o->csv && (tornado + grid + monte) != 1)
+                throw UsageError("--csv", "writes exactly 1 study, and " + std::to_string(tornado + grid + monte) +
+                                              " are asked: choose one with --only, or use --json or --out");
+            results::DesignRecord record = results::design_record(s);
+            results::Studies& r = record.studies;
+            r.grid_x = s.studies.grid_x;
+            r.grid_y = s.studies.grid_y;
+            if (tornado) r.tornado = tornado_study(site, record.result, s.studies.tornado);
+            if (grid) r.grid = grid_study(site, s.studies.grid_x, s.studies.grid_y);
+            if (monte) {
+                MonteCarloSpec spec = *s.studies.monte_carlo;
+                if (o->samples) spec.samples = *o->samples;
+                if (o->seed) spec.seed = *o->seed;
+                spec.threads = o->threads;
+                spdlog::info("Monte Carlo: {} samples × {} designs", spec.samples, record.result.rows.size());
+                const auto started = std::chrono::steady_clock::now();
+                r.monte_carlo = monte_carlo(site, record.result, spec, progress_bar());
+                const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+                spdlog::info("Monte Carlo: {:.0f} samples per second, {} designs each, {} thread(s)",
+                             static_cast<double>(spec.samples) / std::max(seconds, 1e-9), record.result.rows.size(),
+                             r.monte_carlo->threads);
+                r.monte_carlo_spec = spec;
+            }
+            const std::string json_text = report::sweep_json(record).dump(2) + "\n";
+            if (!o->out_dir.empty()) {
+                std::vector<std::pair<std::string, std::string>> files{{"sweep.json", json_text}};
+                if (r.tornado) files.emplace_back("tornado.csv", report::tornado_csv(site, *r.tornado));
+                if (r.grid) files.emplace_back("grid.csv", report::grid_csv(*r.grid, r.grid_x, r.grid_y));
+                if (r.monte_carlo) files.emplace_back("monte_carlo.csv", report::monte_carlo_csv(*r.monte_carlo));
+                write_outputs(item.out_dir(o->out_dir), {file}, files);
+            }
+            if (o->json) item.print(json_text);
+            else if (o->csv) item.print(r.tornado ? report::tornado_csv(site, *r.tornado)
+                                          : r.grid  ? report::grid_csv(*r.grid, r.grid_x, r.grid_y)
+                                                    : report::monte_carlo_csv(*r.monte_carlo));
+            else item.print(report::sweep_table(record));
+            return static_cast<int>(ok);
+        });
     };
 }
 

@@ -17,7 +17,7 @@ namespace wickgrid::cli {
 
 namespace {
 struct VerifyOptions {
-    std::string file;
+    std::vector<std::string> files;
     double threshold = defaults::verify_threshold;
     int points = defaults::verify_points;
     int radial_cells = defaults::verify_radial_cells;
@@ -45,7 +45,7 @@ std::optional<Equivalents> equivalents(const Site& site, const CellFigures& f) {
 Runner add_verify(CLI::App& app) {
     auto* cmd = app.add_subcommand("verify", "Check every design row against the reference numerical unit cell");
     auto o = std::make_shared<VerifyOptions>();
-    cmd->add_option("FILE", o->file, "Scenario file (YAML)")->required();
+    cmd->add_option("FILE", o->files, "Scenario file (YAML); several files, or - for standard input")->required();
     cmd->add_option("--threshold", o->threshold, "Warn when |U reference − U design| exceeds this (default 0.02)")
         ->check(number_between(0.0, 1.0));
     cmd->add_option("--points", o->points, "Times compared, evenly from 0 to 1.5 × deadline (default 25)")->check(whole_between(2, 1000));
@@ -54,87 +54,90 @@ Runner add_verify(CLI::App& app) {
     cmd->add_flag("--json", o->json, "JSON on stdout");
     cmd->footer("Exit 0 whether or not a warning was raised; warnings go to stderr and into the output.");
     return [o] {
-        if (static_cast<long>(o->radial_cells) * o->vertical_cells > defaults::max_reference_mesh_cells)
-            throw UsageError("--radial-cells × --vertical-cells",
-                             std::to_string(o->radial_cells) + " × " + std::to_string(o->vertical_cells) +
-                                 " cells is more than the limit of " + std::to_string(defaults::max_reference_mesh_cells));
-        const auto s = load_scenario_warned(o->file);
-        const Site& site = s.site;
-        const results::DesignRecord record = results::design_record(s);
-        const std::vector<double> times =
-            even_times_s(defaults::curve_span_of_deadline * site.criterion.deadline_s, o->points);
-        Site reference = site;
-        reference.method.method = CellMethod::numerical;
-        reference.method.mesh = {o->radial_cells, o->vertical_cells, defaults::verify_max_degree_step, 0.0};
-        const std::string design_method(to_string(site.method.method));
-        using nlohmann::json;
-        json rows = json::array();
-        std::ostringstream table;
-        table << s.title << "\nreference numerical unit cell (" << o->radial_cells << " × " << o->vertical_cells
-              << " cells) beside the design's " << design_method << " model, at the chosen spacings\n\n";
-        bool any_warning = false;
-        for (const auto& row : record.result.rows) {
-            const DrainProductSpec& product = site.product(row.drain);
-            const auto design = make_cell_model(site, product, row.pattern, row.spacing_m);
-            const auto numeric = make_cell_model(reference, product, row.pattern, row.spacing_m);
-            const auto a = design->combined(times), b = numeric->combined(times);
-            double worst = 0.0, worst_t = 0.0;
-            json pts = json::array();
-            for (std::size_t i = 0; i < times.size(); ++i) {
-                const double d = std::fabs(b[i] - a[i]);
-                if (d > worst) worst = d, worst_t = times[i];
-                pts.push_back({{"time_days", units::seconds_to_days(times[i])},
-                               {"degree_design", a[i]},
-                               {"degree_reference", b[i]}});
-            }
-            const bool warn = worst > o->threshold;
-            any_warning |= warn;
-            if (warn)
-                spdlog::warn("{} / {}: the design's model and the reference cell differ by {:.4f} in U at day {:.0f}",
-                             row.drain, to_string(row.pattern), worst, units::seconds_to_days(worst_t));
-            const auto eq = equivalents(site, design->figures());
-            rows.push_back({{"drain", row.drain}, {"pattern", std::string(to_string(row.pattern))},
-                            {"spacing_m", row.spacing_m}, {"max_difference", worst},
-                            {"at_day", units::seconds_to_days(worst_t)}, {"warning", warn},
-                            {"plane_strain_kh_m_per_s", eq ? json(eq->plane_strain_kh_m_per_s) : json(nullptr)},
-                            {"equivalent_kv_m_per_s", eq ? json(eq->equivalent_kv_m_per_s) : json(nullptr)},
-                            {"points", pts}});
-            char line[512];
-            std::snprintf(line, sizeof line, "  %-20s %-10s %5.2f m  max |ΔU| = %.4f at day %5.0f%s\n", row.drain.c_str(),
-                          std::string(to_string(row.pattern)).c_str(), row.spacing_m, worst,
-                          units::seconds_to_days(worst_t), warn ? "  WARNING: above the threshold" : "");
-            table << line;
-            if (eq) {
-                std::snprintf(line, sizeof line,
-                              "      plane-strain kh (Hird et al. 1992) %.3e m/s; equivalent kv (Chai et al. 2001) %.3e m/s\n",
-                              eq->plane_strain_kh_m_per_s, eq->equivalent_kv_m_per_s);
+        return run_each(o->files, {o->json, false}, [&](const BatchItem& item) {
+            const std::string& file = item.file;
+            if (static_cast<long>(o->radial_cells) * o->vertical_cells > defaults::max_reference_mesh_cells)
+                throw UsageError("--radial-cells × --vertical-cells",
+                                 std::to_string(o->radial_cells) + " × " + std::to_string(o->vertical_cells) +
+                                     " cells is more than the limit of " + std::to_string(defaults::max_reference_mesh_cells));
+            const auto s = load_scenario_warned(file);
+            const Site& site = s.site;
+            const results::DesignRecord record = results::design_record(s);
+            const std::vector<double> times =
+                even_times_s(defaults::curve_span_of_deadline * site.criterion.deadline_s, o->points);
+            Site reference = site;
+            reference.method.method = CellMethod::numerical;
+            reference.method.mesh = {o->radial_cells, o->vertical_cells, defaults::verify_max_degree_step, 0.0};
+            const std::string design_method(to_string(site.method.method));
+            using nlohmann::json;
+            json rows = json::array();
+            std::ostringstream table;
+            table << s.title << "\nreference numerical unit cell (" << o->radial_cells << " × " << o->vertical_cells
+                  << " cells) beside the design's " << design_method << " model, at the chosen spacings\n\n";
+            bool any_warning = false;
+            for (const auto& row : record.result.rows) {
+                const DrainProductSpec& product = site.product(row.drain);
+                const auto design = make_cell_model(site, product, row.pattern, row.spacing_m);
+                const auto numeric = make_cell_model(reference, product, row.pattern, row.spacing_m);
+                const auto a = design->combined(times), b = numeric->combined(times);
+                double worst = 0.0, worst_t = 0.0;
+                json pts = json::array();
+                for (std::size_t i = 0; i < times.size(); ++i) {
+                    const double d = std::fabs(b[i] - a[i]);
+                    if (d > worst) worst = d, worst_t = times[i];
+                    pts.push_back({{"time_days", units::seconds_to_days(times[i])},
+                                   {"degree_design", a[i]},
+                                   {"degree_reference", b[i]}});
+                }
+                const bool warn = worst > o->threshold;
+                any_warning |= warn;
+                if (warn)
+                    spdlog::warn("{} / {}: the design's model and the reference cell differ by {:.4f} in U at day {:.0f}",
+                                 row.drain, to_string(row.pattern), worst, units::seconds_to_days(worst_t));
+                const auto eq = equivalents(site, design->figures());
+                rows.push_back({{"drain", row.drain}, {"pattern", std::string(to_string(row.pattern))},
+                                {"spacing_m", row.spacing_m}, {"max_difference", worst},
+                                {"at_day", units::seconds_to_days(worst_t)}, {"warning", warn},
+                                {"plane_strain_kh_m_per_s", eq ? json(eq->plane_strain_kh_m_per_s) : json(nullptr)},
+                                {"equivalent_kv_m_per_s", eq ? json(eq->equivalent_kv_m_per_s) : json(nullptr)},
+                                {"points", pts}});
+                char line[512];
+                std::snprintf(line, sizeof line, "  %-20s %-10s %5.2f m  max |ΔU| = %.4f at day %5.0f%s\n", row.drain.c_str(),
+                              std::string(to_string(row.pattern)).c_str(), row.spacing_m, worst,
+                              units::seconds_to_days(worst_t), warn ? "  WARNING: above the threshold" : "");
                 table << line;
+                if (eq) {
+                    std::snprintf(line, sizeof line,
+                                  "      plane-strain kh (Hird et al. 1992) %.3e m/s; equivalent kv (Chai et al. 2001) %.3e m/s\n",
+                                  eq->plane_strain_kh_m_per_s, eq->equivalent_kv_m_per_s);
+                    table << line;
+                }
             }
-        }
-        if (o->json) {
-            print_stdout(json{{"schema", 1}, {"design_method", design_method}, {"threshold", o->threshold},
-                              {"reference_mesh", {{"radial_cells", o->radial_cells}, {"vertical_cells", o->vertical_cells}}},
-                              {"any_warning", any_warning}, {"rows", rows}, {"cautions", results::cautions()}}
-                             .dump(2) +
-                         "\n");
-        } else {
-            if (site.method.method == CellMethod::closed_form)
-                table << "\nThe closed form is equal strain (Hansbo 1981) combined by Carrillo (1942); the reference is "
-                         "free strain with coupled radial and vertical flow and the drain as a conduit. Differences of "
-                         "about 0.01 in U are expected between the two"
-                      << (site.loading && site.loading->surcharge
-                              ? "; with a surcharge, also the closed form's rule of holding settlement after removal"
-                              : "")
-                      << ".\n";
-            else
-                table << "\nThe design used the numerical cell on its own mesh; the reference repeats it on a finer mesh "
-                         "and smaller time steps, so the difference measures the design mesh's discretisation error. "
-                         "Equivalent plane-strain and 1-D parameters are given for a uniform clay with the closed form "
-                         "only.\n";
-            table << "\n" << results::caution_block();
-            print_stdout(table.str());
-        }
-        return static_cast<int>(ok);
+            if (o->json) {
+                item.print(json{{"schema", 1}, {"design_method", design_method}, {"threshold", o->threshold},
+                                  {"reference_mesh", {{"radial_cells", o->radial_cells}, {"vertical_cells", o->vertical_cells}}},
+                                  {"any_warning", any_warning}, {"rows", rows}, {"cautions", results::cautions()}}
+                                 .dump(2) +
+                             "\n");
+            } else {
+                if (site.method.method == CellMethod::closed_form)
+                    table << "\nThe closed form is equal strain (Hansbo 1981) combined by Carrillo (1942); the reference is "
+                             "free strain with coupled radial and vertical flow and the drain as a conduit. Differences of "
+                             "about 0.01 in U are expected between the two"
+                          << (site.loading && site.loading->surcharge
+                                  ? "; with a surcharge, also the closed form's rule of holding settlement after removal"
+                                  : "")
+                          << ".\n";
+                else
+                    table << "\nThe design used the numerical cell on its own mesh; the reference repeats it on a finer mesh "
+                             "and smaller time steps, so the difference measures the design mesh's discretisation error. "
+                             "Equivalent plane-strain and 1-D parameters are given for a uniform clay with the closed form "
+                             "only.\n";
+                table << "\n" << results::caution_block();
+                item.print(table.str());
+            }
+            return static_cast<int>(ok);
+        });
     };
 }
 

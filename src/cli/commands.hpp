@@ -28,8 +28,34 @@ public:
     UsageError(const std::string& option, const std::string& message) : std::runtime_error(option + ": " + message) {}
 };
 
-// Loads a scenario (ScenarioError when it is bad) and shows its plausibility warnings on stderr.
+// Loads a scenario (ScenarioError when it is bad) and shows its plausibility warnings on stderr;
+// "-" reads the scenario from standard input (once a run).
 scenario::Scenario load_scenario_warned(const std::string& file);
+
+// Control characters (terminal escape sequences among them) never reach the terminal.
+std::string terminal_safe(const std::string& text);
+void report_error(const std::string& text);
+// Reports the exception being handled on stderr and returns its exit code (call inside a catch).
+int report_current_exception();
+
+// Several scenario files in one run. Each command's body runs once per file with a BatchItem: the
+// file, where its output goes on stdout, and its own output folder. One file: the body as it is.
+// Several: each file's terminal output under a heading, JSON as one array; a file that fails is
+// reported on stderr and the others still run; the exit code is the highest of the files'.
+using Printer = std::function<void(const std::string&)>;
+struct BatchItem {
+    std::string file;
+    std::size_t count = 1;   // files in the run
+    std::string folder;      // this file's folder name under --out when there are several
+    Printer print;
+    // The output folder of this file: `dir` itself for one file, `dir/<folder>` for several.
+    std::string out_dir(const std::string& dir) const;
+};
+struct BatchFormat {
+    bool json = false;
+    bool csv = false;  // one table only: refused with several files
+};
+int run_each(const std::vector<std::string>& files, BatchFormat format, const std::function<int(const BatchItem&)>& body);
 
 // Registers a subcommand; the returned function runs it after parsing.
 using Runner = std::function<int()>;

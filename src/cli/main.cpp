@@ -23,17 +23,6 @@ void setup_logging(int verbosity, bool quiet) {
     spdlog::set_default_logger(logger);
 }
 
-// Control characters (terminal escape sequences among them) never reach the terminal.
-std::string terminal_safe(const std::string& text) {
-    std::string out;
-    for (const char c : text) {
-        const auto u = static_cast<unsigned char>(c);
-        out += (u < 0x20 && c != '\n') || u == 0x7F ? '?' : c;
-    }
-    return out;
-}
-
-void report_error(const std::string& text) { std::fprintf(stderr, "wickgrid: error: %s\n", terminal_safe(text).c_str()); }
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -65,7 +54,7 @@ int main(int argc, char** argv) {
         for (const auto* sub : app.get_subcommands({})) names.push_back(sub->get_name());
         if (std::find(names.begin(), names.end(), argv[1]) == names.end()) {
             const std::string near = cli::nearest_command(argv[1], names);
-            report_error("unknown command '" + terminal_safe(argv[1]) + "'" +
+            cli::report_error("unknown command '" + cli::terminal_safe(argv[1]) + "'" +
                          (near.empty() ? "" : "; did you mean '" + near + "'?"));
             std::fprintf(stderr, "Run 'wickgrid --help' for the commands.\n");
             return cli::bad_input;
@@ -80,7 +69,7 @@ int main(int argc, char** argv) {
     } catch (const CLI::CallForVersion& e) {
         return app.exit(e);
     } catch (const CLI::ParseError& e) {
-        report_error(e.what());
+        cli::report_error(e.what());
         std::fprintf(stderr, "Run 'wickgrid --help' or 'wickgrid COMMAND --help' for usage.\n");
         return cli::bad_input;
     }
@@ -95,27 +84,8 @@ int main(int argc, char** argv) {
         if (app.got_subcommand("verify")) return verify();
         if (app.got_subcommand("layout")) return layout_cmd();
         if (app.got_subcommand("monitor")) return monitor();
-    } catch (const scenario::ScenarioError& e) {
-        // A key the file does not give is reported against the file, without an invented line.
-        report_error(e.mark().line > 0 ? e.what()
-                                       : e.file() + ": " + (e.key_path().empty() ? "" : e.key_path() + ": ") + e.message());
-        return cli::bad_input;
-    } catch (const cli::UsageError& e) {
-        report_error(e.what());
-        std::fprintf(stderr, "Run 'wickgrid COMMAND --help' for usage.\n");
-        return cli::bad_input;
-    } catch (const EvaluationError& e) {
-        report_error(e.what());
-        return cli::cannot_evaluate;
-    } catch (const InputError& e) {
-        report_error(e.what());
-        return cli::bad_input;
-    } catch (const report::OutputError& e) {
-        report_error(e.what());
-        return cli::output_failed;
-    } catch (const std::exception& e) {
-        report_error(std::string("unexpected failure: ") + e.what());
-        return cli::internal_error;
+    } catch (...) {
+        return cli::report_current_exception();
     }
     return cli::internal_error;
 }

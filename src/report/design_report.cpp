@@ -103,6 +103,40 @@ json design_json(const results::DesignRecord& record) {
     return out;
 }
 
+namespace {
+const std::vector<std::string> summary_keys{"scenario", "title", "scenario_sha256", "feasible", "drain", "pattern",
+                                            "spacing_m", "degree", "time_to_target_days", "cost_per_hectare"};
+}
+
+json design_summary_row(const results::DesignRecord& record) {
+    const auto& s = *record.scenario;
+    json row{{"scenario", s.file}, {"title", s.title}, {"scenario_sha256", s.sha256}, {"feasible", record.result.any_feasible()}};
+    const DesignRow* best = record.result.best();
+    row["drain"] = best ? json(best->drain) : json(nullptr);
+    row["pattern"] = best ? json(std::string(to_string(best->pattern))) : json(nullptr);
+    row["spacing_m"] = best ? json(best->spacing_m) : json(nullptr);
+    row["degree"] = best ? json(best->at_deadline.combined) : json(nullptr);
+    row["time_to_target_days"] = best && best->time_to_target_s ? json(days(*best->time_to_target_s)) : json(nullptr);
+    row["cost_per_hectare"] = best && best->cost_per_hectare ? json(*best->cost_per_hectare) : json(nullptr);
+    return row;
+}
+
+std::string design_summary_csv(const std::vector<json>& rows) {
+    std::vector<std::vector<std::string>> cells;
+    for (const auto& r : rows) {
+        std::vector<std::string> line;
+        for (const auto& k : summary_keys) {
+            const json& v = r.at(k);
+            line.push_back(v.is_null()      ? std::string()
+                           : v.is_string()  ? v.get<std::string>()
+                           : v.is_boolean() ? (v.get<bool>() ? "yes" : "no")
+                                            : csv_number(v.get<double>()));
+        }
+        cells.push_back(line);
+    }
+    return csv_document(summary_keys, cells);
+}
+
 void add_title_block(json& out, const scenario::Scenario& s) {
     json project = json::object();
     for (const auto& f : results::title_block(s)) {

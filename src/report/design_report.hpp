@@ -21,6 +21,11 @@ nlohmann::json curve_json(const Site& site, const results::Curve& curve);
 std::string curve_csv(const results::Curve& curve);
 std::string curve_table(const Site& site, const results::Curve& curve);
 
+// One scenario's recommended design for a batch summary (keys as the CSV header below), and the
+// summary of several as CSV.
+nlohmann::json design_summary_row(const results::DesignRecord& record);
+std::string design_summary_csv(const std::vector<nlohmann::json>& rows);
+
 // The title block in a JSON output: "project" (the fields the scenario gives) and
 // "scenario_sha256" beside the "wickgrid_version" and "scenario" keys.
 void add_title_block(nlohmann::json& out, const scenario::Scenario& s);
