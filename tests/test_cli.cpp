@@ -329,7 +329,8 @@ TEST(Cli, BatchOfThreeScenariosGivesThreeFoldersAndASummary) {
 
 // The sub-layer table adds up to the design row it belongs to (the same computation, by slices).
 TEST(Cli, SubLayerTableAddsUpToTheDesignRow) {
-    for (const char* file : {"configs/staged-surcharge.yaml", "configs/layered-staged-numerical.yaml"}) {
+    for (const char* file : {"configs/staged-surcharge.yaml", "configs/layered-staged-numerical.yaml",
+                             "configs/residual-settlement.yaml"}) {
         const auto j = json::parse(run("design " + source(file) + " --json").out);
         ASSERT_FALSE(j["sublayers"].empty()) << file;
         double final_mm = 0.0, deadline_mm = 0.0, thickness = 0.0;

@@ -17,7 +17,7 @@ Runner add_report(CLI::App& app) {
     auto* cmd = app.add_subcommand("report", "Write a self-contained HTML design report with SVG charts");
     auto o = std::make_shared<ReportCommandOptions>();
     cmd->add_option("FILE", o->files, "Scenario file (YAML); several files, or - for standard input")->required();
-    cmd->add_option("--out", o->out_dir, "Folder for report.html and the chart SVG files")->required();
+    cmd->add_option("--out", o->out_dir, "Folder for report.html, report.md (the same content as a Markdown note) and the chart SVG files")->required();
     cmd->add_option("--time-axis", o->time_axis, "Degree–time charts: linear or log")->check(CLI::IsMember({"linear", "log"}));
     cmd->footer("Studies in the scenario ('studies:' one-at-a-time and grid, 'uncertain:' Monte Carlo) are charted too. Exit codes as for design.");
     return [o] {
@@ -34,10 +34,10 @@ Runner add_report(CLI::App& app) {
                 record.studies.monte_carlo_spec = *s.studies.monte_carlo;
             }
             const auto bundle = report::build_report(record);
-            std::vector<std::pair<std::string, std::string>> files{{"report.html", bundle.html}};
+            std::vector<std::pair<std::string, std::string>> files{{"report.html", bundle.html}, {"report.md", bundle.markdown}};
             for (const auto& chart : bundle.charts) files.emplace_back(chart.file, chart.svg);
             write_outputs(item.out_dir(o->out_dir), {file}, files);
-            item.print("wrote " + item.out_dir(o->out_dir) + "/report.html and " + std::to_string(bundle.charts.size()) + " chart(s)\n");
+            item.print("wrote " + item.out_dir(o->out_dir) + "/report.html, report.md and " + std::to_string(bundle.charts.size()) + " chart(s)\n");
             return static_cast<int>(record.result.any_feasible() ? ok : no_feasible_design);
         });
     };

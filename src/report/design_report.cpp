@@ -96,7 +96,8 @@ json design_json(const results::DesignRecord& record) {
     json sublayers = json::array();
     for (const auto& r : record.sublayers)
         sublayers.push_back({{"layer", r.layer}, {"depth_m", r.depth_m}, {"thickness_m", r.thickness_m},
-                             {"sigma_v0_kPa", r.sigma_v0_kPa}, {"delta_sigma_kPa", r.delta_sigma_kPa},
+                             {"sigma_v0_kPa", r.sigma_v0_kPa ? json(*r.sigma_v0_kPa) : json(nullptr)},
+                             {"delta_sigma_kPa", r.delta_sigma_kPa},
                              {"final_settlement_mm", r.final_m * 1000.0}, {"settlement_at_deadline_mm", r.at_deadline_m * 1000.0}});
     out["sublayers"] = sublayers;
     add_title_block(out, s);
@@ -160,7 +161,8 @@ std::vector<std::string> sublayer_header() {
 std::vector<std::vector<std::string>> sublayer_table_rows(const results::DesignRecord& record) {
     std::vector<std::vector<std::string>> rows;
     for (const auto& r : record.sublayers)
-        rows.push_back({std::to_string(r.layer), fixed(r.depth_m, 2), fixed(r.thickness_m, 2), fixed(r.sigma_v0_kPa, 1),
+        rows.push_back({std::to_string(r.layer), fixed(r.depth_m, 2), fixed(r.thickness_m, 2),
+                        r.sigma_v0_kPa ? fixed(*r.sigma_v0_kPa, 1) : "–",
                         fixed(r.delta_sigma_kPa, 1), fixed(r.final_m * 1000.0, 1), fixed(r.at_deadline_m * 1000.0, 1)});
     return rows;
 }
@@ -293,7 +295,7 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
     return rows;
 }
 
-std::string design_markdown(const results::DesignRecord& record) {
+std::string design_markdown(const results::DesignRecord& record, const std::string& extra_sections) {
     const auto& s = *record.scenario;
     const auto columns = shown_design_columns(record);
     const auto md = markdown_text;  // every piece of text is escaped: names cannot break the note
@@ -333,7 +335,7 @@ std::string design_markdown(const results::DesignRecord& record) {
         }
         out << "\n";
     }
-    out << "## Method and sources\n\n";
+    out << extra_sections << "## Method and sources\n\n";
     for (const auto& line : record.method_notes) out << "- " << md(line) << "\n";
     out << "\n## References\n\n";
     for (const auto& key : results::reference_keys(record)) out << "- " << md(results::reference(key).text) << "\n";

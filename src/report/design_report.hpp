@@ -11,7 +11,9 @@ namespace wickgrid::report {
 
 nlohmann::json design_json(const results::DesignRecord& record);
 std::string design_csv(const results::DesignRecord& record);
-std::string design_markdown(const results::DesignRecord& record);
+// The design note. `extra_sections` (Markdown) goes before the method section: the report's charts
+// and reliability table in report.md.
+std::string design_markdown(const results::DesignRecord& record, const std::string& extra_sections = "");
 std::string design_table(const results::DesignRecord& record);
 
 // The criterion as JSON: {"criterion": "degree"|"residual_settlement", …, "deadline_days", "label"}.

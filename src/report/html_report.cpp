@@ -294,6 +294,32 @@ std::string print_page_css(const scenario::Scenario& s) {
            "font-size: 8pt; color: #4a5868; } }\n";
 }
 
+namespace {
+// The report's sections beyond the design note, in Markdown: the reliability table and the charts.
+std::string markdown_sections(const results::DesignRecord& record, const std::vector<Chart>& charts) {
+    std::ostringstream o;
+    if (const auto& mc = record.studies.monte_carlo) {
+        const auto& spec = *record.studies.monte_carlo_spec;
+        o << "## Reliability (Monte Carlo)\n\n" << mc->samples << " samples, seed " << mc->seed << "; P with its "
+          << fixed(100.0 * spec.confidence, 0) << " % Clopper–Pearson interval; the spacing met with "
+          << fixed(100.0 * spec.reliability, 0) << " % reliability.\n\n| drain | pattern | spacing (m) | P (%) | interval (%) | "
+          << "spacing at reliability (m) | median limit (m) | samples not evaluated |\n|---|---|---|---|---|---|---|---|\n";
+        for (const auto& m : mc->rows)
+            o << "| " << markdown_text(m.drain) << " | " << to_string(m.pattern) << " | " << fixed(m.spacing_m, 2) << " | "
+              << fixed(100.0 * m.probability, 1) << " | " << fixed(100.0 * m.probability_low, 1) << "–"
+              << fixed(100.0 * m.probability_high, 1) << " | "
+              << (m.reliability_spacing_m ? fixed(*m.reliability_spacing_m, 3) : "none") << " | " << fixed(m.median_spacing_m, 3)
+              << " | " << m.unevaluated << " |\n";
+        o << "\n";
+    }
+    o << "## Charts\n\n";
+    for (std::size_t i = 0; i < charts.size(); ++i)
+        o << "![Figure " << i + 1 << "](" << charts[i].file << ")\n\nFigure " << i + 1 << ". " << markdown_text(charts[i].caption)
+          << "\n\n";
+    return o.str();
+}
+}  // namespace
+
 ReportBundle build_report(const results::DesignRecord& record) {
     const Site& site = record.site();
     const auto& s = *record.scenario;
@@ -322,6 +348,7 @@ ReportBundle build_report(const results::DesignRecord& record) {
     o << "<section><h2>Inputs</h2>\n" << inputs_table(record) << "</section>\n";
     o << "<section class=\"results-section\"><h2>Results for every drain and pattern</h2>\n" << results_table(record)
       << "</section>\n";
+    bundle.markdown = design_markdown(record, markdown_sections(record, bundle.charts));
     if (const auto& mc = record.studies.monte_carlo) {
         const auto& spec = *record.studies.monte_carlo_spec;
         o << "<section><h2>Reliability (Monte Carlo)</h2>\n<p>" << mc->samples << " samples, seed " << mc->seed

@@ -16,6 +16,7 @@ struct Chart {
 
 struct ReportBundle {
     std::string html;
+    std::string markdown;  // the same content as a Markdown note, the charts linked as the SVG files
     std::vector<Chart> charts;
 };
 

@@ -75,11 +75,14 @@ std::vector<SubLayerRow> sublayer_rows(const DesignRecord& record) {
     const Site& site = record.site();
     const DesignRow* row = record.result.best();
     if (!row && !record.result.rows.empty()) row = &record.result.rows.front();
-    if (!row || !site.loading || !site.ground.profile || !row->ultimate_settlement_m || !row->settlement_at_deadline_m)
-        return {};
-    const SoilProfile& profile = *site.ground.profile;
+    if (!row || !site.loading || !row->ultimate_settlement_m || !row->settlement_at_deadline_m) return {};
     const double load = site.loading->permanent_kPa();
     const double share = *row->settlement_at_deadline_m / *row->ultimate_settlement_m;
+    if (!site.ground.profile) {  // one uniform clay by mv: one row, the whole clay
+        const double h = site.ground.thickness_m;
+        return {{1, h / 2.0, h, std::nullopt, load, *row->ultimate_settlement_m, *row->settlement_at_deadline_m}};
+    }
+    const SoilProfile& profile = *site.ground.profile;
     const auto all = slices(profile);
     std::vector<SubLayerRow> out;
     std::size_t k = 0;

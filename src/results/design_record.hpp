@@ -43,7 +43,7 @@ struct SubLayerRow {
     std::size_t layer = 0;  // 1-based
     double depth_m = 0.0;
     double thickness_m = 0.0;
-    double sigma_v0_kPa = 0.0;
+    std::optional<double> sigma_v0_kPa;  // absent for a uniform clay given by mv alone (no unit weight)
     double delta_sigma_kPa = 0.0;
     double final_m = 0.0;
     double at_deadline_m = 0.0;

@@ -122,6 +122,12 @@ def main():
                 check(abs(got - expected) <= 1e-9 * max(1.0, abs(expected)), f"{scenario} {key} {field}: {got} vs {expected}")
                 compared += 1
         check(compared >= 20, f"{scenario}: only {compared} numbers compared")
+        # The Markdown note beside the report has the same sections and links every chart file.
+        note = open(os.path.join(out, "report.md"), encoding="utf-8").read()
+        for f in svgs:
+            check(f"]({f})" in note, f"{scenario}: report.md does not link {f}")
+        for section in ("## Inputs", "## Results", "## References", "## Cautions"):
+            check(section in note, f"{scenario}: report.md has no '{section}'")
         # The reliability table repeats sweep's Monte Carlo (same samples and seed), with a histogram per design.
         reliability = [t for t in root.iter("table") if t.get("class") == "reliability"]
         if "uncertain:" in open(os.path.join(SOURCE, scenario), encoding="utf-8").read():
