@@ -32,7 +32,9 @@ const char* const ignores[] = {"secondary compression", "rebound when the surcha
 Runner add_surcharge(CLI::App& app) {
     auto* cmd = app.add_subcommand("surcharge", "Surcharge needed for a removal day, or the removal day for a surcharge");
     auto o = std::make_shared<SurchargeOptions>();
-    cmd->add_option("FILE", o->files, "Scenario file with a 'loading' block and a settlement model; several files, or - for standard input")->required();
+    cmd->add_option("FILE", o->files,
+                    "Scenario file with a 'loading' block and a settlement model; several files, or - for standard input")
+        ->required();
     cmd->add_option("--drain", o->drain, "Drain product name")->required();
     cmd->add_option("--pattern", o->pattern, "triangular or square")->required()->check(pattern_check());
     cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(positive_number());

@@ -49,7 +49,9 @@ bool wanted(const SweepOptions& o, const std::string& study) {
 Runner add_sweep(CLI::App& app) {
     auto* cmd = app.add_subcommand("sweep", "Sensitivity (one at a time, grid) and Monte Carlo studies of the design");
     auto o = std::make_shared<SweepOptions>();
-    cmd->add_option("FILE", o->files, "Scenario file (YAML) with optional 'studies' and 'uncertain' blocks; several files, or - for standard input")->required();
+    cmd->add_option("FILE", o->files,
+                    "Scenario file (YAML) with optional 'studies' and 'uncertain' blocks; several files, or - for standard input")
+        ->required();
     cmd->add_option("--only", o->only, "Studies to run: tornado, grid, monte_carlo (comma-separated; default all)")
         ->delimiter(',')
         ->check(CLI::IsMember({"tornado", "grid", "monte_carlo"}));
