@@ -327,6 +327,15 @@ TEST(Cli, BatchOfThreeScenariosGivesThreeFoldersAndASummary) {
     EXPECT_EQ(run("check - - < " + source("demo/scenario.yaml")).exit_code, 2);
 }
 
+// The inputs table shows each layer's permeabilities as the numerical cell uses them: kh = ch·mv·γw,
+// by hand for layer 1 of configs/layered-partial-numerical.yaml: 2.5 m²/year / 31,557,600 s × 9e-4 m²/kN
+// × 9.81 kN/m³ = 6.994e-10 m/s.
+TEST(Cli, InputsShowTheNumericalCellsLayerPermeabilities) {
+    const fs::path out = scratch();
+    ASSERT_EQ(run("design " + source("configs/layered-partial-numerical.yaml") + " --out " + out.string()).exit_code, 0);
+    EXPECT_NE(slurp(out / "design.md").find("kh = 6.994e-10 m/s"), std::string::npos);
+}
+
 // The sub-layer table adds up to the design row it belongs to (the same computation, by slices).
 TEST(Cli, SubLayerTableAddsUpToTheDesignRow) {
     for (const char* file : {"configs/staged-surcharge.yaml", "configs/layered-staged-numerical.yaml",

@@ -8,6 +8,8 @@
 #include "report/format.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/names.hpp"
+#include "wickgrid/numerical.hpp"
+#include "wickgrid/permeability.hpp"
 #include "wickgrid/settlement.hpp"
 #include "wickgrid/units.hpp"
 #include "wickgrid/version.hpp"
@@ -116,6 +118,12 @@ DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& opt
     record.assumptions = assumptions(site);
     record.method_notes = method_notes(site);
     record.sublayers = sublayer_rows(record);
+    if (site.method.method == CellMethod::numerical && site.ground.profile && !record.result.rows.empty()) {
+        const DesignRow& row = record.result.rows.front();
+        for (const auto& l : numerical_cell_spec(site, site.product(row.drain), row.pattern, row.spacing_m).layers)
+            record.cell_layers.push_back({l.mv_m2_per_kN, permeability_from_consolidation_m_per_s(l.cv_m2_per_s, l.mv_m2_per_kN),
+                                          permeability_from_consolidation_m_per_s(l.ch_m2_per_s, l.mv_m2_per_kN)});
+    }
     return record;
 }
 
