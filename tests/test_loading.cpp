@@ -136,7 +136,7 @@ TEST(SettlementHistory, SurchargeAndResidual) {
 // (values by hand).
 TEST(LoadHistoryApplied, LiftsRampAndTheSurchargeComesOff) {
     const double day = wickgrid::units::seconds_per_day;
-    wickgrid::LoadHistory h{{{0.0, 20 * day, 30.0}}, wickgrid::Surcharge{25 * day, 30 * day, 50 * day, 10.0}};
+    wickgrid::LoadHistory h{{{0.0, 20 * day, 30.0}}, wickgrid::Surcharge{25 * day, 30 * day, 50 * day, 10.0}, std::nullopt};
     EXPECT_DOUBLE_EQ(h.applied_at_kPa(10 * day), 15.0);
     EXPECT_DOUBLE_EQ(h.applied_at_kPa(27.5 * day), 35.0);
     EXPECT_DOUBLE_EQ(h.applied_at_kPa(40 * day), 40.0);

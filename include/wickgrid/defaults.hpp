@@ -25,6 +25,10 @@ inline constexpr double verify_max_degree_step = 0.002;
 inline constexpr double verify_threshold = 0.02;  // |ΔU| above which verify warns
 inline constexpr int verify_points = 25;
 
+// Layered series method (layered.hpp): terms of the series and the cap a scenario may ask for.
+inline constexpr int layered_terms = 24;
+inline constexpr int max_layered_terms = 400;
+
 // Settlement.
 inline constexpr int slices_per_layer = 10;
 inline constexpr double secant_probe_kPa = 50.0;  // load for a layer's secant mv when no loading is given

@@ -22,9 +22,24 @@ struct Surcharge {
     double pressure_kPa = 0.0;
 };
 
+// Vacuum applied through the drains from start_s and released at end_s: pressure_kPa below
+// atmospheric at the drain head, falling linearly along the drain to tip_ratio × pressure at its tip
+// (the linear distribution of Indraratna, Sathananthan, Rujikiatkamjorn & Balasubramaniam 2005).
+struct VacuumLoad {
+    double start_s = 0.0;
+    double end_s = 0.0;
+    double pressure_kPa = 0.0;  // 0 < p <= 100 (at most one atmosphere)
+    double tip_ratio = 1.0;     // 0 <= k1 <= 1
+    // The vacuum at time t (kPa, >= 0): on for start < t <= end.
+    double pressure_at_kPa(double time_s) const noexcept {
+        return time_s > start_s && time_s <= end_s ? pressure_kPa : 0.0;
+    }
+};
+
 struct LoadHistory {
-    std::vector<LoadStage> stages;  // the permanent load
+    std::vector<LoadStage> stages;  // the permanent load (may be empty when a vacuum is given)
     std::optional<Surcharge> surcharge;
+    std::optional<VacuumLoad> vacuum;
 
     double permanent_kPa() const;
     double permanent_at_kPa(double time_s) const;  // applied so far (ramps pro rata)

@@ -42,7 +42,8 @@ double LoadHistory::end_of_construction_s() const {
 }
 
 void validate_load_history(const LoadHistory& history) {
-    if (history.stages.empty()) throw InputError("number of load stages", 0.0, "at least 1");
+    if (history.stages.empty() && !history.vacuum)
+        throw InputError("number of load stages", 0.0, "at least 1 (or a vacuum)");
     for (const auto& s : history.stages) {
         require_non_negative("stage start (s)", s.start_s);
         require_at_least("stage end (s)", s.end_s, s.start_s, "at least the stage start");
@@ -54,6 +55,16 @@ void validate_load_history(const LoadHistory& history) {
         require_at_least("surcharge end (s)", s.end_s, s.start_s, "at least the surcharge start");
         require_greater("surcharge removal (s)", s.removal_s, s.end_s, "after the surcharge is complete");
         require_positive("surcharge pressure (kPa)", s.pressure_kPa);
+    }
+    if (history.vacuum) {
+        const auto& v = *history.vacuum;
+        require_non_negative("vacuum start (s)", v.start_s);
+        require_greater("vacuum end (s)", v.end_s, v.start_s, "after the vacuum start");
+        require_positive("vacuum pressure (kPa)", v.pressure_kPa);
+        if (v.pressure_kPa > 100.0)
+            throw InputError("vacuum pressure (kPa)", v.pressure_kPa, "at most 100 kPa (one atmosphere)");
+        if (!(v.tip_ratio >= 0.0 && v.tip_ratio <= 1.0))
+            throw InputError("vacuum tip ratio", v.tip_ratio, "from 0 to 1");
     }
 }
 

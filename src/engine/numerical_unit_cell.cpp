@@ -37,6 +37,8 @@ struct NumericalCell::Impl {
     Vector storage;          // M diagonal: mv·V (0 at drain nodes)
     Vector volume;           // V (0 at drain nodes)
     double mv_volume = 0.0;  // Σ mv·V
+    Vector vacuum_source;    // right-hand side per kPa of vacuum at the drain head (drain-wall flux of w)
+    double reference = 1.0;  // Σ mv·V·(final effective stress increase): the permanent load's, or the steady vacuum's
     double total_volume = 0.0;
     double final_kPa = 1.0;
     double first_step_s = 0.0;
@@ -68,7 +70,7 @@ struct NumericalCell::Impl {
         const double q = load(t);
         double strain = 0.0;
         for (std::size_t k = 0; k < n; ++k) strain += storage[k] * (q - u[k]);
-        return strain / (mv_volume * final_kPa);
+        return strain / reference;
     }
     double degree_pore_pressure(const Vector& u, double t) const {
         const double q = load(t);
@@ -165,6 +167,10 @@ NumericalCell::NumericalCell(const NumericalCellSpec& spec, const NumericalMesh&
     const double gw = units::gamma_w_kN_per_m3;
     const bool ideal = std::isinf(spec.discharge_capacity_m3_per_s);
     std::vector<int> drain_node(nz, -1);
+    const bool vacuum = spec.has_drain && spec.loading && spec.loading->vacuum;
+    // −w/p at depth z: 1 at the drain head falling linearly to the tip ratio (Indraratna et al. 2005).
+    auto vacuum_shape = [&](double z) { return 1.0 - (1.0 - spec.loading->vacuum->tip_ratio) * z / length; };
+    std::vector<std::pair<std::size_t, double>> vacuum_terms;  // (unknown, right-hand side per kPa)
     std::size_t n = static_cast<std::size_t>(nr) * nz;
     if (spec.has_drain && !ideal)
         for (int j = 0; j < nz; ++j)
@@ -205,6 +211,12 @@ NumericalCell::NumericalCell(const NumericalCellSpec& spec, const NumericalMesh&
             const double g = 1.0 / (gw * std::log(rc[0] / rw) / (2 * pi * dz * k[0]));
             if (ideal) diagonal[index(0, j)] += g;
             else connect(index(0, j), static_cast<std::size_t>(drain_node[j]), g);
+            // Vacuum: the drain's pressure is w(z) plus the well-resistance excess, so the wall flux
+            // g(u − d − w) adds g·w to the soil node and −g·w to the drain node (w = −p·shape).
+            if (vacuum) {
+                vacuum_terms.emplace_back(index(0, j), -g * vacuum_shape(zc));
+                if (!ideal) vacuum_terms.emplace_back(static_cast<std::size_t>(drain_node[j]), g * vacuum_shape(zc));
+            }
         }
         // Vertical flow.
         if (!spec.radial_flow_only) {
@@ -240,6 +252,8 @@ NumericalCell::NumericalCell(const NumericalCellSpec& spec, const NumericalMesh&
     m.stiffness.setFromTriplets(t.begin(), t.end());
     m.mv_volume = m.storage.sum();
     m.total_volume = m.volume.sum();
+    m.vacuum_source = Vector::Zero(static_cast<long>(n));
+    for (const auto& [k, v] : vacuum_terms) m.vacuum_source[static_cast<long>(k)] += v;
 
     // Loads: instantaneous parts as jumps, ramps as a continuous source.
     if (spec.loading) {
@@ -248,6 +262,20 @@ NumericalCell::NumericalCell(const NumericalCellSpec& spec, const NumericalMesh&
         m.loads.stages = {{0.0, 0.0, 1.0}};
     }
     m.final_kPa = m.loads.permanent_kPa();
+    m.reference = m.mv_volume * m.final_kPa;
+    if (vacuum) {
+        const auto& v = *m.loads.vacuum;
+        m.breaks.push_back(v.start_s);
+        m.breaks.push_back(v.end_s);
+        if (!(m.final_kPa > 0.0)) {
+            // Vacuum alone: the degree is relative to the steady state under the vacuum held.
+            Eigen::SimplicialLDLT<Matrix> steady(m.stiffness);
+            if (steady.info() != Eigen::Success)
+                throw EvaluationError("numerical unit cell", "the steady state under the vacuum could not be solved");
+            const Vector u = steady.solve(Vector(v.pressure_kPa * m.vacuum_source));
+            m.reference = -m.storage.dot(u);
+        }
+    }
     for (const auto& s : m.loads.stages) {
         if (s.end_s == s.start_s) m.jumps.push_back({s.start_s, s.pressure_kPa});
         m.breaks.push_back(s.start_s);
@@ -283,6 +311,8 @@ public:
         // Drain nodes carry no storage and no load.
         for (long k = 0; k < rhs.size(); ++k)
             if (m_.storage[k] == 0.0) rhs[k] = 0.0;
+        // The vacuum over (t, t + h], read at the midpoint: steps stop where it starts and ends.
+        if (m_.loads.vacuum) rhs += m_.loads.vacuum->pressure_at_kPa(t + 0.5 * h) * m_.vacuum_source;
         return solver.solve(rhs);
     }
 
