@@ -85,7 +85,7 @@ BENCHMARK(BM_DesignInstantaneous)->Unit(benchmark::kMicrosecond);
 
 static void BM_DesignStaged(benchmark::State& state) {
     Site d = fixtures::typical_design(180.0);
-    d.loading = LoadHistory{{{0.0, units::days_to_seconds(30.0), 40.0}, {units::days_to_seconds(60.0), units::days_to_seconds(90.0), 40.0}}, std::nullopt};
+    d.loading = LoadHistory{{{0.0, units::days_to_seconds(30.0), 40.0}, {units::days_to_seconds(60.0), units::days_to_seconds(90.0), 40.0}}, std::nullopt, std::nullopt};
     for (auto _ : state) benchmark::DoNotOptimize(run_design(d));
 }
 BENCHMARK(BM_DesignStaged)->Unit(benchmark::kMillisecond);

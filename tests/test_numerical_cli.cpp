@@ -71,15 +71,15 @@ TEST(NumericalMethod, ScenarioErrorsNameTheMethod) {
         std::string text, key, message;
     };
     std::string partial = demo;
-    partial.replace(partial.find("drain_length_m: 14.0"), 20, "drain_length_m: 10.0");
+    partial.replace(partial.find("drain_length_m: 14.0"), 20, "method: analytical\ndrain_length_m: 10.0");
     const std::string layered = slurp(source("configs/layered-partial-numerical.yaml"));
     std::string analytical_layers = layered;
     analytical_layers.replace(analytical_layers.find("method: numerical"), 17, "method: analytical");
     std::string bad_method = layered;
     bad_method.replace(bad_method.find("method: numerical"), 17, "method: numerics");
     const std::vector<Row> rows{
-        {partial, "drain_length_m", "need 'method: numerical'"},
-        {analytical_layers, "clay.layers[0]", "need 'method: numerical'"},
+        {partial, "drain_length_m", "need 'method: layered_series' or 'method: numerical'"},
+        {analytical_layers, "clay.layers[0]", "need 'method: layered_series' or 'method: numerical'"},
         {bad_method, "method", "did you mean 'numerical'"},
         {layered + "\nnumerical_mesh_extra: 1\n", "numerical_mesh_extra", "did you mean 'numerical_mesh'"},
     };

@@ -81,7 +81,7 @@ std::unique_ptr<CellModel> make_cell_model(const Site& site, const DrainProductS
 // terms (quantity, value, what is allowed). Checked once per site, so that a scenario is refused at
 // the key that causes it before any search starts.
 struct MethodRefusal {
-    enum class Part { drain_length, layer_coefficients, clay_coefficients };
+    enum class Part { drain_length, layer_coefficients, clay_coefficients, vacuum };
     Part part;
     std::string quantity;
     double value;

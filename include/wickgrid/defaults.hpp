@@ -29,6 +29,10 @@ inline constexpr int verify_points = 25;
 inline constexpr int layered_terms = 24;
 inline constexpr int max_layered_terms = 400;
 
+// Vacuum: at most one atmosphere; without a tip ratio the vacuum reaches the drain tip undiminished.
+inline constexpr double max_vacuum_kPa = 100.0;
+inline constexpr double vacuum_tip_ratio = 1.0;
+
 // Settlement.
 inline constexpr int slices_per_layer = 10;
 inline constexpr double secant_probe_kPa = 50.0;  // load for a layer's secant mv when no loading is given

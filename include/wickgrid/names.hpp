@@ -38,7 +38,8 @@ inline constexpr std::array radial_theory_names{
     Named<RadialTheory>{RadialTheory::equal_strain_integral, "equal_strain_integral"}};
 // `method:` in a scenario and in JSON: the closed form is called "analytical" there.
 inline constexpr std::array cell_method_names{Named<CellMethod>{CellMethod::closed_form, "analytical"},
-                                              Named<CellMethod>{CellMethod::numerical, "numerical"}};
+                                              Named<CellMethod>{CellMethod::numerical, "numerical"},
+                                              Named<CellMethod>{CellMethod::layered, "layered_series"}};
 inline constexpr std::array criterion_names{
     Named<CriterionKind>{CriterionKind::degree, "degree"},
     Named<CriterionKind>{CriterionKind::residual_settlement, "residual_settlement"}};

@@ -67,6 +67,9 @@ public:
     // interpolation, so that any set of output times gives the same values (see cell_model.hpp).
     std::vector<NumericalPoint> march(double until_s) const;
     std::size_t unknowns() const noexcept { return unknowns_; }
+    // The uniform load (kPa) whose settlement on the cell's mv is the degrees' reference: the
+    // permanent load, or under a vacuum alone the mv-weighted mean steady suction.
+    double reference_load_kPa() const noexcept;
     std::size_t steps_taken() const noexcept { return steps_; }
 
     struct Impl;  // the assembled model (opaque)

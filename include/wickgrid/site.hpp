@@ -85,12 +85,13 @@ struct Criterion {
 };
 
 // How a unit cell is computed (names in names.hpp; implementations in cell_model.hpp).
-enum class CellMethod { closed_form, numerical };
+enum class CellMethod { closed_form, numerical, layered };
 
 struct MethodChoice {
     CellMethod method = CellMethod::closed_form;
     NumericalMesh mesh{defaults::design_radial_cells, defaults::design_vertical_cells,
                        defaults::design_max_degree_step, 0.0};
+    int series_terms = defaults::layered_terms;  // terms of the layered series method
 };
 
 struct SearchRange {

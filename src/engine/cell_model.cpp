@@ -106,6 +106,7 @@ struct MethodRow {
 constexpr MethodRow methods[] = {
     {CellMethod::closed_form, detail::make_closed_form_model, detail::closed_form_refusal, detail::closed_form_fast_limit},
     {CellMethod::numerical, detail::make_numerical_model, detail::numerical_refusal, nullptr},
+    {CellMethod::layered, detail::make_layered_model, detail::layered_refusal, nullptr},
 };
 
 const MethodRow& row_of(CellMethod method) {

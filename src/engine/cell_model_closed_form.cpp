@@ -88,7 +88,11 @@ std::optional<MethodRefusal> closed_form_refusal(const Site& site) {
     using Part = MethodRefusal::Part;
     if (site.ground.layered_flow())
         return MethodRefusal{Part::layer_coefficients, "layer cv/ch", 0.0,
-                             "given with 'method: numerical' only (the closed form takes one cv and ch for the clay)"};
+                             "given with 'method: layered_series' or 'method: numerical' only (the closed form takes one "
+                             "cv and ch for the clay)"};
+    if (site.loading && site.loading->vacuum)
+        return MethodRefusal{Part::vacuum, "vacuum pressure (kPa)", site.loading->vacuum->pressure_kPa,
+                             "used with 'method: layered_series' or 'method: numerical' (the closed form takes no vacuum)"};
     if (!site.ground.cv_m2_per_s || !site.ground.ch_m2_per_s)
         return MethodRefusal{Part::clay_coefficients, "clay cv and ch", 0.0,
                              "given for the clay as one layer with the closed form"};
@@ -97,7 +101,7 @@ std::optional<MethodRefusal> closed_form_refusal(const Site& site) {
         return MethodRefusal{Part::drain_length, "drain length (m)", l,
                              "equal to the clay thickness " + format_value(h) +
                                  " m with the closed form (drains that stop short of the clay base need "
-                                 "'method: numerical')"};
+                                 "'method: layered_series' or 'method: numerical')"};
     return std::nullopt;
 }
 

@@ -18,6 +18,11 @@ std::unique_ptr<CellModel> make_numerical_model(const Site& site, const DrainPro
                                                 double spacing_m);
 std::optional<MethodRefusal> numerical_refusal(const Site& site);
 
+std::unique_ptr<CellModel> make_layered_model(const Site& site, const DrainProductSpec& product, Pattern pattern,
+                                              double spacing_m);
+// The layered series method takes what the numerical cell takes: cv/ch for every layer.
+inline std::optional<MethodRefusal> layered_refusal(const Site& site) { return numerical_refusal(site); }
+
 // Ur that Carrillo's rule needs to give U with this Uv (1 where Uv is 1).
 inline double carrillo_radial(double combined, double vertical) {
     return vertical < 1.0 ? 1.0 - (1.0 - combined) / (1.0 - vertical) : 1.0;

@@ -121,6 +121,7 @@ public:
     }
 
     CellMethod method() const noexcept override { return CellMethod::numerical; }
+    double reference_load_kPa() const noexcept { return cell_.reference_load_kPa(); }
 
 private:
     static NumericalCellSpec without_drain(NumericalCellSpec spec) {
@@ -151,12 +152,13 @@ std::optional<MethodRefusal> numerical_refusal(const Site& site) {
 std::unique_ptr<CellModel> make_numerical_model(const Site& site, const DrainProductSpec& product, Pattern pattern,
                                                 double spacing_m) {
     const NumericalCellSpec spec = numerical_cell_spec(site, product, pattern, spacing_m);
-    std::optional<double> final_m;
-    if (site.has_settlement()) {
-        const auto ultimate = ultimate_settlement_function(site);
-        final_m = ultimate(site.loading->permanent_kPa()) - ultimate(0.0);
-    }
-    return std::make_unique<NumericalModel>(site, spec, spacing_m, final_m);
+    auto model = std::make_unique<NumericalModel>(site, spec, spacing_m, std::nullopt);
+    if (!site.has_settlement()) return model;
+    // The permanent fill's settlement; without fill, the settlement under the vacuum's mv-weighted
+    // mean steady suction, on the same settlement model.
+    const auto ultimate = ultimate_settlement_function(site);
+    const double q = site.loading->permanent_kPa() > 0.0 ? site.loading->permanent_kPa() : model->reference_load_kPa();
+    return std::make_unique<NumericalModel>(site, spec, spacing_m, ultimate(q) - ultimate(0.0));
 }
 
 }  // namespace wickgrid::detail

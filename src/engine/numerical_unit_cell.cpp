@@ -492,6 +492,8 @@ double NumericalCell::time_to_degree_s(double target) const {
     throw InputError("target degree of consolidation", target, "reachable under the load history");
 }
 
+double NumericalCell::reference_load_kPa() const noexcept { return impl_->reference / impl_->mv_volume; }
+
 double plane_strain_permeability_m_per_s(double kh_m_per_s, double mu) {
     require_positive("horizontal permeability kh (m/s)", kh_m_per_s);
     require_positive("radial flow factor mu", mu);

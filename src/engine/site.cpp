@@ -109,7 +109,8 @@ NumericalCellSpec numerical_cell_spec(const Site& site, const DrainProductSpec& 
     if (g.profile) {
         // Storage mv of each layer: given, or the secant of the e–log curve under the final load (a
         // probe load without loading), so that each layer keeps its share of settlement.
-        const double q = site.loading ? site.loading->permanent_kPa() : defaults::secant_probe_kPa;
+        double q = site.loading ? site.loading->permanent_kPa() : defaults::secant_probe_kPa;
+        if (site.loading && !(q > 0.0) && site.loading->vacuum) q = site.loading->vacuum->pressure_kPa;  // vacuum alone
         for (std::size_t i = 0; i < g.profile->layers.size(); ++i) {
             const SoilLayer& layer = g.profile->layers[i];
             const auto cv = layer.cv_m2_per_s ? layer.cv_m2_per_s : g.cv_m2_per_s;

@@ -41,7 +41,7 @@ std::string notes_under_table(const results::DesignRecord& record) {
     text += "; the time column is when the criterion (" + results::criterion_label(site) + ") is first met there. " +
             "μ mean is the depth mean of μ(z). '+' marks a limit capped at the largest spacing; '*' an infeasible "
             "row evaluated at the minimum spacing.";
-    if (site.loading || site.method.method == CellMethod::numerical)
+    if (site.loading || site.method.method != CellMethod::closed_form)
         text += " Ur is the radial degree that Carrillo's rule needs to give U.";
     return text;
 }
@@ -242,6 +242,8 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
                                     (site.method.method == CellMethod::numerical
                                          ? ", mesh " + std::to_string(site.method.mesh.radial_cells) + " × " +
                                                std::to_string(site.method.mesh.vertical_cells) + " cells"
+                                     : site.method.method == CellMethod::layered
+                                         ? ", " + std::to_string(site.method.series_terms) + " terms"
                                          : std::string()));
     rows.emplace_back("spacings considered", fixed(site.range.bounds.min_m, 2) + "–" + fixed(site.range.bounds.max_m, 2) +
                                                  " m, rounded down to " + fixed(site.range.increment_m, 2) + " m");
@@ -396,7 +398,7 @@ std::string curve_table(const Site& site, const results::Curve& curve) {
     std::vector<std::string> header{"day", "Uv %", "Ur %", "U %"};
     if (settle) header.push_back("settlement mm");
     out << text_table(header, rows, 0);
-    if (site.loading || curve.method == CellMethod::numerical)
+    if (site.loading || curve.method != CellMethod::closed_form)
         out << "\nDegrees are relative to the final permanent load; Ur is the radial degree that Carrillo's rule needs "
                "to give U.\n";
     out << "\n" << results::caution_block();

@@ -118,7 +118,7 @@ DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& opt
     record.assumptions = assumptions(site);
     record.method_notes = method_notes(site);
     record.sublayers = sublayer_rows(record);
-    if (site.method.method == CellMethod::numerical && site.ground.profile && !record.result.rows.empty()) {
+    if (site.method.method != CellMethod::closed_form && site.ground.profile && !record.result.rows.empty()) {
         const DesignRow& row = record.result.rows.front();
         for (const auto& l : numerical_cell_spec(site, site.product(row.drain), row.pattern, row.spacing_m).layers)
             record.cell_layers.push_back({l.mv_m2_per_kN, permeability_from_consolidation_m_per_s(l.cv_m2_per_s, l.mv_m2_per_kN),
@@ -176,12 +176,13 @@ std::vector<std::string> assumptions(const Site& site) {
     std::vector<std::string> out;
     const Ground& g = site.ground;
     const bool numerical = site.method.method == CellMethod::numerical;
+    const bool series = site.method.method == CellMethod::layered;
     const std::size_t layers = g.profile ? g.profile->layers.size() : 1;
     if (g.layered_flow())
         out.push_back("Consolidation coefficients layer by layer (" + std::to_string(layers) +
                       " layers; a layer without its own cv or ch takes the clay's).");
     else
-        out.push_back("Uniform consolidation coefficients (cv, ch" + std::string(numerical ? "" : ", kh") +
+        out.push_back("Uniform consolidation coefficients (cv, ch" + std::string(numerical || series ? "" : ", kh") +
                       ") over the clay" + (layers > 1 ? " (" + std::to_string(layers) + " layers for settlement only)." : "."));
     const double l = site.installation.drain_length_m, h = g.thickness_m;
     if (std::fabs(l - h) <= 1e-9 * h)
@@ -192,8 +193,18 @@ std::vector<std::string> assumptions(const Site& site) {
     if (!site.loading) {
         out.push_back("The load is applied at once at day 0.");
     } else {
-        out.push_back("Load applied in " + std::to_string(site.loading->stages.size()) +
-                      " stage(s) as tabled in the inputs; degrees relative to the final permanent load.");
+        if (!site.loading->stages.empty())
+            out.push_back("Load applied in " + std::to_string(site.loading->stages.size()) +
+                          " stage(s) as tabled in the inputs; degrees relative to the final permanent load.");
+        else
+            out.push_back("No fill: degrees relative to the steady state under the vacuum held.");
+        if (const auto& v = site.loading->vacuum)
+            out.push_back("Vacuum of " + fixed(v->pressure_kPa, 0) + " kPa through the drains from day " +
+                          fixed(days(v->start_s), 0) + " to day " + fixed(days(v->end_s), 0) + ", falling linearly to " +
+                          fixed(v->tip_ratio, 2) +
+                          " of it at the drain tip; the clay's drainage faces stay at zero excess pore pressure (no "
+                          "vacuum under the membrane in the model), so suction near them is understated." +
+                          (numerical ? "" : " Settlement held at its value when the vacuum is released (rebound ignored)."));
         if (site.loading->surcharge)
             out.push_back(numerical ? "Surcharge removal unloads the numerical cell with the same mv (no separate "
                                       "rebound stiffness)."
@@ -202,7 +213,10 @@ std::vector<std::string> assumptions(const Site& site) {
     }
     out.push_back(numerical ? "Numerical unit cell: coupled radial and vertical flow, free strain, the drain as a "
                               "conduit of capacity qw."
-                            : "Closed form: equal-strain radial flow, vertical and radial flow combined by Carrillo's rule.");
+                  : series ? "Layered series: equal-strain radial flow to the drain folded into one-dimensional "
+                             "consolidation layer by layer (no radial term below a drain's tip), solved as a series of " +
+                                 std::to_string(site.method.series_terms) + " terms."
+                           : "Closed form: equal-strain radial flow, vertical and radial flow combined by Carrillo's rule.");
     if (site.has_settlement())
         out.push_back(g.profile ? "Settlement by one-dimensional e–log σ' (or mv) per layer over " +
                                       std::to_string(g.profile->slices_per_layer) + " slices per layer."
@@ -219,8 +233,19 @@ std::vector<std::string> assumptions(const Site& site) {
 
 std::vector<std::string> method_notes(const Site& site) {
     const bool numerical = site.method.method == CellMethod::numerical;
+    const bool series = site.method.method == CellMethod::layered;
     std::vector<std::string> notes;
-    if (numerical) {
+    if (series) {
+        notes.push_back(
+            "Method: the spectral method for stratified ground with vertical and radial drainage (Walker & Indraratna "
+            "2009): mv·∂ū/∂t = ∂/∂z(kv/γw·∂ū/∂z) − η(z)(ū − w) + mv·∂σ/∂t with η = 2kh/(γw·re²·μ(z)) along the drain "
+            "and 0 below its tip; ū as a series of " + std::to_string(site.method.series_terms) +
+            " eigenfunctions of uniform consolidation, solved exactly in time (Galerkin, generalised eigenproblem). "
+            "μ(z) is Hansbo's (1981) smear μ plus well resistance π·z(2l − z)·kh/qw with the kh of the layer at that "
+            "depth; each layer's kv = cv·mv·γw and kh = ch·mv·γw. Uv is the same series without a drain; Ur is the "
+            "radial degree that Carrillo's (1942) rule would need to give U.");
+        if (site.ground.profile) notes.push_back("Storage mv of an e–log layer: the secant under the final permanent load.");
+    } else if (numerical) {
         notes.push_back(
             "Method: numerical unit cell (axisymmetric finite volumes, coupled radial and vertical flow, the drain as a "
             "conduit of capacity qw, layered cv/ch/mv, drains that may stop short of the clay base; backward Euler). "
@@ -254,10 +279,15 @@ std::vector<std::string> method_notes(const Site& site) {
     if (site.loading)
         notes.push_back("Staged loading: " +
                         std::string(numerical ? "the load history drives the numerical cell directly"
+                                    : series  ? "each load increment and ramp enters the series exactly in time"
                                               : "linear superposition of the unit cell's response to each load increment, "
                                                 "ramps integrated by adaptive Gauss–Kronrod quadrature (checked against "
                                                 "Olson 1977)") +
                         "; degrees are relative to the final permanent load.");
+    if (site.loading && site.loading->vacuum)
+        notes.push_back("Vacuum through the drains: w(z) = −p·(1 − (1 − k1)·z/L) along the drain, the linear loss of "
+                        "Indraratna et al. (2005); without fill the degrees are relative to the steady state under the "
+                        "vacuum held, and the final settlement is that of the vacuum's mv-weighted mean steady suction.");
     if (site.has_settlement())
         notes.push_back("Settlement: one-dimensional e–log σ' (Cc above σ'p, Cr below) or mv per layer, summed over "
                         "slices; settlement at a time is U × the final primary settlement.");
@@ -283,7 +313,9 @@ std::vector<std::string> reference_keys(const DesignRecord& record) {
         if (std::find(keys.begin(), keys.end(), key) == keys.end()) keys.push_back(key);
     };
     if (closed_form) add("terzaghi1925");  // the numerical cell solves the vertical flow itself
+    if (site.method.method == CellMethod::layered) add("walker_indraratna2009");
     for (const char* key : {"barron1948", "hansbo1981", "carrillo1942"}) add(key);
+    if (site.loading && site.loading->vacuum) add("indraratna2005");
     if (closed_form && site.installation.smear_shape != SmearShape::constant)
         add("walker_indraratna2006");
     for (const auto& d : record.scenario->drains)

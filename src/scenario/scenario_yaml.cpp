@@ -174,7 +174,7 @@ private:
 const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "drains", "drain_length_m",
                                         "drain_outlets", "installation", "patterns", "spacing", "studies",
                                         "uncertain", "fill_unit_weight_kN_per_m3", "loading", "method",
-                                        "numerical_mesh", "project"};
+                                        "numerical_mesh", "project", "series_terms"};
 
 void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "target");
@@ -434,6 +434,7 @@ std::string refusal_key(const Scenario& s, const MethodRefusal& why) {
     switch (why.part) {
         case MethodRefusal::Part::drain_length: return "drain_length_m";
         case MethodRefusal::Part::clay_coefficients: return "clay";
+        case MethodRefusal::Part::vacuum: return "loading.vacuum";
         case MethodRefusal::Part::layer_coefficients: break;
     }
     const auto& layers = s.site.ground.profile->layers;
@@ -454,10 +455,12 @@ void check_physics(const Reader& r, Scenario& s) {
     if (const auto why = method_refusal(site)) {
         const std::string key = refusal_key(s, *why);
         if (why->part == MethodRefusal::Part::layer_coefficients && site.method.method == CellMethod::closed_form)
-            s.fail_at(key, "layer cv/ch values need 'method: numerical' (the closed form takes one cv and ch for the clay)");
+            s.fail_at(key, "layer cv/ch values need 'method: layered_series' or 'method: numerical' (the closed form "
+                           "takes one cv and ch for the clay)");
         if (why->part == MethodRefusal::Part::drain_length)
             s.fail_at(key, format_value(length) + " is not allowed: it must equal clay.thickness_m = " +
-                               format_value(thickness) + " m (drains that stop short of the clay base need 'method: numerical')");
+                               format_value(thickness) + " m (drains that stop short of the clay base need 'method: layered_series' "
+                                                                 "or 'method: numerical')");
         s.fail_at(key, why->quantity + " must be " + why->allowed);
     }
     const double ds = site.installation.smear_diameter_m(), dm = site.installation.mandrel_diameter_m;
@@ -693,9 +696,12 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
     if (!root["loading"]) return;
     const YAML::Node node = root["loading"];
     r.expect_map(node, "loading");
-    r.allow_keys(node, "loading", {"stages", "surcharge"});
-    const YAML::Node stages = r.required(node, "loading", "stages");
-    if (!stages.IsSequence() || stages.size() == 0) r.fail(stages, "loading.stages", "must be a list of at least one stage");
+    r.allow_keys(node, "loading", {"stages", "surcharge", "vacuum"});
+    // Stages may be left out when a vacuum is the load.
+    const YAML::Node stages = node["vacuum"] && !node["stages"] ? YAML::Node(YAML::NodeType::Sequence)
+                                                                 : r.required(node, "loading", "stages");
+    if (!stages.IsSequence() || (stages.size() == 0 && !node["vacuum"]))
+        r.fail(stages, "loading.stages", "must be a list of at least one stage");
     LoadHistory h;
     for (std::size_t i = 0; i < stages.size(); ++i) {
         const std::string path = "loading.stages[" + std::to_string(i) + "]";
@@ -725,12 +731,35 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
         s.surcharge_max_height_m = r.optional_number(sc, path, "max_height_m", positive("m"));
         h.surcharge = sur;
     }
+    if (const YAML::Node vac = node["vacuum"]) {
+        const std::string path = "loading.vacuum";
+        r.expect_map(vac, path);
+        r.allow_keys(vac, path, {"pressure_kPa", "start_day", "end_day", "tip_ratio"});
+        VacuumLoad v;
+        v.pressure_kPa = r.number(vac, path, "pressure_kPa",
+                                  {0.0, false, defaults::max_vacuum_kPa, true, "kPa (one atmosphere at most)"});
+        const double horizon_days = defaults::search_horizon_years * units::seconds_per_year / units::seconds_per_day;
+        const double start = r.number(vac, path, "start_day", {0.0, true, horizon_days, false, "days"});
+        const double end = r.number(vac, path, "end_day",
+                                    {start, false, horizon_days, true, "days (after start_day, within the 100-year record)"});
+        v.start_s = units::days_to_seconds(start);
+        v.end_s = units::days_to_seconds(end);
+        v.tip_ratio = r.optional_number(vac, path, "tip_ratio", {0.0, true, 1.0, true, "(vacuum at the drain tip / at its head)"})
+                          .value_or(defaults::vacuum_tip_ratio);
+        h.vacuum = v;
+    }
     s.site.loading = h;
 }
 
 void read_method(const Reader& r, const YAML::Node& root, Scenario& s) {
     MethodChoice& m = s.site.method;
     if (root["method"]) m.method = r.choice(root["method"], "method", cell_method_names);
+    if (root["series_terms"]) {
+        const double terms = r.number(root, "", "series_terms",
+                                      {2.0, true, static_cast<double>(defaults::max_layered_terms), true, "(whole number)"});
+        if (std::floor(terms) != terms) r.fail(root["series_terms"], "series_terms", "must be a whole number");
+        m.series_terms = static_cast<int>(terms);
+    }
     if (const YAML::Node mesh = root["numerical_mesh"]) {
         r.expect_map(mesh, "numerical_mesh");
         r.allow_keys(mesh, "numerical_mesh", {"radial_cells", "vertical_cells", "max_degree_step"});
@@ -751,6 +780,14 @@ void read_method(const Reader& r, const YAML::Node& root, Scenario& s) {
                        std::to_string(cells) + " cells is not allowed: a design solves hundreds of cells, so at most " +
                        std::to_string(defaults::max_design_mesh_cells) + " (use `verify` for a finer reference mesh)");
     }
+}
+
+// Without a `method:` key: the closed form for one uniform clay with full drains and no vacuum, the
+// layered series otherwise (layers with their own cv/ch, drains stopping short, vacuum).
+CellMethod default_method(const Site& site) {
+    const bool partial = std::fabs(site.installation.drain_length_m - site.ground.thickness_m) > 1e-9 * site.ground.thickness_m;
+    const bool vacuum = site.loading && site.loading->vacuum;
+    return site.ground.layered_flow() || partial || vacuum ? CellMethod::layered : CellMethod::closed_form;
 }
 
 void check_settlement_criterion(const Scenario& s) {
@@ -787,6 +824,7 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     in.drain_length_m = r.optional_number(root, "", "drain_length_m", positive("m")).value_or(s.site.ground.thickness_m);
     if (!root["drain_length_m"]) s.marks["drain_length_m"] = s.marks["clay.thickness_m"];
     if (root["drain_outlets"]) in.outlets = r.choice(root["drain_outlets"], "drain_outlets", outlet_names);
+    if (!root["method"]) s.site.method.method = default_method(s.site);
     read_installation(r, root, s);
     read_patterns(r, root, s);
     read_spacing(r, root, s);

@@ -1,0 +1,87 @@
+// The layered series cell model: LayeredCell (layered_spectral.cpp) on the site's layers, partial
+// drains, load history and vacuum. Uv is the same series without a drain; Ur follows from Carrillo's
+// rule. Settlement is U × the final primary settlement of the settlement model.
+#include <optional>
+
+#include "cell_model_methods.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/layered.hpp"
+#include "wickgrid/units.hpp"
+
+namespace wickgrid::detail {
+
+namespace {
+CellFigures figures_of(const NumericalCellSpec& spec, const LayeredCell& cell) {
+    CellFigures f;
+    f.equivalent_diameter_m = spec.drain_diameter_m;
+    f.smear_diameter_m = spec.smear_diameter_m;
+    f.influence_diameter_m = spec.influence_diameter_m;
+    f.n = f.influence_diameter_m / f.equivalent_diameter_m;
+    f.s = f.smear_diameter_m / f.equivalent_diameter_m;
+    f.mu_smear = cell.mu_smear();
+    f.mu_depth_mean = cell.mu_depth_mean();
+    f.drain_length_m = spec.drain_length_m;
+    return f;
+}
+
+// The vertical-flow-alone counterpart: no drain, no vacuum; absent when no fill is placed (vacuum
+// alone acts only through the drains, so Uv is 0 there).
+std::optional<LayeredCell> vertical_of(NumericalCellSpec spec, RadialTheory theory, int terms) {
+    spec.has_drain = false;
+    if (spec.loading) {
+        spec.loading->vacuum.reset();
+        if (spec.loading->stages.empty()) return std::nullopt;
+    }
+    return LayeredCell(spec, theory, terms);
+}
+
+class LayeredModel final : public CellModel {
+public:
+    LayeredModel(const NumericalCellSpec& spec, LayeredCell cell, std::optional<LayeredCell> vertical,
+                 std::optional<double> final_m)
+        : CellModel(figures_of(spec, cell), final_m), cell_(std::move(cell)), vertical_(std::move(vertical)) {}
+
+    std::vector<Degrees> degrees(const std::vector<double>& times_s) const override {
+        std::vector<Degrees> out;
+        out.reserve(times_s.size());
+        for (const double t : times_s) {
+            const double u = cell_.degree(t), uv = vertical_ ? vertical_->degree(t) : 0.0;
+            out.push_back({uv, carrillo_radial(u, uv), u});
+        }
+        return out;
+    }
+
+    std::vector<double> combined(const std::vector<double>& times_s) const override {
+        std::vector<double> out;
+        out.reserve(times_s.size());
+        for (const double t : times_s) out.push_back(cell_.degree(t));
+        return out;
+    }
+
+    double eventual_degree() const override { return cell_.eventual_degree(); }
+    CellMethod method() const noexcept override { return CellMethod::layered; }
+
+private:
+    LayeredCell cell_;
+    std::optional<LayeredCell> vertical_;
+};
+}  // namespace
+
+std::unique_ptr<CellModel> make_layered_model(const Site& site, const DrainProductSpec& product, Pattern pattern,
+                                              double spacing_m) {
+    const NumericalCellSpec spec = numerical_cell_spec(site, product, pattern, spacing_m);
+    const RadialTheory theory = site.installation.theory;
+    const int terms = site.method.series_terms;
+    LayeredCell cell(spec, theory, terms);
+    std::optional<double> final_m;
+    if (site.has_settlement()) {
+        // The permanent fill's settlement; without fill, the settlement under the vacuum's mv-weighted
+        // mean steady suction, on the same settlement model.
+        const auto ultimate = ultimate_settlement_function(site);
+        const double q = site.loading->permanent_kPa() > 0.0 ? site.loading->permanent_kPa() : cell.reference_load_kPa();
+        final_m = ultimate(q) - ultimate(0.0);
+    }
+    return std::make_unique<LayeredModel>(spec, std::move(cell), vertical_of(spec, theory, terms), final_m);
+}
+
+}  // namespace wickgrid::detail
