@@ -53,7 +53,9 @@ inline constexpr std::array study_input_names{
     Named<StudyInput>{StudyInput::smear_diameter_ratio, "smear_diameter_ratio"},
     Named<StudyInput>{StudyInput::smear_permeability_ratio, "smear_permeability_ratio"},
     Named<StudyInput>{StudyInput::discharge_capacity, "discharge_capacity_m3_per_year"},
-    Named<StudyInput>{StudyInput::discharge_capacity_factor, "discharge_capacity_factor"}};
+    Named<StudyInput>{StudyInput::discharge_capacity_factor, "discharge_capacity_factor"},
+    Named<StudyInput>{StudyInput::ch_factor, "ch_factor"},
+    Named<StudyInput>{StudyInput::cv_factor, "cv_factor"}};
 // What a chart or a printed table calls each study input (the scenario keys above stay the names).
 inline constexpr std::array study_input_labels{
     Named<StudyInput>{StudyInput::ch, "ch, horizontal coefficient of consolidation (m²/year)"},
@@ -62,7 +64,9 @@ inline constexpr std::array study_input_labels{
     Named<StudyInput>{StudyInput::smear_diameter_ratio, "ds/dm, smear zone over mandrel diameter"},
     Named<StudyInput>{StudyInput::smear_permeability_ratio, "kh/ks, undisturbed over smeared permeability"},
     Named<StudyInput>{StudyInput::discharge_capacity, "qw, drain discharge capacity (m³/year)"},
-    Named<StudyInput>{StudyInput::discharge_capacity_factor, "factor on each product's qw"}};
+    Named<StudyInput>{StudyInput::discharge_capacity_factor, "factor on each product's qw"},
+    Named<StudyInput>{StudyInput::ch_factor, "factor on the ch of every clay layer"},
+    Named<StudyInput>{StudyInput::cv_factor, "factor on the cv of every clay layer"}};
 
 inline constexpr std::array distribution_names{Named<DistributionKind>{DistributionKind::normal, "normal"},
                                                Named<DistributionKind>{DistributionKind::lognormal, "lognormal"},

@@ -22,6 +22,8 @@ enum class StudyInput {
     smear_permeability_ratio,  // kh/ks
     discharge_capacity,        // qw of the drain product (a site with one product only)
     discharge_capacity_factor, // a factor on each product's own qw (keeps the products apart)
+    ch_factor,                 // a factor on the ch of every layer and of the clay (keeps the layers apart)
+    cv_factor,                 // a factor on the cv of every layer and of the clay
 };
 
 std::string_view to_string(StudyInput input);  // the scenario key, e.g. "ch_m2_per_year"

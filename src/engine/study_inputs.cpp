@@ -52,6 +52,17 @@ Site with_input(const Site& base, StudyInput input, double value_si) {
         case StudyInput::discharge_capacity_factor:
             for (auto& p : d.products) p.discharge_capacity_m3_per_s *= value_si;
             break;
+        case StudyInput::ch_factor:
+        case StudyInput::cv_factor: {
+            const bool ch = input == StudyInput::ch_factor;
+            auto scale = [&](std::optional<double>& c) {
+                if (c) *c *= value_si;
+            };
+            scale(ch ? g.ch_m2_per_s : g.cv_m2_per_s);
+            if (g.profile)
+                for (auto& layer : g.profile->layers) scale(ch ? layer.ch_m2_per_s : layer.cv_m2_per_s);
+            break;
+        }
     }
     return d;
 }

@@ -45,6 +45,10 @@ void apply(CellSpec& cell, const CellSpec& product, const Site& base, StudyInput
         case StudyInput::discharge_capacity_factor:
             cell.drain.discharge_capacity_m3_per_s = value * product.drain.discharge_capacity_m3_per_s;
             break;
+        case StudyInput::ch_factor:
+            apply(cell, product, base, StudyInput::ch, value * product.clay.ch_m2_per_s);
+            break;
+        case StudyInput::cv_factor: cell.clay.cv_m2_per_s = value * product.clay.cv_m2_per_s; break;
     }
 }
 }  // namespace

@@ -241,8 +241,8 @@ std::vector<std::string> method_notes(const Site& site) {
             "2009): mv·∂ū/∂t = ∂/∂z(kv/γw·∂ū/∂z) − η(z)(ū − w) + mv·∂σ/∂t with η = 2kh/(γw·re²·μ(z)) along the drain "
             "and 0 below its tip; ū as a series of " + std::to_string(site.method.series_terms) +
             " eigenfunctions of uniform consolidation, solved exactly in time (Galerkin, generalised eigenproblem). "
-            "μ(z) is Hansbo's (1981) smear μ plus well resistance π·z(2l − z)·kh/qw with the kh of the layer at that "
-            "depth; each layer's kv = cv·mv·γw and kh = ch·mv·γw. Uv is the same series without a drain; Ur is the "
+            "μ(z) is the smear μ plus the well resistance π·z(2l − z)·kh/qw of Hansbo (1981), with the kh of the "
+            "layer at that depth; each layer's kv = cv·mv·γw and kh = ch·mv·γw. Uv is the same series without a drain; Ur is the "
             "radial degree that Carrillo's (1942) rule would need to give U.");
         if (site.ground.profile) notes.push_back("Storage mv of an e–log layer: the secant under the final permanent load.");
     } else if (numerical) {
