@@ -11,6 +11,7 @@
 #include "report/design_report.hpp"
 #include "wickgrid/names.hpp"
 #include "wickgrid/numerical.hpp"
+#include "wickgrid/plane_strain.hpp"
 #include "wickgrid/units.hpp"
 
 namespace wickgrid::cli {
@@ -39,6 +40,44 @@ std::optional<Equivalents> equivalents(const Site& site, const CellFigures& f) {
     return Equivalents{plane_strain_permeability_m_per_s(clay.kh_m_per_s, f.mu_depth_mean),
                        equivalent_vertical_permeability_m_per_s(kv, clay.kh_m_per_s, f.mu_depth_mean, l,
                                                                 f.influence_diameter_m)};
+}
+std::string with_unit(double v, const char* unit) {
+    char text[64];
+    std::snprintf(text, sizeof text, "%.3e %s", v, unit);
+    return text;
+}
+
+// The plane-strain parameters of each layer for one design row, as JSON and as lines of the table.
+nlohmann::json plane_strain_json(const std::vector<PlaneStrainLayer>& layers, std::ostringstream& table) {
+    using nlohmann::json;
+    auto optional = [](const std::optional<double>& v) { return v ? json(*v) : json(nullptr); };
+    json out = json::array();
+    char line[512];
+    for (std::size_t i = 0; i < layers.size(); ++i) {
+        const PlaneStrainLayer& p = layers[i];
+        json entry{{"layer", i + 1}, {"top_m", p.top_m}, {"bottom_m", p.bottom_m}, {"kh_m_per_s", p.kh_m_per_s}};
+        if (!p.has_drain) {
+            for (const char* key : {"mu_mean", "hird_khp_m_per_s", "khp_m_per_s", "smear_khp_m_per_s", "qz_m2_per_s"})
+                entry[key] = nullptr;
+            std::snprintf(line, sizeof line, "      layer %zu (%.2f–%.2f m): below the drain tip, no drain\n", i + 1,
+                          p.top_m, p.bottom_m);
+        } else {
+            entry["mu_mean"] = p.mu_mean;
+            entry["hird_khp_m_per_s"] = p.hird_khp_m_per_s;
+            entry["khp_m_per_s"] = p.khp_m_per_s;
+            entry["smear_khp_m_per_s"] = optional(p.smear_khp_m_per_s);
+            entry["qz_m2_per_s"] = optional(p.qz_m2_per_s);
+            std::snprintf(line, sizeof line,
+                          "      layer %zu (%.2f–%.2f m): kh %.3e; Hird et al. (1992) khp %.3e; Indraratna & Redana "
+                          "(2000) khp %.3e, smear k'hp %s, qz %s\n",
+                          i + 1, p.top_m, p.bottom_m, p.kh_m_per_s, p.hird_khp_m_per_s, p.khp_m_per_s,
+                          p.smear_khp_m_per_s ? with_unit(*p.smear_khp_m_per_s, "m/s").c_str() : "none",
+                          p.qz_m2_per_s ? with_unit(*p.qz_m2_per_s, "m²/s").c_str() : "none (ideal drain)");
+        }
+        table << line;
+        out.push_back(entry);
+    }
+    return out;
 }
 }  // namespace
 
@@ -112,6 +151,9 @@ Runner add_verify(CLI::App& app) {
                                   eq->plane_strain_kh_m_per_s, eq->equivalent_kv_m_per_s);
                     table << line;
                 }
+                rows.back()["plane_strain_layers"] = plane_strain_json(
+                    plane_strain_layers(numerical_cell_spec(site, product, row.pattern, row.spacing_m), design->figures().mu_smear),
+                    table);
             }
             if (o->json) {
                 item.print(json{{"schema", 1}, {"design_method", design_method}, {"threshold", o->threshold},
@@ -128,11 +170,22 @@ Runner add_verify(CLI::App& app) {
                                   ? "; with a surcharge, also the closed form's rule of holding settlement after removal"
                                   : "")
                           << ".\n";
+                else if (site.method.method == CellMethod::layered)
+                    table << "\nThe layered series is equal strain layer by layer (Walker & Indraratna 2009); the reference "
+                             "is free strain with coupled radial and vertical flow and the drain as a conduit. Differences of "
+                             "about 0.01 in U are expected between the two"
+                          << (site.loading && (site.loading->surcharge || site.loading->vacuum)
+                                  ? "; after a surcharge or vacuum is removed, also the series' rule of holding settlement "
+                                    "(the reference lets the clay swell back)"
+                                  : "")
+                          << ".\n";
                 else
                     table << "\nThe design used the numerical cell on its own mesh; the reference repeats it on a finer mesh "
-                             "and smaller time steps, so the difference measures the design mesh's discretisation error. "
-                             "Equivalent plane-strain and 1-D parameters are given for a uniform clay with the closed form "
-                             "only.\n";
+                             "and smaller time steps, so the difference measures the design mesh's discretisation error.\n";
+                table << "Plane-strain parameters per layer: khp = (khp/kh)·kh with khp/kh = (2/3)/(ln n − 0.75), the "
+                         "smear zone's k'hp and the drain's qz matching smear and well resistance (Indraratna & Redana "
+                         "2000); Hird et al. (1992) khp = 2kh/(3μ) with the layer's depth-mean μ. Equivalent 1-D kv "
+                         "(Chai et al. 2001) for a uniform clay with the closed form only.\n";
                 table << "\n" << results::caution_block();
                 item.print(table.str());
             }

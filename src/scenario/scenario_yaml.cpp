@@ -210,6 +210,7 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
     for (std::size_t i = 0; i < node.size(); ++i) {
         const std::string path = "clay.layers[" + std::to_string(i) + "]";
         const YAML::Node l = node[i];
+        r.remember(path, l);
         r.expect_map(l, path);
         r.allow_keys(l, path, {"thickness_m", "unit_weight_kN_per_m3", "e0", "cc", "cr", "preconsolidation_kPa", "ocr",
                                "mv_m2_per_kN", "cv_m2_per_year", "ch_m2_per_year"});
@@ -733,6 +734,7 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
     }
     if (const YAML::Node vac = node["vacuum"]) {
         const std::string path = "loading.vacuum";
+        r.remember(path, vac);
         r.expect_map(vac, path);
         r.allow_keys(vac, path, {"pressure_kPa", "start_day", "end_day", "tip_ratio"});
         VacuumLoad v;

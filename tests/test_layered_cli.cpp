@@ -1,0 +1,93 @@
+// Layered ground and vacuum through the site model and the commands: the default method, located
+// errors for bad input, and the figures the commands share.
+#include <gtest/gtest.h>
+
+#include <nlohmann/json.hpp>
+
+#include "cli_helpers.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/cell_model.hpp"
+
+using namespace wickgrid;
+using namespace wickgrid::cli_testing;
+
+namespace {
+const char* five = "configs/layered-five-staged.yaml";
+const char* vacuum = "configs/vacuum-with-fill.yaml";
+}  // namespace
+
+TEST(LayeredSite, TheDefaultMethodFollowsTheGround) {
+    // Layers with their own cv/ch, drains stopping short and a vacuum take the layered series; one
+    // uniform clay with full drains keeps the closed form.
+    EXPECT_EQ(scenario::load_scenario(source(five)).site.method.method, CellMethod::layered);
+    EXPECT_EQ(scenario::load_scenario(source(vacuum)).site.method.method, CellMethod::layered);
+    EXPECT_EQ(scenario::load_scenario(source("demo/scenario.yaml")).site.method.method, CellMethod::closed_form);
+    const auto partial = scenario::parse_scenario(demo_with("drain_length_m: 14.0", "drain_length_m: 10.0"), "p.yaml");
+    EXPECT_EQ(partial.site.method.method, CellMethod::layered);
+    const auto chosen = scenario::parse_scenario(edited_copy(five, "schema: 1", "schema: 1\nmethod: numerical"), "n.yaml");
+    EXPECT_EQ(chosen.site.method.method, CellMethod::numerical);
+}
+
+TEST(LayeredSite, BadInputIsNamedAndLocated) {
+    struct Row {
+        const char* file;
+        std::string from, to, key, message;
+    };
+    const std::vector<Row> rows{
+        {five, "  groundwater_depth_m: 1.0", "  thickness_m: 16.0\n  groundwater_depth_m: 1.0", "clay.thickness_m",
+         "must equal the sum of the layer thicknesses, 15 m"},
+        {five, "drain_outlets: top", "drain_length_m: 16.0\ndrain_outlets: top", "drain_length_m",
+         "at most clay.thickness_m = 15 m"},
+        {vacuum, "pressure_kPa: 70", "pressure_kPa: 120", "loading.vacuum.pressure_kPa", "one atmosphere at most"},
+        {vacuum, "end_day: 250", "end_day: 40000", "loading.vacuum.end_day", "within the 100-year record"},
+        {vacuum, "end_day: 250", "end_day: 5", "loading.vacuum.end_day", "after start_day"},
+        {vacuum, "tip_ratio: 0.8", "tip_ratio: 1.5", "loading.vacuum.tip_ratio", "between 0 and 1"},
+        {vacuum, "tip_ratio: 0.8", "tip_ratio: 0.8, pressure: 3", "loading.vacuum.pressure", "unknown key 'pressure'"},
+        {"demo/scenario.yaml", "drain_length_m: 14.0",
+         "drain_length_m: 14.0\nmethod: analytical\nloading:\n  vacuum: {pressure_kPa: 60, start_day: 0, end_day: 200}",
+         "loading.vacuum", "'method: layered_series'"},
+        {vacuum, "schema: 1", "schema: 1\nmethod: analytical", "clay.layers[0]", "'method: layered_series'"},
+        {five, "schema: 1", "schema: 1\nseries_terms: 1", "series_terms", "between 2 and 400"},
+        {five, "schema: 1", "schema: 1\nseries_terms: 12.5", "series_terms", "whole number"},
+    };
+    for (const auto& row : rows) {
+        try {
+            scenario::parse_scenario(edited_copy(row.file, row.from, row.to), "case.yaml");
+            ADD_FAILURE() << row.key << ": accepted";
+        } catch (const scenario::ScenarioError& e) {
+            EXPECT_EQ(e.key_path(), row.key) << e.what();
+            EXPECT_NE(e.message().find(row.message), std::string::npos) << e.what();
+            EXPECT_GT(e.mark().line, 0) << e.what();
+        }
+    }
+}
+
+TEST(LayeredSite, VacuumAloneNeedsNoStages) {
+    // Vacuum alone: no fill stages; the degree is relative to the steady state under the vacuum and
+    // the settlement model gives the final settlement of its mean suction.
+    std::string text = slurp(source(vacuum));
+    const auto from = text.find("  stages:");
+    const auto to = text.find("  vacuum:");
+    text.erase(from, to - from);
+    const auto s = scenario::parse_scenario(text, "v.yaml");
+    const auto& product = s.site.products.front();
+    const auto model = make_cell_model(s.site, product, Pattern::triangular, 1.5);
+    EXPECT_GT(*model->final_settlement_m(), 0.1);
+    EXPECT_NEAR(model->degree(0.0), 0.0, 1e-12);
+    EXPECT_GT(model->degree(200 * 86400.0), 0.5);
+    EXPECT_NEAR(model->degrees({200 * 86400.0}).front().vertical, 0.0, 1e-12);  // vacuum acts through the drains only
+}
+
+TEST(LayeredSite, VerifyGivesPlaneStrainParametersPerLayer) {
+    const CommandRun r = run(std::string("verify ") + source(five) + " --json --radial-cells 12 --vertical-cells 30");
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const auto j = nlohmann::json::parse(r.out);
+    EXPECT_EQ(j["design_method"], "layered_series");
+    for (const auto& row : j["rows"]) {
+        ASSERT_EQ(row["plane_strain_layers"].size(), 5u);
+        for (const auto& layer : row["plane_strain_layers"]) {
+            EXPECT_GT(layer["khp_m_per_s"].get<double>(), 0.0);
+            EXPECT_LT(layer["smear_khp_m_per_s"].get<double>(), layer["khp_m_per_s"].get<double>());
+        }
+    }
+}
