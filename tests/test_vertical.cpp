@@ -90,3 +90,20 @@ TEST(DrainagePath, TimeFactorDefinition) {
     // Tv = cv·t/d²: 1 m²/yr for one year over d = 2 m → 0.25.
     EXPECT_NEAR(time_factor(1.0 / 31557600.0, 31557600.0, 2.0), 0.25, 1e-15);
 }
+
+// Terzaghi's isochrone: its two forms agree where both converge, it is 0 at the drained face, and
+// its depth mean is 1 − Uv (the average degree checked against Terzaghi's table above).
+TEST(Isochrone, ImagesAndFourierAgreeAndAverageToTheDegree) {
+    for (const double tv : {0.01, 0.03, 0.08, 0.2, 0.5})
+        for (const double z : {0.0, 0.1, 0.37, 0.8, 1.0, 1.5, 2.0})
+            EXPECT_NEAR(wickgrid::terzaghi::excess_images(z, tv), wickgrid::terzaghi::excess_fourier(z, tv), 1e-12)
+                << tv << " " << z;
+    for (const double tv : {0.002, 0.05, 0.3, 1.0}) {
+        EXPECT_NEAR(wickgrid::excess_fraction_vertical(0.0, tv), 0.0, 1e-14);
+        // Mean over 0 ≤ Z ≤ 1 by the midpoint rule on 4000 slices (error ~1e-8 for these Tv).
+        double mean = 0.0;
+        for (int i = 0; i < 4000; ++i) mean += wickgrid::excess_fraction_vertical((i + 0.5) / 4000.0, tv) / 4000.0;
+        EXPECT_NEAR(mean, 1.0 - wickgrid::degree_vertical(tv), 1e-6) << tv;
+    }
+    EXPECT_THROW(wickgrid::excess_fraction_vertical(2.5, 0.1), wickgrid::InputError);
+}

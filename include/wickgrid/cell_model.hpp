@@ -26,6 +26,15 @@ struct CellFigures {
     double drain_length_m = 0.0;
 };
 
+// The state at one depth (m below the top of the clay) at one time: the cell-averaged excess pore
+// pressure (kPa) and the local degree (the strain there relative to its final value under the
+// permanent load; for a vacuum alone, under the steady vacuum).
+struct DepthPoint {
+    double depth_m = 0.0;
+    double excess_pore_pressure_kPa = 0.0;
+    double local_degree = 0.0;
+};
+
 class CellModel {
 public:
     virtual ~CellModel() = default;
@@ -47,6 +56,12 @@ public:
     // horizon (defaults::search_horizon_years).
     virtual std::optional<double> time_to_degree_s(double target) const;
     virtual CellMethod method() const noexcept = 0;
+    // The degree over depth at one time (depths from 0 to the clay thickness, any order), by the
+    // linear model (pore pressure follows loading and unloading; no hold rule). nullopt where the
+    // method reports depth averages only (the numerical cell). Throws InputError for a depth outside
+    // the clay or a negative time. Cost: closed form, one local step response per load event and
+    // depth; layered series, O(terms²) per depth.
+    virtual std::optional<std::vector<DepthPoint>> over_depth(const std::vector<double>& depths_m, double time_s) const;
 
     const CellFigures& figures() const noexcept { return figures_; }
     // Final primary settlement under the permanent load (m); nullopt without a settlement model.

@@ -53,6 +53,10 @@ std::optional<double> CellModel::time_to_degree_s(double target) const {
     return std::nullopt;
 }
 
+std::optional<std::vector<DepthPoint>> CellModel::over_depth(const std::vector<double>&, double) const {
+    return std::nullopt;
+}
+
 std::optional<double> CellModel::settlement_m(double time_s) const {
     if (!final_m_) return std::nullopt;
     return *final_m_ * degree(time_s);

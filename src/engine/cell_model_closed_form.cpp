@@ -1,6 +1,8 @@
 // The closed-form cell model: Terzaghi (1925) vertical flow, Hansbo (1981) / the equal-strain
 // integral radial flow with depth-averaged well resistance, Carrillo (1942); under a load history
 // by superposition of the step response (settlement_history.cpp). Uniform clay, full drains.
+#include <algorithm>
+#include <boost/math/constants/constants.hpp>
 #include <cmath>
 
 #include "cell_model_methods.hpp"
@@ -35,6 +37,7 @@ public:
         combined_.emplace(ultimate, loads, [c](double t) { return c->at(t).combined; });
         vertical_.emplace(ultimate, loads, [c](double t) { return c->at(t).vertical; });
         if (loads.surcharge) eventual_ = std::max(1.0, combined_->degree(loads.surcharge->removal_s));
+        loads_ = loads;
     }
 
     std::vector<Degrees> degrees(const std::vector<double>& times_s) const override {
@@ -76,11 +79,55 @@ public:
 
     CellMethod method() const noexcept override { return CellMethod::closed_form; }
 
+    // Terzaghi's (1925) isochrone combined with Hansbo's (1981) radial degree at μ(z) by Carrillo's
+    // (1942) rule at each depth, superposed over the load history like the averages.
+    std::optional<std::vector<DepthPoint>> over_depth(const std::vector<double>& depths_m, double time_s) const override {
+        require_non_negative("time (s)", time_s);
+        const LoadHistory loads = loads_.value_or(LoadHistory{{{0.0, 0.0, 1.0}}, std::nullopt, std::nullopt});
+        std::vector<ResponseIncrement> events;
+        for (const auto& s : loads.stages) events.push_back({s.start_s, s.end_s, s.pressure_kPa});
+        if (const auto& s = loads.surcharge) {
+            events.push_back({s->start_s, s->end_s, s->pressure_kPa});
+            events.push_back({s->removal_s, s->removal_s, -s->pressure_kPa});
+        }
+        const double q = loads.permanent_kPa(), applied = loads.applied_at_kPa(time_s);
+        std::vector<DepthPoint> out;
+        for (const double z : depths_m) {
+            const double local = superpose(local_step(z), events, time_s) / q;
+            out.push_back({z, applied - q * local, local});
+        }
+        return out;
+    }
+
 private:
+    // The local degree at depth z (m) after a unit step load, as a function of time.
+    StepResponse local_step(double z) const {
+        const CellSpec& spec = cell_.spec();
+        const double h = spec.clay.thickness_m;
+        if (!(z >= 0.0 && z <= h * (1 + 1e-12))) throw InputError("depth (m)", z, "from 0 to the clay thickness " + format_value(h) + " m");
+        double ratio = 0.0;  // z/d from the nearest drained face
+        switch (spec.clay.drainage) {
+            case VerticalDrainage::both_faces: ratio = std::min(2.0, z / (0.5 * h)); break;
+            case VerticalDrainage::top_only: ratio = std::min(1.0, z / h); break;
+            case VerticalDrainage::bottom_only: ratio = std::max(0.0, (h - z) / h); break;
+        }
+        const double length = spec.drain.length_m, l = cell_.outlet_length_m();
+        const double zz = spec.drain.outlets == DrainOutlets::top_and_bottom ? std::min(z, length - z) : z;
+        const double mu = cell_.mu_smear() + boost::math::double_constants::pi * zz * (2.0 * l - zz) * spec.clay.kh_m_per_s /
+                                                 spec.drain.discharge_capacity_m3_per_s;
+        const double d = cell_.drainage_path_m(), de = cell_.influence_diameter_m();
+        const double cv = spec.clay.cv_m2_per_s, ch = spec.clay.ch_m2_per_s;
+        return [=](double t) {
+            if (t <= 0.0) return 0.0;
+            return 1.0 - excess_fraction_vertical(ratio, cv * t / (d * d)) * std::exp(-8.0 * ch * t / (de * de * mu));
+        };
+    }
+
     UnitCell cell_;
     std::optional<SettlementHistory> combined_;  // under a load history (absent: one step at day 0)
     std::optional<SettlementHistory> vertical_;
     double eventual_ = 1.0;
+    std::optional<LoadHistory> loads_;  // the site's load history (absent: one unit step at day 0)
 };
 }  // namespace
 

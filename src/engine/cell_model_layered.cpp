@@ -59,6 +59,13 @@ public:
     }
 
     double eventual_degree() const override { return cell_.eventual_degree(); }
+
+    std::optional<std::vector<DepthPoint>> over_depth(const std::vector<double>& depths_m, double time_s) const override {
+        std::vector<DepthPoint> out;
+        out.reserve(depths_m.size());
+        for (const double z : depths_m) out.push_back({z, cell_.pore_pressure_kPa(z, time_s), cell_.local_degree(z, time_s)});
+        return out;
+    }
     CellMethod method() const noexcept override { return CellMethod::layered; }
 
 private:
