@@ -6,6 +6,9 @@
 #include "wickgrid/search.hpp"
 #include "wickgrid/studies.hpp"
 #include "wickgrid/numerical.hpp"
+#include "wickgrid/layered.hpp"
+#include "wickgrid/cell_model.hpp"
+#include "scenario/scenario.hpp"
 #include "report/layout_report.hpp"
 #include "results/layout_record.hpp"
 
@@ -110,3 +113,59 @@ static void BM_Layout100k(benchmark::State& state) {
     state.counters["drains"] = static_cast<double>(drains);
 }
 BENCHMARK(BM_Layout100k)->Unit(benchmark::kMillisecond);
+
+// Layered ground: the bundled five-strata scenario (staged, surcharge, two products × two
+// patterns), by the layered series method.
+namespace {
+scenario::Scenario five_strata() {
+    return scenario::load_scenario(std::string(WICKGRID_SOURCE_DIR) + "/configs/layered-five-staged.yaml");
+}
+}  // namespace
+
+// One average degree of a built five-layer cell at one time (the target: at most 150
+// Terzaghi evaluations, BM_TerzaghiDegree in the same run).
+static void BM_LayeredDegree(benchmark::State& state) {
+    const auto s = five_strata();
+    const LayeredCell cell(numerical_cell_spec(s.site, s.site.products.front(), Pattern::triangular, 1.4),
+                           s.site.installation.theory);
+    double t = units::days_to_seconds(30.0);
+    for (auto _ : state) {
+        benchmark::DoNotOptimize(cell.degree(t));
+        t = t < units::days_to_seconds(400.0) ? t * 1.01 : units::days_to_seconds(30.0);
+    }
+}
+BENCHMARK(BM_LayeredDegree);
+
+// Building the five-layer cell model (assembly, the eigenproblem, the load events).
+static void BM_LayeredBuild(benchmark::State& state) {
+    const auto s = five_strata();
+    for (auto _ : state) benchmark::DoNotOptimize(make_cell_model(s.site, s.site.products.front(), Pattern::triangular, 1.4));
+}
+BENCHMARK(BM_LayeredBuild)->Unit(benchmark::kMicrosecond);
+
+// The whole layered design: 2 products × 2 patterns, 5 layers, three lifts and a surcharge (the
+// issue's target: under 0.2 s on one core).
+static void BM_LayeredDesign(benchmark::State& state) {
+    const auto s = five_strata();
+    for (auto _ : state) benchmark::DoNotOptimize(run_design(s.site));
+}
+BENCHMARK(BM_LayeredDesign)->Unit(benchmark::kMillisecond);
+
+// Monte Carlo of the layered design on 2 threads: samples of ch, cv (factors on every layer) and
+// kh/ks, a full spacing search for each of the four rows. Run with state.range(0) samples; the
+// issue's 10⁵ is extrapolated from the per-sample time (samples are independent).
+static void BM_LayeredMonteCarlo(benchmark::State& state) {
+    const auto s = five_strata();
+    const DesignResult base = run_design(s.site);
+    MonteCarloSpec spec;
+    spec.samples = static_cast<std::size_t>(state.range(0));
+    spec.threads = 2;
+    spec.inputs = {{StudyInput::ch_factor, {DistributionKind::lognormal, 1.0, 0.3}},
+                   {StudyInput::cv_factor, {DistributionKind::lognormal, 1.0, 0.3}},
+                   {StudyInput::smear_permeability_ratio, {DistributionKind::triangular, 2.0, 3.0, 5.0}}};
+    Site site = s.site;
+    for (auto _ : state) benchmark::DoNotOptimize(monte_carlo(site, base, spec));
+    state.counters["samples_per_s"] = benchmark::Counter(static_cast<double>(spec.samples) * state.iterations(),
+                                                         benchmark::Counter::kIsRate);
+}
+BENCHMARK(BM_LayeredMonteCarlo)->Arg(2000)->Iterations(1)->Unit(benchmark::kSecond)->UseRealTime();

@@ -16,6 +16,7 @@ struct CurveOptions {
     std::string pattern;
     double spacing_m = 0.0;
     std::vector<double> at_days;
+    std::vector<double> depths_m;
     int points = defaults::curve_points;
     double until_days = 0.0;
     bool json = false;
@@ -37,6 +38,10 @@ Runner add_curve(CLI::App& app) {
     cmd->add_option("--until-days", o->until_days, "Last time of the even table (default 1.5 × deadline)")
         ->check(positive_number())
         ->excludes(at);
+    cmd->add_option("--depths", o->depths_m,
+                    "Comma-separated depths (m below the top of the clay) at which to list the local degree and excess "
+                    "pore pressure, e.g. 2,5,8")
+        ->delimiter(',');
     auto* json = cmd->add_flag("--json", o->json, "JSON on stdout");
     cmd->add_flag("--csv", o->csv, "CSV on stdout")->excludes(json);
     return [o] {
@@ -57,8 +62,23 @@ Runner add_curve(CLI::App& app) {
             }
             const Pattern pattern = pattern_option(o->pattern);
             const auto model = model_from_options(s, o->drain, pattern, o->spacing_m);
-            const results::Curve curve{s.drain(o->drain).name, pattern, o->spacing_m, model->method(),
-                                       degree_curve(*model, times)};
+            results::Curve curve{s.drain(o->drain).name, pattern, o->spacing_m, model->method(),
+                                 degree_curve(*model, times), {}, {}};
+            for (const double z : o->depths_m)
+                if (!(std::isfinite(z) && z >= 0.0 && z <= s.site.ground.thickness_m))
+                    throw InputError("--depths", z, "depths from 0 to the clay thickness " +
+                                                         format_value(s.site.ground.thickness_m) + " m");
+            if (!o->depths_m.empty()) {
+                curve.depths_m = o->depths_m;
+                for (const double t : times) {
+                    auto states = model->over_depth(o->depths_m, t);
+                    if (!states)
+                        throw InputError("--depths", o->depths_m.front(),
+                                         "asked of the closed form or the layered series (the numerical cell reports "
+                                         "depth averages only)");
+                    curve.over_depth.push_back(std::move(*states));
+                }
+            }
             if (o->json) item.print(report::curve_json(s.site, curve).dump(2) + "\n");
             else if (o->csv) item.print(report::curve_csv(curve));
             else item.print(report::curve_table(s.site, curve));

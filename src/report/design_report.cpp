@@ -98,6 +98,8 @@ json design_json(const results::DesignRecord& record) {
         sublayers.push_back({{"layer", r.layer}, {"depth_m", r.depth_m}, {"thickness_m", r.thickness_m},
                              {"sigma_v0_kPa", r.sigma_v0_kPa ? json(*r.sigma_v0_kPa) : json(nullptr)},
                              {"delta_sigma_kPa", r.delta_sigma_kPa},
+                             {"excess_pore_pressure_kPa", r.excess_pore_pressure_kPa ? json(*r.excess_pore_pressure_kPa) : json(nullptr)},
+                             {"local_degree", r.local_degree ? json(*r.local_degree) : json(nullptr)},
                              {"final_settlement_mm", r.final_m * 1000.0}, {"settlement_at_deadline_mm", r.at_deadline_m * 1000.0}});
     out["sublayers"] = sublayers;
     add_title_block(out, s);
@@ -154,8 +156,8 @@ std::string title_block_markdown(const scenario::Scenario& s) {
 }
 
 std::vector<std::string> sublayer_header() {
-    return {"layer", "depth (m)", "thickness (m)", "σ'v0 (kPa)", "Δσ' (kPa)", "final settlement (mm)",
-            "settlement at the deadline (mm)"};
+    return {"layer", "depth (m)", "thickness (m)", "σ'v0 (kPa)", "Δσ' (kPa)", "u at the deadline (kPa)",
+            "local degree at the deadline (%)", "final settlement (mm)", "settlement at the deadline (mm)"};
 }
 
 std::vector<std::vector<std::string>> sublayer_table_rows(const results::DesignRecord& record) {
@@ -163,7 +165,10 @@ std::vector<std::vector<std::string>> sublayer_table_rows(const results::DesignR
     for (const auto& r : record.sublayers)
         rows.push_back({std::to_string(r.layer), fixed(r.depth_m, 2), fixed(r.thickness_m, 2),
                         r.sigma_v0_kPa ? fixed(*r.sigma_v0_kPa, 1) : "–",
-                        fixed(r.delta_sigma_kPa, 1), fixed(r.final_m * 1000.0, 1), fixed(r.at_deadline_m * 1000.0, 1)});
+                        fixed(r.delta_sigma_kPa, 1),
+                        r.excess_pore_pressure_kPa ? fixed(*r.excess_pore_pressure_kPa, 1) : "–",
+                        r.local_degree ? fixed(100.0 * *r.local_degree, 1) : "–", fixed(r.final_m * 1000.0, 1),
+                        fixed(r.at_deadline_m * 1000.0, 1)});
     return rows;
 }
 
@@ -330,7 +335,9 @@ std::string design_markdown(const results::DesignRecord& record, const std::stri
         << ".\n\n";
     if (!record.sublayers.empty()) {
         out << "## Settlement by sub-layer\n\nFor the recommended design (the first row when none meets the criterion), "
-               "under the final permanent load; at the deadline with the design's average degree of settlement.\n\n|";
+               "under the final permanent load; u and the local degree at the slice centre at the deadline show how "
+               "consolidation is spread over depth (– where the method reports depth averages only); the settlement "
+               "at the deadline applies the design's average degree, so that the slices add up to the design row.\n\n|";
         for (const auto& h : sublayer_header()) out << ' ' << md(h) << " |";
         out << "\n|";
         for (std::size_t i = 0; i < sublayer_header().size(); ++i) out << "---|";
@@ -361,7 +368,16 @@ json curve_json(const Site& site, const results::Curve& curve) {
                           {"degree_radial", p.degrees.radial},
                           {"degree", p.degrees.combined},
                           {"settlement_mm", p.settlement_m ? json(*p.settlement_m * 1000.0) : json(nullptr)}});
-    return json{{"drain", curve.drain},
+    for (std::size_t i = 0; i < curve.over_depth.size(); ++i) {
+        json local = json::array(), excess = json::array();
+        for (const auto& d : curve.over_depth[i]) {
+            local.push_back(d.local_degree);
+            excess.push_back(d.excess_pore_pressure_kPa);
+        }
+        points[i]["local_degree"] = local;
+        points[i]["excess_pore_pressure_kPa"] = excess;
+    }
+    json out{{"drain", curve.drain},
                 {"pattern", std::string(to_string(curve.pattern))},
                 {"spacing_m", curve.spacing_m},
                 {"method", std::string(to_string(curve.method))},
@@ -369,17 +385,29 @@ json curve_json(const Site& site, const results::Curve& curve) {
                 {"degree_radial_basis", "the radial degree that Carrillo's rule needs to give U"},
                 {"points", points},
                 {"cautions", string_array(results::cautions())}};
+    if (!curve.depths_m.empty()) out["depths_m"] = curve.depths_m;
+    return out;
 }
 
 std::string curve_csv(const results::Curve& curve) {
     const bool settle = !curve.points.empty() && curve.points.front().settlement_m.has_value();
     std::vector<std::string> header{"time_days", "degree_vertical", "degree_radial", "degree"};
     if (settle) header.push_back("settlement_mm");
+    for (const double z : curve.depths_m) {
+        header.push_back("local_degree_at_" + csv_number(z) + "_m");
+        header.push_back("excess_pore_pressure_kPa_at_" + csv_number(z) + "_m");
+    }
     std::vector<std::vector<std::string>> rows;
-    for (const auto& p : curve.points) {
+    for (std::size_t i = 0; i < curve.points.size(); ++i) {
+        const auto& p = curve.points[i];
         rows.push_back({csv_number(days(p.time_s)), csv_number(p.degrees.vertical), csv_number(p.degrees.radial),
                         csv_number(p.degrees.combined)});
         if (settle) rows.back().push_back(csv_number(*p.settlement_m * 1000.0));
+        if (i < curve.over_depth.size())
+            for (const auto& d : curve.over_depth[i]) {
+                rows.back().push_back(csv_number(d.local_degree));
+                rows.back().push_back(csv_number(d.excess_pore_pressure_kPa));
+            }
     }
     return csv_document(header, rows);
 }
@@ -401,6 +429,23 @@ std::string curve_table(const Site& site, const results::Curve& curve) {
     if (site.loading || curve.method != CellMethod::closed_form)
         out << "\nDegrees are relative to the final permanent load; Ur is the radial degree that Carrillo's rule needs "
                "to give U.\n";
+    if (!curve.depths_m.empty()) {
+        // Degree over depth: local degree % and excess pore pressure (kPa) at each depth asked.
+        std::vector<std::string> depth_header{"day"};
+        for (const double z : curve.depths_m) depth_header.push_back("U(" + fixed(z, 2) + " m) %");
+        for (const double z : curve.depths_m) depth_header.push_back("u(" + fixed(z, 2) + " m) kPa");
+        std::vector<std::vector<std::string>> depth_rows;
+        for (std::size_t i = 0; i < curve.over_depth.size(); ++i) {
+            depth_rows.push_back({fixed(days(curve.points[i].time_s), 1)});
+            for (const auto& d : curve.over_depth[i]) depth_rows.back().push_back(fixed(100.0 * d.local_degree, 2));
+            for (const auto& d : curve.over_depth[i]) depth_rows.back().push_back(fixed(d.excess_pore_pressure_kPa, 2));
+        }
+        out << "\nDegree over depth (depth below the top of the clay): the local degree U(z) and the excess pore "
+               "pressure u(z) averaged over the unit cell at that depth, by the linear model: after a surcharge or "
+               "vacuum is removed u may fall below zero where the clay swells back (the settlement column holds "
+               "the settlement instead).\n\n"
+            << text_table(depth_header, depth_rows, 0);
+    }
     out << "\n" << results::caution_block();
     return out.str();
 }

@@ -368,8 +368,10 @@ ReportBundle build_report(const results::DesignRecord& record) {
     }
     if (!record.sublayers.empty()) {
         o << "<section><h2>Settlement by sub-layer</h2>\n<p>For the recommended design (the first row when none meets the "
-             "criterion), under the final permanent load; at the deadline with the design's average degree of "
-             "settlement.</p>\n<table class=\"sublayers\">\n<tr>";
+             "criterion), under the final permanent load; u and the local degree at the slice centre at the deadline "
+             "show how consolidation is spread over depth (– where the method reports depth averages only); the "
+             "settlement at the deadline applies the design's average degree, so that the slices add up to the design "
+             "row.</p>\n<table class=\"sublayers\">\n<tr>";
         for (const auto& h : sublayer_header()) o << "<th>" << escape_xml(h) << "</th>";
         o << "</tr>\n";
         for (const auto& row : sublayer_table_rows(record)) {

@@ -69,7 +69,7 @@ SpacingSeries spacing_series(const Site& site, const DesignRow& row) {
 Curve curve_of(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m,
                const std::vector<double>& times_s) {
     const auto model = make_cell_model(site, product, pattern, spacing_m);
-    return {product.name, pattern, spacing_m, model->method(), degree_curve(*model, times_s)};
+    return {product.name, pattern, spacing_m, model->method(), degree_curve(*model, times_s), {}, {}};
 }
 
 namespace {
@@ -80,18 +80,31 @@ std::vector<SubLayerRow> sublayer_rows(const DesignRecord& record) {
     if (!row || !site.loading || !row->ultimate_settlement_m || !row->settlement_at_deadline_m) return {};
     const double load = site.loading->permanent_kPa();
     const double share = *row->settlement_at_deadline_m / *row->ultimate_settlement_m;
-    if (!site.ground.profile) {  // one uniform clay by mv: one row, the whole clay
-        const double h = site.ground.thickness_m;
-        return {{1, h / 2.0, h, std::nullopt, load, *row->ultimate_settlement_m, *row->settlement_at_deadline_m}};
-    }
-    const SoilProfile& profile = *site.ground.profile;
-    const auto all = slices(profile);
     std::vector<SubLayerRow> out;
-    std::size_t k = 0;
-    for (std::size_t l = 0; l < profile.layers.size(); ++l)
-        for (int i = 0; i < profile.slices_per_layer; ++i, ++k) {
-            const double final_m = slice_settlement_m(profile.layers[l], all[k], load);
-            out.push_back({l + 1, all[k].depth_m, all[k].thickness_m, all[k].sigma_v0_kPa, load, final_m, share * final_m});
+    if (!site.ground.profile) {  // one uniform clay by mv: slices of equal thickness, settlement ∝ thickness
+        const double h = site.ground.thickness_m, n = defaults::slices_per_layer;
+        for (int i = 0; i < defaults::slices_per_layer; ++i)
+            out.push_back({1, (i + 0.5) * h / n, h / n, std::nullopt, load, *row->ultimate_settlement_m / n,
+                           *row->settlement_at_deadline_m / n, std::nullopt, std::nullopt});
+    } else {
+        const SoilProfile& profile = *site.ground.profile;
+        const auto all = slices(profile);
+        std::size_t k = 0;
+        for (std::size_t l = 0; l < profile.layers.size(); ++l)
+            for (int i = 0; i < profile.slices_per_layer; ++i, ++k) {
+                const double final_m = slice_settlement_m(profile.layers[l], all[k], load);
+                out.push_back({l + 1, all[k].depth_m, all[k].thickness_m, all[k].sigma_v0_kPa, load, final_m,
+                               share * final_m, std::nullopt, std::nullopt});
+            }
+    }
+    // The degree over depth at the deadline, where the method gives it.
+    std::vector<double> depths;
+    for (const auto& r : out) depths.push_back(r.depth_m);
+    const auto model = make_cell_model(site, site.product(row->drain), row->pattern, row->spacing_m);
+    if (const auto states = model->over_depth(depths, site.criterion.deadline_s))
+        for (std::size_t i = 0; i < out.size(); ++i) {
+            out[i].excess_pore_pressure_kPa = (*states)[i].excess_pore_pressure_kPa;
+            out[i].local_degree = (*states)[i].local_degree;
         }
     return out;
 }

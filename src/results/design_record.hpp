@@ -19,6 +19,9 @@ struct Curve {
     double spacing_m = 0.0;
     CellMethod method = CellMethod::closed_form;
     std::vector<CurvePoint> points;
+    // Optional degree over depth: the depths asked, and for each point the state at each of them.
+    std::vector<double> depths_m;
+    std::vector<std::vector<DepthPoint>> over_depth;
 };
 
 // The largest spacing meeting the criterion against the time available (design chart).
@@ -47,6 +50,10 @@ struct SubLayerRow {
     double delta_sigma_kPa = 0.0;
     double final_m = 0.0;
     double at_deadline_m = 0.0;
+    // At the slice centre at the deadline, where the method resolves depth (closed form, layered
+    // series): the cell-averaged excess pore pressure and the local degree.
+    std::optional<double> excess_pore_pressure_kPa;
+    std::optional<double> local_degree;
 };
 
 struct DesignRecord {
