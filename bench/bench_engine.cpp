@@ -169,3 +169,11 @@ static void BM_LayeredMonteCarlo(benchmark::State& state) {
                                                          benchmark::Counter::kIsRate);
 }
 BENCHMARK(BM_LayeredMonteCarlo)->Arg(2000)->Iterations(1)->Unit(benchmark::kSecond)->UseRealTime();
+
+// Building the five-layer series alone, against the number of terms.
+static void BM_LayeredCellTerms(benchmark::State& state) {
+    const auto s = five_strata();
+    const NumericalCellSpec spec = numerical_cell_spec(s.site, s.site.products.front(), Pattern::triangular, 1.4);
+    for (auto _ : state) benchmark::DoNotOptimize(LayeredCell(spec, s.site.installation.theory, static_cast<int>(state.range(0))));
+}
+BENCHMARK(BM_LayeredCellTerms)->Arg(12)->Arg(24)->Arg(48)->Unit(benchmark::kMicrosecond);

@@ -37,15 +37,18 @@ std::optional<LayeredCell> vertical_of(NumericalCellSpec spec, RadialTheory theo
 
 class LayeredModel final : public CellModel {
 public:
-    LayeredModel(const NumericalCellSpec& spec, LayeredCell cell, std::optional<LayeredCell> vertical,
+    LayeredModel(const NumericalCellSpec& spec, RadialTheory theory, int terms, LayeredCell cell,
                  std::optional<double> final_m)
-        : CellModel(figures_of(spec, cell), final_m), cell_(std::move(cell)), vertical_(std::move(vertical)) {}
+        : CellModel(figures_of(spec, cell), final_m), spec_(spec), theory_(theory), terms_(terms), cell_(std::move(cell)) {}
 
+    // Uv needs the series without a drain: built here, when degrees are asked, so that the searches
+    // (which ask U alone) do not pay for it.
     std::vector<Degrees> degrees(const std::vector<double>& times_s) const override {
+        const std::optional<LayeredCell> vertical = vertical_of(spec_, theory_, terms_);
         std::vector<Degrees> out;
         out.reserve(times_s.size());
         for (const double t : times_s) {
-            const double u = cell_.degree(t), uv = vertical_ ? vertical_->degree(t) : 0.0;
+            const double u = cell_.degree(t), uv = vertical ? vertical->degree(t) : 0.0;
             out.push_back({uv, carrillo_radial(u, uv), u});
         }
         return out;
@@ -69,8 +72,10 @@ public:
     CellMethod method() const noexcept override { return CellMethod::layered; }
 
 private:
+    NumericalCellSpec spec_;
+    RadialTheory theory_;
+    int terms_;
     LayeredCell cell_;
-    std::optional<LayeredCell> vertical_;
 };
 }  // namespace
 
@@ -88,7 +93,7 @@ std::unique_ptr<CellModel> make_layered_model(const Site& site, const DrainProdu
         const double q = site.loading->permanent_kPa() > 0.0 ? site.loading->permanent_kPa() : cell.reference_load_kPa();
         final_m = ultimate(q) - ultimate(0.0);
     }
-    return std::make_unique<LayeredModel>(spec, std::move(cell), vertical_of(spec, theory, terms), final_m);
+    return std::make_unique<LayeredModel>(spec, theory, terms, std::move(cell), final_m);
 }
 
 }  // namespace wickgrid::detail

@@ -63,11 +63,18 @@ struct Basis {
         for (int i = 0; i < terms; ++i) m[i] = d == VerticalDrainage::both_faces ? (i + 1) * pi : (2 * i + 1) * pi / 2;
     }
     bool cosine() const { return drainage == VerticalDrainage::bottom_only; }
+    // φ and φ′ at z. The numbers m are evenly spaced by π, so sin and cos of m·z/H follow by the
+    // angle-addition recurrence from two of each (rounding grows like terms × 1e-16).
     void values(double z, Vec& phi, Vec& dphi) const {
+        const double x = z / height_m, step_s = std::sin(pi * x), step_c = std::cos(pi * x);
+        double s = std::sin(m[0] * x), c = std::cos(m[0] * x);
         for (long i = 0; i < m.size(); ++i) {
-            const double a = m[i] * z / height_m, k = m[i] / height_m;
-            phi[i] = cosine() ? std::cos(a) : std::sin(a);
-            dphi[i] = cosine() ? -k * std::sin(a) : k * std::cos(a);
+            const double k = m[i] / height_m;
+            phi[i] = cosine() ? c : s;
+            dphi[i] = cosine() ? -k * s : k * c;
+            const double next_s = s * step_c + c * step_s;
+            c = c * step_c - s * step_s;
+            s = next_s;
         }
     }
 };
