@@ -129,3 +129,20 @@ TEST(LayeredSite, DegreeOverDepthAgreesBetweenClosedFormAndSeriesInUniformGround
     }
     EXPECT_THROW(a->over_depth({15.0}, 1e6), InputError);
 }
+
+TEST(LayeredSite, FastSearchAgreesWithCellModelsBuiltPerSpacing) {
+    // The search's inner function prepares what does not depend on spacing once; the reference is a
+    // cell model built from the site at each spacing (make_cell_model). At the limit found the
+    // criterion holds and just beyond it fails, by the reference path.
+    for (const char* file : {five, vacuum}) {
+        const auto s = scenario::load_scenario(source(file));
+        for (const auto& product : s.site.products)
+            for (const Pattern pattern : {Pattern::triangular, Pattern::square}) {
+                const SpacingLimit limit = spacing_limit(s.site, product, pattern);
+                ASSERT_TRUE(limit.feasible && !limit.at_maximum) << file;
+                EXPECT_GE(make_cell_model(s.site, product, pattern, limit.spacing_m)->margin(s.site.criterion), 0.0) << file;
+                EXPECT_LT(make_cell_model(s.site, product, pattern, limit.spacing_m + 1e-6)->margin(s.site.criterion), 0.0)
+                    << file;
+            }
+    }
+}

@@ -26,7 +26,7 @@ inline constexpr double verify_threshold = 0.02;  // |ΔU| above which verify wa
 inline constexpr int verify_points = 25;
 
 // Layered series method (layered.hpp): terms of the series and the cap a scenario may ask for.
-inline constexpr int layered_terms = 24;
+inline constexpr int layered_terms = 48;
 inline constexpr int max_layered_terms = 400;
 
 // Vacuum: at most one atmosphere; without a tip ratio the vacuum reaches the drain tip undiminished.

@@ -37,7 +37,8 @@ public:
     // (defaults::layered_terms). Throws InputError naming the quantity for inputs outside the method
     // (terms from 2 to defaults::max_layered_terms, positive layer properties, drain length within the
     // clay, a spacing that leaves room for the smear zone). Cost: O(terms² × quadrature points) to
-    // assemble plus one dense generalised eigenproblem (O(terms³)); tens of microseconds at 24 terms.
+    // assemble plus one dense generalised eigenproblem (O(terms³)); about 0.1 ms at 24 terms, 0.6 ms at 48
+    // (five layers, 2 GHz core).
     LayeredCell(const NumericalCellSpec& spec, RadialTheory theory, int terms = defaults::layered_terms);
 
     // Degree by settlement at time t (s, >= 0), relative to the reference; may exceed 1 while a

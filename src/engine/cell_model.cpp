@@ -105,12 +105,15 @@ struct MethodRow {
     std::unique_ptr<CellModel> (*build)(const Site&, const DrainProductSpec&, Pattern, double);
     std::optional<MethodRefusal> (*refusal)(const Site&);
     std::optional<SpacingLimit> (*fast_limit)(const Site&, const DrainProductSpec&, Pattern);
+    // The margin against spacing, prepared once per search (nullptr: a cell model per spacing).
+    std::function<double(double)> (*margin_function)(const Site&, const DrainProductSpec&, Pattern);
 };
 
 constexpr MethodRow methods[] = {
-    {CellMethod::closed_form, detail::make_closed_form_model, detail::closed_form_refusal, detail::closed_form_fast_limit},
-    {CellMethod::numerical, detail::make_numerical_model, detail::numerical_refusal, nullptr},
-    {CellMethod::layered, detail::make_layered_model, detail::layered_refusal, nullptr},
+    {CellMethod::closed_form, detail::make_closed_form_model, detail::closed_form_refusal, detail::closed_form_fast_limit,
+     nullptr},
+    {CellMethod::numerical, detail::make_numerical_model, detail::numerical_refusal, nullptr, nullptr},
+    {CellMethod::layered, detail::make_layered_model, detail::layered_refusal, nullptr, detail::layered_margin_function},
 };
 
 const MethodRow& row_of(CellMethod method) {
@@ -140,7 +143,11 @@ SpacingLimit spacing_limit(const Site& site, const DrainProductSpec& product, Pa
     if (row.fast_limit)
         if (auto fast = row.fast_limit(site, product, pattern)) return *fast;
     const Criterion& criterion = site.criterion;
-    auto margin_at = [&](double s) { return make_cell_model(site, product, pattern, s)->margin(criterion); };
+    const std::function<double(double)> margin_at =
+        row.margin_function ? row.margin_function(site, product, pattern)
+                            : std::function<double(double)>([&](double s) {
+                                  return make_cell_model(site, product, pattern, s)->margin(criterion);
+                              });
     const double lo = site.range.bounds.min_m, hi = site.range.bounds.max_m;
     SpacingLimit limit;
     const auto at_min = make_cell_model(site, product, pattern, lo);

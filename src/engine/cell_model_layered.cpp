@@ -79,20 +79,47 @@ private:
 };
 }  // namespace
 
+namespace {
+// The final primary settlement of the settlement model (nullopt without one): the permanent fill's,
+// or without fill that of the vacuum's mv-weighted mean steady suction.
+std::optional<double> final_settlement(const Site& site, const std::function<double(double)>& ultimate,
+                                       const LayeredCell& cell) {
+    if (!site.has_settlement()) return std::nullopt;
+    const double q = site.loading->permanent_kPa() > 0.0 ? site.loading->permanent_kPa() : cell.reference_load_kPa();
+    return ultimate(q) - ultimate(0.0);
+}
+}  // namespace
+
+std::function<double(double)> layered_margin_function(const Site& site, const DrainProductSpec& product, Pattern pattern) {
+    if (auto why = layered_refusal(site)) throw InputError(why->quantity, why->value, why->allowed);
+    // Only the influence diameter changes with spacing.
+    const NumericalCellSpec base = numerical_cell_spec(site, product, pattern, site.range.bounds.min_m);
+    const auto ultimate = ultimate_settlement_function(site);
+    const RadialTheory theory = site.installation.theory;
+    const int terms = site.method.series_terms;
+    const Criterion criterion = site.criterion;
+    // With a settlement model and fill the final settlement does not depend on spacing either.
+    const bool settles = site.has_settlement();
+    const bool fill = settles && site.loading->permanent_kPa() > 0.0;
+    const std::optional<double> fill_final =
+        fill ? std::optional<double>(ultimate(site.loading->permanent_kPa()) - ultimate(0.0)) : std::nullopt;
+    return [=](double spacing_m) {
+        NumericalCellSpec spec = base;
+        spec.influence_diameter_m = influence_diameter_m(pattern, spacing_m);
+        LayeredCell cell(spec, theory, terms);
+        std::optional<double> final_m = fill_final;
+        if (settles && !fill) final_m = ultimate(cell.reference_load_kPa()) - ultimate(0.0);
+        return LayeredModel(spec, theory, terms, std::move(cell), final_m).margin(criterion);
+    };
+}
+
 std::unique_ptr<CellModel> make_layered_model(const Site& site, const DrainProductSpec& product, Pattern pattern,
                                               double spacing_m) {
     const NumericalCellSpec spec = numerical_cell_spec(site, product, pattern, spacing_m);
     const RadialTheory theory = site.installation.theory;
     const int terms = site.method.series_terms;
     LayeredCell cell(spec, theory, terms);
-    std::optional<double> final_m;
-    if (site.has_settlement()) {
-        // The permanent fill's settlement; without fill, the settlement under the vacuum's mv-weighted
-        // mean steady suction, on the same settlement model.
-        const auto ultimate = ultimate_settlement_function(site);
-        const double q = site.loading->permanent_kPa() > 0.0 ? site.loading->permanent_kPa() : cell.reference_load_kPa();
-        final_m = ultimate(q) - ultimate(0.0);
-    }
+    const auto final_m = final_settlement(site, ultimate_settlement_function(site), cell);
     return std::make_unique<LayeredModel>(spec, theory, terms, std::move(cell), final_m);
 }
 

@@ -1,5 +1,6 @@
 #pragma once
 // Internals: the implementations behind the method table (not part of the public headers).
+#include <functional>
 #include <memory>
 #include <optional>
 #include <string>
@@ -20,6 +21,9 @@ std::optional<MethodRefusal> numerical_refusal(const Site& site);
 
 std::unique_ptr<CellModel> make_layered_model(const Site& site, const DrainProductSpec& product, Pattern pattern,
                                               double spacing_m);
+// The criterion margin against spacing with what does not depend on spacing prepared once (layers,
+// storage mv, final settlement): the searches' inner function.
+std::function<double(double)> layered_margin_function(const Site& site, const DrainProductSpec& product, Pattern pattern);
 // The layered series method takes what the numerical cell takes: cv/ch for every layer.
 inline std::optional<MethodRefusal> layered_refusal(const Site& site) { return numerical_refusal(site); }
 

@@ -37,7 +37,7 @@ std::vector<std::string> lead(const DesignRow& r) {
 std::string notes_under_table(const results::DesignRecord& record) {
     const Site& site = record.site();
     std::string text = "Degrees are at the deadline at the chosen spacing";
-    if (site.loading) text += ", relative to the final permanent load under the load history";
+    if (site.loading) text += ", " + results::degree_reference_text(site);
     text += "; the time column is when the criterion (" + results::criterion_label(site) + ") is first met there. " +
             "μ mean is the depth mean of μ(z). '+' marks a limit capped at the largest spacing; '*' an infeasible "
             "row evaluated at the minimum spacing.";
@@ -208,7 +208,7 @@ std::string design_table(const results::DesignRecord& record) {
     const auto columns = shown_design_columns(record);
     std::ostringstream out;
     out << record.scenario->title << "\n";
-    out << "criterion: " << results::criterion_text(site) << (site.loading ? "; staged loading" : "") << "; method "
+    out << "criterion: " << results::criterion_text(site) << (site.loading ? "; " + results::loading_label(site) : std::string()) << "; method "
         << to_string(site.method.method) << "; spacings " << fixed(site.range.bounds.min_m, 2) << "–"
         << fixed(site.range.bounds.max_m, 2) << " m in steps of " << fixed(site.range.increment_m, 2) << " m\n\n";
     out << text_table(table_header(columns), table_rows(record, columns), 2);

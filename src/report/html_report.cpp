@@ -262,7 +262,7 @@ std::string results_table(const results::DesignRecord& record) {
         o << "</tr>\n";
     }
     o << "</table></div>\n<p>Degrees are at the deadline at the chosen spacing"
-      << (record.site().loading ? ", relative to the final permanent load under the load history" : "") << ". Criterion: "
+      << (record.site().loading ? ", " + results::degree_reference_text(record.site()) : std::string()) << ". Criterion: "
       << escape_xml(results::criterion_text(record.site())) << ". μ mean is the depth mean of μ(z).</p>\n";
     for (const auto& w : record.warnings) o << "<p class=\"warning\">Warning: " << escape_xml(w) << "</p>\n";
     return o.str();

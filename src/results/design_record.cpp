@@ -140,6 +140,18 @@ DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& opt
     return record;
 }
 
+std::string loading_label(const Site& site) {
+    if (!site.loading) return "";
+    if (!site.loading->vacuum) return "staged loading";
+    return site.loading->stages.empty() ? "vacuum alone" : "vacuum with staged loading";
+}
+
+std::string degree_reference_text(const Site& site) {
+    if (!site.loading) return "";
+    if (site.loading->stages.empty()) return "relative to the steady state under the vacuum held";
+    return "relative to the final permanent load under the load history";
+}
+
 std::string criterion_text(const Site& site) {
     const double deadline = days(site.criterion.deadline_s);
     if (const auto* r = site.criterion.residual())

@@ -98,6 +98,10 @@ std::vector<std::string> assumptions(const Site& site);
 std::vector<std::string> method_notes(const Site& site);
 std::string criterion_text(const Site& site);   // "U = 90.0 % by day 180", "residual settlement at most …"
 std::string criterion_label(const Site& site);  // short: "U ≥ 90 %", "residual ≤ 60 mm"
+// The loading in a few words ("staged loading", "vacuum with staged loading", "vacuum alone"; empty
+// for a load at once) and what the degrees are relative to.
+std::string loading_label(const Site& site);
+std::string degree_reference_text(const Site& site);
 std::string recommendation(const DesignRecord& record);
 // The title block of a printed output: the `project:` fields the scenario gives, then the scenario
 // file, its SHA-256 and the wickgrid version (key is the JSON key, label what a page shows).

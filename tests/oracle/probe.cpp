@@ -2,6 +2,7 @@
 // SciPy oracle can compare. Requests:
 //   uv TV | tv UV | F N | hansbo N S KAPPA | esmu SHAPE N S KAPPA | free N TH
 //   depth TH MUS W L | spacing PATTERN TARGET DEADLINE_S DW DS KAPPA QW KH CH CV H DRAINAGE OUTLETS
+//   layered TERMS DRAINAGE L DW DS KAPPA QW DE T LAYERS (H CV CH MV)×LAYERS
 #include <cstdio>
 #include <iostream>
 #include <sstream>
@@ -10,6 +11,7 @@
 #include "wickgrid/cell.hpp"
 #include "wickgrid/combine.hpp"
 #include "wickgrid/errors.hpp"
+#include "wickgrid/layered.hpp"
 #include "wickgrid/radial.hpp"
 #include "wickgrid/search.hpp"
 #include "wickgrid/vertical.hpp"
@@ -56,7 +58,22 @@ double answer(std::istringstream& in) {
         const auto limit = largest_spacing(spec, target, deadline, {0.5, 6.0});
         return limit.feasible && !limit.at_maximum ? limit.spacing_m : -1.0;
     }
-    throw InputError("probe request", 0.0, "one of uv tv F hansbo esmu free depth spacing");
+    if (kind == "layered") {
+        int terms = 0, layers = 0;
+        std::string drainage;
+        NumericalCellSpec spec;
+        double t = 0.0;
+        in >> terms >> drainage >> spec.drain_length_m >> spec.drain_diameter_m >> spec.smear_diameter_m >>
+            spec.smear_permeability_ratio >> spec.discharge_capacity_m3_per_s >> spec.influence_diameter_m >> t >> layers;
+        spec.drainage = drainage == "both" ? VerticalDrainage::both_faces : VerticalDrainage::top_only;
+        for (int i = 0; i < layers; ++i) {
+            NumericalLayer l;
+            in >> l.thickness_m >> l.cv_m2_per_s >> l.ch_m2_per_s >> l.mv_m2_per_kN;
+            spec.layers.push_back(l);
+        }
+        return LayeredCell(spec, RadialTheory::hansbo_1981, terms).degree(t);
+    }
+    throw InputError("probe request", 0.0, "one of uv tv F hansbo esmu free depth spacing layered");
 }
 }  // namespace
 
