@@ -204,6 +204,20 @@ TEST(MonitorCommand, BundledRecordsWithPiezometers) {
     EXPECT_NE(html.find("Excess pore pressure against time"), std::string::npos);
     EXPECT_NE(html.find("Asaoka plot"), std::string::npos);
     EXPECT_EQ(nlohmann::json::parse(slurp(out / "monitor.json"))["plates"].size(), 2u);
+    // The design's excess pore pressure at a piezometer's depth is the one `curve --depths` lists at
+    // that depth and time (one computation, CellModel::over_depth).
+    const auto& at = j["piezometers"][1]["design_at_depth"];
+    ASSERT_GT(at.size(), 60u);
+    const double day = at[60]["day"].get<double>();
+    char days[64];
+    std::snprintf(days, sizeof days, "%.17g", day);
+    const auto c = run("curve " + source("configs/staged-surcharge.yaml") +
+                       " --drain band-100x4 --pattern triangular --spacing 1.5 --json --depths 9 --at-days " + days);
+    ASSERT_EQ(c.exit_code, 0) << c.err;
+    const auto curve = nlohmann::json::parse(c.out);
+    EXPECT_NEAR(curve["points"][0]["excess_pore_pressure_kPa"][0].get<double>(),
+                at[60]["excess_pore_pressure_kPa"].get<double>(), 1e-9);
+    EXPECT_GT(at[60]["excess_pore_pressure_kPa"].get<double>(), 1.0);
 }
 
 TEST(ReadingsFile, PlatesGapsAndFillChanges) {

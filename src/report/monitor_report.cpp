@@ -86,8 +86,15 @@ json monitor_json(const results::MonitorRecord& r) {
         for (const auto& [t, u] : p.readings) peak = std::max(peak, u);
         json readings = json::array();
         for (const auto& [t, u] : p.readings) readings.push_back({{"day", days(t)}, {"excess_pore_pressure_kPa", u}});
+        const std::size_t k = static_cast<std::size_t>(&p - r.piezometers.data());
+        json design = json::array();
+        if (k < r.design_excess_at_piezometer_kPa.size())
+            for (std::size_t i = 0; i < r.design_excess_at_piezometer_kPa[k].size(); ++i)
+                design.push_back({{"day", days(r.pore_times_s[i])},
+                                  {"excess_pore_pressure_kPa", r.design_excess_at_piezometer_kPa[k][i]}});
         piezometers.push_back({{"piezometer", p.piezometer},
                                {"depth_m", p.depth_m},
+                               {"design_at_depth", design},
                                {"last_day", days(p.readings.back().first)},
                                {"last_excess_pore_pressure_kPa", p.readings.back().second},
                                {"peak_excess_pore_pressure_kPa", peak},
@@ -220,6 +227,15 @@ std::string pore_pressure_chart(const results::MonitorRecord& r) {
             s.y.push_back(u);
         }
         c.series.push_back(s);
+        // The design at this piezometer's depth, in the piezometer's colour, drawn as a line.
+        if (k < r.design_excess_at_piezometer_kPa.size() && !r.design_excess_at_piezometer_kPa[k].empty()) {
+            Series d{"design at " + fixed(p.depth_m, 1) + " m", {}, {}, observed_styles[k % 4], false};
+            for (std::size_t i = 0; i < r.design_excess_at_piezometer_kPa[k].size(); ++i) {
+                d.x.push_back(days(r.pore_times_s[i]));
+                d.y.push_back(r.design_excess_at_piezometer_kPa[k][i]);
+            }
+            c.series.push_back(d);
+        }
     }
     if (!r.design_mean_excess_kPa.empty()) {
         Series d{"design (clay mean)", {}, {}, 1, false};
@@ -277,8 +293,9 @@ std::string monitor_html(const results::MonitorRecord& r) {
     }
     if (!r.piezometers.empty())
         o << "<h2>Piezometers</h2>\n<figure>" << pore_pressure_chart(r)
-          << "<figcaption>Observed excess pore pressure at each piezometer; the design line is the mean over the clay "
-             "(applied load less U × the final permanent load), not the value at a piezometer's depth.</figcaption></figure>\n";
+          << "<figcaption>Observed excess pore pressure at each piezometer (points) beside the design's value at its "
+             "depth (line of the same colour; the closed form and the layered series resolve depth) and the design's "
+             "mean over the clay (applied load less U × the final permanent load).</figcaption></figure>\n";
     o << "<h2>Method and assumptions</h2>\n<ul>\n";
     for (const auto& a : r.assumptions) o << "<li>" << escape_xml(a) << "</li>\n";
     o << "</ul>\n<h2>References</h2>\n<ul>\n";

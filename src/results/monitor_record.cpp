@@ -163,6 +163,26 @@ void add_piezometers(MonitorRecord& record, std::vector<scenario::PiezometerReco
         // Linear theory: the mean effective stress gained is U × the final permanent load.
         record.design_mean_excess_kPa.push_back(h.applied_at_kPa(record.pore_times_s[i]) - u[i] * h.permanent_kPa());
     }
+    // At each piezometer's depth, where the method resolves depth.
+    const double thickness = site.ground.thickness_m;
+    for (const auto& p : record.piezometers) {
+        std::vector<double> at;
+        if (p.depth_m > thickness) {
+            record.warnings.push_back("Piezometer " + p.piezometer + " at " + format_value(p.depth_m) +
+                                      " m is below the clay (" + format_value(thickness) +
+                                      " m): no design value at its depth.");
+        } else {
+            for (const double t : record.pore_times_s) {
+                const auto state = design->over_depth({p.depth_m}, t);
+                if (!state) {
+                    at.clear();
+                    break;
+                }
+                at.push_back(state->front().excess_pore_pressure_kPa);
+            }
+        }
+        record.design_excess_at_piezometer_kPa.push_back(std::move(at));
+    }
 }
 
 }  // namespace wickgrid::results

@@ -54,6 +54,9 @@ struct MonitorRecord {
     std::vector<scenario::PiezometerRecord> piezometers;
     std::vector<double> pore_times_s;
     std::vector<double> design_mean_excess_kPa;
+    // The design's excess pore pressure at each piezometer's depth at pore_times_s (CellModel::
+    // over_depth); empty for a piezometer below the clay or with a method that reports depth means only.
+    std::vector<std::vector<double>> design_excess_at_piezometer_kPa;
 };
 
 // Adds the piezometer records and the design's depth-mean excess pore pressure over their span.
