@@ -83,7 +83,8 @@ json design_json(const results::DesignRecord& record) {
                 {"target", target_json(site)},
                 {"loading", site.loading ? "staged" : "instantaneous"},
                 {"method", std::string(to_string(site.method.method))},
-                {"degree_basis", "relative to the final permanent load"},
+                {"degree_basis", site.loading && site.loading->stages.empty() ? "relative to the steady state under the vacuum held"
+                                                                               : "relative to the final permanent load"},
                 {"radial_theory", std::string(to_string(site.installation.theory))},
                 {"smear_shape", std::string(to_string(site.installation.smear_shape))},
                 {"ranking", std::string(to_string(record.result.ranking))},
@@ -102,6 +103,13 @@ json design_json(const results::DesignRecord& record) {
                              {"local_degree", r.local_degree ? json(*r.local_degree) : json(nullptr)},
                              {"final_settlement_mm", r.final_m * 1000.0}, {"settlement_at_deadline_mm", r.at_deadline_m * 1000.0}});
     out["sublayers"] = sublayers;
+    if (site.loading && site.loading->vacuum) {
+        const auto& v = *site.loading->vacuum;
+        out["vacuum"] = {{"pressure_kPa", v.pressure_kPa}, {"start_day", days(v.start_s)}, {"end_day", days(v.end_s)},
+                         {"tip_ratio", v.tip_ratio}};
+    } else {
+        out["vacuum"] = nullptr;
+    }
     add_title_block(out, s);
     return out;
 }
@@ -284,6 +292,10 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
         if (const auto& su = site.loading->surcharge)
             rows.emplace_back("surcharge", fixed(su->pressure_kPa, 1) + " kPa, day " + fixed(days(su->start_s), 0) + " to " +
                                                fixed(days(su->end_s), 0) + ", removed day " + fixed(days(su->removal_s), 0));
+        if (const auto& v = site.loading->vacuum)
+            rows.emplace_back("vacuum", fixed(v->pressure_kPa, 1) + " kPa at the drain head, " + fixed(v->tip_ratio, 2) +
+                                            " of it at the tip, day " + fixed(days(v->start_s), 0) + " to " +
+                                            fixed(days(v->end_s), 0));
     }
     if (g.profile) {
         rows.emplace_back("groundwater", fixed(g.profile->groundwater_depth_m, 2) + " m below the top of the clay");
