@@ -133,11 +133,12 @@ struct LayeredCell::Model {
         return layers.back();
     }
 
-    // Strain integral ∫mv(σ − ū)dz (m) of one event at t, with the tail lumped at the last rate.
+    // Strain integral ∫mv(σ − ū)dz (m) of one event at t, the modes beyond the last kept by the tail
+    // model above.
     double strain(const Event& e, double t) const {
         if (t <= e.start_s) return 0.0;
         if (e.group == vacuum_group) return -e.rate * modal_response(e, lambda, e.amplitude.cwiseProduct(beta), t);
-        // A load: Δq·(M·in place − Σβ²·response − tail·response at the last rate).
+        // A load: Δq·(M·in place − Σβ²·response − tail·its response).
         const double size = e.kind == Event::Kind::jump ? e.load_kPa : e.rate;
         const double modes = modal_response(e, lambda, beta_squared, t) + tail * tail_response(e, t);
         return size * (mv_integral * in_place(e, t) - modes);
