@@ -310,7 +310,7 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
             if (l.ch_m2_per_s) text += ", ch = " + fixed(units::per_second_to_per_year(*l.ch_m2_per_s), 3) + " m²/year";
             if (i < record.cell_layers.size()) {
                 const auto& c = record.cell_layers[i];
-                text += "; in the numerical cell mv = " + scientific(c.mv_m2_per_kN) + " m²/kN, kv = " +
+                text += "; as the cell model takes them mv = " + scientific(c.mv_m2_per_kN) + " m²/kN, kv = " +
                         scientific(c.kv_m_per_s) + " m/s, kh = " + scientific(c.kh_m_per_s) + " m/s";
             }
             rows.emplace_back("clay layer " + std::to_string(i + 1), text);

@@ -63,8 +63,8 @@ struct DesignRecord {
     std::vector<SpacingSeries> spacing_vs_time;
     Studies studies;
     std::vector<SubLayerRow> sublayers;  // empty without clay layers and a load history
-    // The numerical cell's own layer properties (mv, secant for e–log layers; kv and kh = c·mv·γw),
-    // as the inputs table shows them; empty for the closed form.
+    // The layer properties the numerical cell and the layered series take (mv, secant for e–log layers;
+    // kv and kh = c·mv·γw), as the inputs table shows them; empty for the closed form.
     struct CellLayer {
         double mv_m2_per_kN = 0.0;
         double kv_m_per_s = 0.0;
