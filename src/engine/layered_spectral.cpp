@@ -78,6 +78,52 @@ struct Basis {
         }
     }
 };
+// sin(n·π·x) for n = 0..count (angle addition from one sin and cos).
+std::vector<double> sines(double x, int count) {
+    std::vector<double> out(static_cast<std::size_t>(count) + 1);
+    const double s1 = std::sin(pi * x), c1 = std::cos(pi * x);
+    double s = 0.0, c = 1.0;
+    for (auto& v : out) {
+        v = s;
+        const double next = s * c1 + c * s1;
+        c = c * c1 - s * s1;
+        s = next;
+    }
+    return out;
+}
+
+// Adds, exactly, one layer's storage and vertical-flow integrals over [a, b]:
+// Γ += mv·∫φiφj, Ψ += kv/γw·∫φi′φj′, b += mv·∫φi, ∫φi. With k = m/H every sum and difference of
+// two numbers is a multiple of π/H, so each integral is a difference of sines at a and b.
+void add_layer_exactly(const Basis& basis, double a, double b, double mv, double kv_over_gw, Mat& gamma, Mat& psi,
+                       Vec& load, Vec& phi_integral) {
+    const long n = basis.m.size();
+    const double h = basis.height_m;
+    const int top = static_cast<int>(2 * n + 2);
+    const auto sa = sines(a / h, top), sb = sines(b / h, top);
+    // ∫_a^b cos(j·π·z/H)dz.
+    auto cos_integral = [&](long j) {
+        if (j == 0) return b - a;
+        return (sb[static_cast<std::size_t>(j)] - sa[static_cast<std::size_t>(j)]) * h / (j * pi);
+    };
+    const bool both = basis.drainage == VerticalDrainage::both_faces;
+    const double sign = basis.cosine() ? 1.0 : -1.0;  // φφ = ½[cos(d) ∓ cos(s)]: − for sin, + for cos
+    for (long i = 0; i < n; ++i) {
+        const double ki = basis.m[i] / h;
+        for (long j = 0; j <= i; ++j) {
+            const double kj = basis.m[j] / h;
+            const double cd = cos_integral(i - j), cs = cos_integral(i + j + (both ? 2 : 1));
+            const double values = 0.5 * (cd + sign * cs), slopes = 0.5 * (cd - sign * cs);
+            gamma(i, j) += mv * values;
+            psi(i, j) += kv_over_gw * ki * kj * slopes;
+        }
+        // ∫φi: sin → (cos(ka) − cos(kb))/k; cos → (sin(kb) − sin(ka))/k.
+        const double ka = ki * a, kb = ki * b;
+        const double integral = basis.cosine() ? (std::sin(kb) - std::sin(ka)) / ki : (std::cos(ka) - std::cos(kb)) / ki;
+        load[i] += mv * integral;
+        phi_integral[i] += integral;
+    }
+}
 }  // namespace
 
 struct LayeredCell::Model {
@@ -265,31 +311,34 @@ LayeredCell::LayeredCell(const NumericalCellSpec& spec, RadialTheory theory, int
         return 1.0 - (1.0 - spec.loading->vacuum->tip_ratio) * z / length;
     };
 
-    // Assembly by Gauss–Legendre (10 points) on pieces no longer than H/terms between the marks.
-    using GL = boost::math::quadrature::gauss<double, 10>;
-    const auto& x = GL::abscissa();
-    const auto& w = GL::weights();
+    // Storage and vertical flow exactly, layer by layer (constant properties); the radial term, whose
+    // μ(z) varies along the drain, by Gauss–Legendre (10 points) on pieces no longer than H/terms.
     Mat gamma = Mat::Zero(terms, terms), psi = Mat::Zero(terms, terms);
     Vec b = Vec::Zero(terms), g = Vec::Zero(terms), phi(terms), dphi(terms);
     m.phi_integral = Vec::Zero(terms);
-    double mu_sum = 0.0, vertical_diag = 0.0, radial_diag = 0.0;
+    for (double top = 0.0; const auto& L : spec.layers) {
+        add_layer_exactly(m.basis, top, top + L.thickness_m, L.mv_m2_per_kN, L.cv_m2_per_s * L.mv_m2_per_kN, gamma, psi, b,
+                          m.phi_integral);
+        m.mv_integral += L.mv_m2_per_kN * L.thickness_m;
+        top += L.thickness_m;
+    }
+    const double vertical_diag = psi(terms - 1, terms - 1);
+    using GL = boost::math::quadrature::gauss<double, 10>;
+    const auto& x = GL::abscissa();
+    const auto& w = GL::weights();
+    double mu_sum = 0.0, radial_diag = 0.0;
     const auto marks = marks_of(spec, height, length, drain);
     auto add_point = [&](double z, double weight) {
         const NumericalLayer& L = m.layer_at(z);
         m.basis.values(z, phi, dphi);
-        const double kv = L.cv_m2_per_s * L.mv_m2_per_kN * gw, eta = eta_at(z, L);
-        gamma.selfadjointView<Eigen::Lower>().rankUpdate(phi, weight * L.mv_m2_per_kN);
-        psi.selfadjointView<Eigen::Lower>().rankUpdate(dphi, weight * kv / gw);
-        if (eta > 0.0) psi.selfadjointView<Eigen::Lower>().rankUpdate(phi, weight * eta);
-        vertical_diag += weight * kv / gw * dphi[terms - 1] * dphi[terms - 1];
+        const double eta = eta_at(z, L);
+        psi.selfadjointView<Eigen::Lower>().rankUpdate(phi, weight * eta);
         radial_diag += weight * eta * phi[terms - 1] * phi[terms - 1];
-        b += weight * L.mv_m2_per_kN * phi;
         g -= weight * eta * vacuum_shape(z) * phi;
-        m.phi_integral += weight * phi;
-        m.mv_integral += weight * L.mv_m2_per_kN;
-        if (drain && z < length) mu_sum += weight * mu_at(z, L.ch_m2_per_s * L.mv_m2_per_kN * gw);
+        mu_sum += weight * mu_at(z, L.ch_m2_per_s * L.mv_m2_per_kN * gw);
     };
     for (std::size_t s = 0; s + 1 < marks.size(); ++s) {
+        if (!drain || marks[s] >= length * (1 - 1e-12)) break;  // below the tip: no radial term
         const double a = marks[s], span = marks[s + 1] - marks[s];
         const int pieces = std::max(1, static_cast<int>(std::ceil(span * terms / height)));
         for (int p = 0; p < pieces; ++p) {
