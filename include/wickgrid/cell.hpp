@@ -54,6 +54,13 @@ struct Degrees {
 void validate_clay(const Clay& clay);
 void validate_drain(const DrainInstallation& drain, const Clay& clay);
 
+// μ(z) at a depth (m below the drain head, 0..length) of a drain of that length: the smear μs plus
+// Hansbo's (1981) well resistance (hansbo_mu_well) with z from the nearest outlet (the head, or
+// either end with two outlets) and l the length from the outlet. qw may be +∞ (no well resistance).
+// A depth past the end by rounding is taken at the end. Cost: O(1).
+double mu_at_depth(double mu_smear, double depth_m, double length_m, DrainOutlets outlets, double kh_m_per_s,
+                   double qw_m3_per_s);
+
 // Smallest spacing for which the smear zone still lies inside the unit cell.
 double minimum_spacing_m(const DrainInstallation& drain, Pattern pattern);
 

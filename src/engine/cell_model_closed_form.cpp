@@ -111,10 +111,8 @@ private:
             case VerticalDrainage::top_only: ratio = std::min(1.0, z / h); break;
             case VerticalDrainage::bottom_only: ratio = std::max(0.0, (h - z) / h); break;
         }
-        const double length = spec.drain.length_m, l = cell_.outlet_length_m();
-        const double zz = spec.drain.outlets == DrainOutlets::top_and_bottom ? std::min(z, length - z) : z;
-        const double mu = cell_.mu_smear() + boost::math::double_constants::pi * zz * (2.0 * l - zz) * spec.clay.kh_m_per_s /
-                                                 spec.drain.discharge_capacity_m3_per_s;
+        const double mu = mu_at_depth(cell_.mu_smear(), z, spec.drain.length_m, spec.drain.outlets, spec.clay.kh_m_per_s,
+                                      spec.drain.discharge_capacity_m3_per_s);
         const double d = cell_.drainage_path_m(), de = cell_.influence_diameter_m();
         const double cv = spec.clay.cv_m2_per_s, ch = spec.clay.ch_m2_per_s;
         return [=](double t) {

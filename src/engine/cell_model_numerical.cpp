@@ -15,22 +15,18 @@ namespace {
 // Depth mean over the drain of μ(z) = μs + π·z(2l − z)·kh(z)/qw (Hansbo 1981), with z from the nearest
 // outlet and kh of the layer at that depth (kh = ch·mv·γw, as the numerical cell uses).
 double mu_depth_mean_layered(const NumericalCellSpec& spec, double mu_smear) {
-    constexpr double pi = boost::math::double_constants::pi;
     const double length = spec.drain_length_m;
-    const bool both = spec.outlets == DrainOutlets::top_and_bottom;
-    const double l = both ? 0.5 * length : length;
     constexpr int points = 4000;  // midpoint rule on a smooth piecewise quadratic: error ~1e-7 relative
     double sum = 0.0;
     for (int i = 0; i < points; ++i) {
         const double depth = (i + 0.5) * length / points;
-        const double z = both ? std::min(depth, length - depth) : depth;
         double top = 0.0, kh = 0.0;
         for (const auto& layer : spec.layers) {
             kh = layer.ch_m2_per_s * layer.mv_m2_per_kN * units::gamma_w_kN_per_m3;
             if (depth < top + layer.thickness_m) break;
             top += layer.thickness_m;
         }
-        sum += mu_smear + pi * z * (2.0 * l - z) * kh / spec.discharge_capacity_m3_per_s;
+        sum += mu_at_depth(mu_smear, depth, length, spec.outlets, kh, spec.discharge_capacity_m3_per_s);
     }
     return sum / points;
 }

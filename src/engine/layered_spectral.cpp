@@ -295,11 +295,8 @@ LayeredCell::LayeredCell(const NumericalCellSpec& spec, RadialTheory theory, int
                              "greater than the smear diameter " + format_value(spec.smear_diameter_m) + " m");
         m.mu_smear = smear_mu(d, n, spec.influence_diameter_m);
     }
-    const bool both = spec.outlets == DrainOutlets::top_and_bottom;
-    const double l_out = both ? 0.5 * length : length;
     auto mu_at = [&](double z, double kh) {
-        const double zz = both ? std::min(z, length - z) : z;
-        return m.mu_smear + pi * zz * (2.0 * l_out - zz) * kh / spec.discharge_capacity_m3_per_s;
+        return mu_at_depth(m.mu_smear, z, length, spec.outlets, kh, spec.discharge_capacity_m3_per_s);
     };
     auto eta_at = [&](double z, const NumericalLayer& L) {
         if (!drain || z >= length) return 0.0;

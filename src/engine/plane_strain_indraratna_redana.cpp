@@ -69,8 +69,6 @@ double plane_strain_mu(const PlaneStrainMatch& match, double b_m, double rw_m, d
 std::vector<PlaneStrainLayer> plane_strain_layers(const NumericalCellSpec& spec, double mu_smear) {
     const double re = 0.5 * spec.influence_diameter_m, rw = 0.5 * spec.drain_diameter_m, rs = 0.5 * spec.smear_diameter_m;
     const double length = spec.has_drain ? spec.drain_length_m : 0.0, qw = spec.discharge_capacity_m3_per_s;
-    const bool both = spec.outlets == DrainOutlets::top_and_bottom;
-    const double l = both ? 0.5 * length : length;
     const PlaneStrainMatch match = indraratna_redana_match(re, rw, rs, mu_smear, qw);
     std::vector<PlaneStrainLayer> out;
     double top = 0.0;
@@ -87,8 +85,7 @@ std::vector<PlaneStrainLayer> plane_strain_layers(const NumericalCellSpec& spec,
             double sum = 0.0;
             for (int k = 0; k < points; ++k) {
                 const double depth = top + (k + 0.5) * (end - top) / points;
-                const double z = both ? std::min(depth, length - depth) : depth;
-                sum += mu_smear + (std::isfinite(qw) ? pi * z * (2 * l - z) * p.kh_m_per_s / qw : 0.0);
+                sum += mu_at_depth(mu_smear, depth, length, spec.outlets, p.kh_m_per_s, qw);
             }
             p.mu_mean = sum / points;
             p.hird_khp_m_per_s = plane_strain_permeability_m_per_s(p.kh_m_per_s, p.mu_mean);

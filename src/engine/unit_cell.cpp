@@ -1,5 +1,6 @@
 // A unit cell: Terzaghi vertical flow, equal-strain radial flow (Hansbo 1981 or the general
 // integral) averaged over the drain length, combined by Carrillo (1942).
+#include <algorithm>
 #include <boost/math/constants/constants.hpp>
 #include <cmath>
 
@@ -55,6 +56,14 @@ double smear_mu(const DrainInstallation& drain, double n, double spacing_m) {
                          "large enough for a positive radial flow factor (mu = " + format_value(mu) +
                              "; the closed form fails for n near s)");
     return mu;
+}
+
+double mu_at_depth(double mu_smear, double depth_m, double length_m, DrainOutlets outlets, double kh_m_per_s,
+                   double qw_m3_per_s) {
+    const bool two = outlets == DrainOutlets::top_and_bottom;
+    const double l = two ? 0.5 * length_m : length_m;
+    const double z = std::clamp(two ? std::min(depth_m, length_m - depth_m) : depth_m, 0.0, l);
+    return mu_smear + hansbo_mu_well(z, l, kh_m_per_s, qw_m3_per_s);
 }
 
 namespace {
