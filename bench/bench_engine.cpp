@@ -7,6 +7,7 @@
 #include "wickgrid/studies.hpp"
 #include "wickgrid/numerical.hpp"
 #include "wickgrid/layered.hpp"
+#include "wickgrid/stages.hpp"
 #include "wickgrid/cell_model.hpp"
 #include "scenario/scenario.hpp"
 #include "report/layout_report.hpp"
@@ -177,3 +178,27 @@ static void BM_LayeredCellTerms(benchmark::State& state) {
     for (auto _ : state) benchmark::DoNotOptimize(LayeredCell(spec, s.site.installation.theory, static_cast<int>(state.range(0))));
 }
 BENCHMARK(BM_LayeredCellTerms)->Arg(12)->Arg(24)->Arg(48)->Unit(benchmark::kMicrosecond);
+
+// One stage check: the critical-circle search of the staged-embankment scenario's last stage at the
+// end of its placement, strength gained by then (the target: under 50 ms on one core). The
+// slope model (cell model and pore pressures over depth) is built once outside the loop; the
+// search calls the strength at every slice.
+static void BM_StageCircleSearch(benchmark::State& state) {
+    const auto s = scenario::load_scenario(std::string(WICKGRID_SOURCE_DIR) + "/configs/staged-embankment-stability.yaml");
+    const auto model = make_cell_model(s.site, s.site.products.front(), Pattern::triangular, 1.4);
+    const double t = s.site.loading->end_of_construction_s();
+    const SlopeModel slope = stage_slope_model(s.site, *model, t);
+    for (auto _ : state) benchmark::DoNotOptimize(critical_circle(slope));
+}
+BENCHMARK(BM_StageCircleSearch)->Unit(benchmark::kMillisecond);
+
+// The same stage with its model built: cell model, pore pressure over depth and the search.
+static void BM_StageCheckWhole(benchmark::State& state) {
+    const auto s = scenario::load_scenario(std::string(WICKGRID_SOURCE_DIR) + "/configs/staged-embankment-stability.yaml");
+    const double t = s.site.loading->end_of_construction_s();
+    for (auto _ : state) {
+        const auto model = make_cell_model(s.site, s.site.products.front(), Pattern::triangular, 1.4);
+        benchmark::DoNotOptimize(critical_circle(stage_slope_model(s.site, *model, t)));
+    }
+}
+BENCHMARK(BM_StageCheckWhole)->Unit(benchmark::kMillisecond);

@@ -37,6 +37,14 @@ inline constexpr double vacuum_tip_ratio = 1.0;
 inline constexpr int slices_per_layer = 10;
 inline constexpr double secant_probe_kPa = 50.0;  // load for a layer's secant mv when no loading is given
 
+// Stage stability (strength.hpp, embankment.hpp): the gain ratio Δsu/Δσ'v of the profile form
+// (Mesri 1975, su/σ'p ≈ 0.22, from memory), the exponent m of the normalised form (Ladd & Foott
+// 1974, from memory) and the target factor of safety of a stage when the scenario gives none
+// (common practice for the end of each stage of an embankment on soft clay).
+inline constexpr double su_gain_ratio = 0.22;
+inline constexpr double strength_exponent = 0.8;
+inline constexpr double target_factor_of_safety = 1.3;
+
 // Curves.
 inline constexpr int curve_points = 31;
 inline constexpr double curve_span_of_deadline = 1.5;  // curves run to 1.5 × deadline by default

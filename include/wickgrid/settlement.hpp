@@ -7,6 +7,7 @@
 
 #include "wickgrid/defaults.hpp"
 #include "wickgrid/loading.hpp"
+#include "wickgrid/strength.hpp"
 
 namespace wickgrid {
 
@@ -19,6 +20,8 @@ struct SoilLayer {
     std::optional<double> mv_m2_per_kN;
     // Consolidation coefficients of this layer (numerical method); absent: the clay's.
     std::optional<double> cv_m2_per_s, ch_m2_per_s;
+    // Undrained strength (stage stability); absent: the layer's strength is not given.
+    std::optional<UndrainedStrength> strength;
 };
 
 struct SoilProfile {

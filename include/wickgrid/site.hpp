@@ -11,6 +11,7 @@
 
 #include "wickgrid/cell.hpp"
 #include "wickgrid/defaults.hpp"
+#include "wickgrid/embankment.hpp"
 #include "wickgrid/loading.hpp"
 #include "wickgrid/numerical.hpp"
 #include "wickgrid/search.hpp"
@@ -108,6 +109,10 @@ struct Site {
     Criterion criterion;
     MethodChoice method;
     SearchRange range;
+    // The embankment's cross-section: the load spreads with depth under its centre line (Osterberg
+    // 1957) for settlement and strength gain, and stages are checked for stability. Absent: a
+    // uniform load of wide extent.
+    std::optional<EmbankmentSection> embankment;
 
     // The product of that name (InputError naming it if there is none).
     const DrainProductSpec& product(const std::string& name) const;
@@ -121,8 +126,27 @@ struct Site {
 // drain length); throws InputError naming the quantity. Cost: O(layers).
 void validate_site(const Site& site);
 
-// Ultimate primary settlement (m) under a total load q (kPa) on this site: the e–log/mv profile, or
-// mv·q·H of the uniform clay; without a settlement model, q itself (so that settlement histories
+// The vertical stress increase (kPa) at a depth (m below the top of the clay) under a surface load
+// q (kPa): q itself, or under the embankment's centre line with the fill height q/γ (Osterberg's
+// influence). Cost: a few atan calls.
+double load_at_depth_kPa(const Site& site, double surface_load_kPa, double depth_m);
+
+// One slice of the settlement sum under a surface load: its layer (0-based), centre depth,
+// thickness, initial effective stress (absent for one uniform clay by mv), the load there and its
+// final primary settlement. Layers: the profile's slices; one uniform clay by mv:
+// defaults::slices_per_layer equal slices. Throws InputError without a settlement model.
+struct SettlementSlice {
+    std::size_t layer = 0;
+    double depth_m = 0.0;
+    double thickness_m = 0.0;
+    std::optional<double> sigma_v0_kPa;
+    double load_kPa = 0.0;
+    double final_m = 0.0;
+};
+std::vector<SettlementSlice> settlement_slices(const Site& site, double surface_load_kPa);
+
+// Ultimate primary settlement (m) under a total load q (kPa) on this site: the sum of its
+// settlement slices; without a settlement model, q itself (so that settlement histories
 // become load-weighted degrees).
 std::function<double(double load_kPa)> ultimate_settlement_function(const Site& site);
 

@@ -48,6 +48,7 @@ int main(int argc, char** argv) {
     const cli::Runner verify = cli::add_verify(app);
     const cli::Runner layout_cmd = cli::add_layout(app);
     const cli::Runner monitor = cli::add_monitor(app);
+    const cli::Runner stages = cli::add_stages(app);
     // An unknown command name gets its own message (CLI11 would only say a subcommand is required).
     if (argc > 1 && argv[1][0] != '-') {
         std::vector<std::string> names;
@@ -84,6 +85,7 @@ int main(int argc, char** argv) {
         if (app.got_subcommand("verify")) return verify();
         if (app.got_subcommand("layout")) return layout_cmd();
         if (app.got_subcommand("monitor")) return monitor();
+        if (app.got_subcommand("stages")) return stages();
     } catch (...) {
         return cli::report_current_exception();
     }

@@ -72,14 +72,49 @@ void validate_site(const Site& site) {
     if (site.loading) validate_load_history(*site.loading);
 }
 
-std::function<double(double)> ultimate_settlement_function(const Site& site) {
-    if (site.loading && site.ground.profile) {
-        const SoilProfile p = *site.ground.profile;
-        return [p](double q) { return ultimate_settlement_m(p, q); };
+double load_at_depth_kPa(const Site& site, double q, double depth_m) {
+    if (!site.embankment || q <= 0.0) return q;
+    const double height = q / site.embankment->fill_unit_weight_kN_per_m3;
+    return q * centreline_influence(*site.embankment, height, depth_m);
+}
+
+std::vector<SettlementSlice> settlement_slices(const Site& site, double q) {
+    std::vector<SettlementSlice> out;
+    if (const auto& profile = site.ground.profile) {
+        const auto all = slices(*profile);
+        std::size_t k = 0;
+        for (std::size_t l = 0; l < profile->layers.size(); ++l)
+            for (int i = 0; i < profile->slices_per_layer; ++i, ++k) {
+                const double load = load_at_depth_kPa(site, q, all[k].depth_m);
+                out.push_back({l, all[k].depth_m, all[k].thickness_m, all[k].sigma_v0_kPa, load,
+                               slice_settlement_m(profile->layers[l], all[k], load)});
+            }
+        return out;
     }
-    if (site.loading && site.ground.mv_m2_per_kN) {
-        const double mv = *site.ground.mv_m2_per_kN, h = site.ground.thickness_m;
-        return [mv, h](double q) { return mv * q * h; };
+    if (!site.ground.mv_m2_per_kN) throw InputError("clay.mv_m2_per_kN", 0.0, "given, or clay.layers (a settlement model)");
+    const double mv = *site.ground.mv_m2_per_kN, h = site.ground.thickness_m / defaults::slices_per_layer;
+    for (int i = 0; i < defaults::slices_per_layer; ++i) {
+        const double z = (i + 0.5) * h, load = load_at_depth_kPa(site, q, z);
+        out.push_back({0, z, h, std::nullopt, load, mv * load * h});
+    }
+    return out;
+}
+
+std::function<double(double)> ultimate_settlement_function(const Site& site) {
+    if (site.loading && (site.ground.profile || site.ground.mv_m2_per_kN)) {
+        if (!site.embankment && site.ground.profile) {
+            const SoilProfile p = *site.ground.profile;
+            return [p](double q) { return ultimate_settlement_m(p, q); };
+        }
+        if (!site.embankment) {
+            const double mv = *site.ground.mv_m2_per_kN, h = site.ground.thickness_m;
+            return [mv, h](double q) { return mv * q * h; };
+        }
+        return [site](double q) {
+            double total = 0.0;
+            for (const auto& s : settlement_slices(site, q)) total += s.final_m;
+            return total;
+        };
     }
     return [](double q) { return q; };
 }

@@ -81,22 +81,9 @@ std::vector<SubLayerRow> sublayer_rows(const DesignRecord& record) {
     const double load = site.loading->permanent_kPa();
     const double share = *row->settlement_at_deadline_m / *row->ultimate_settlement_m;
     std::vector<SubLayerRow> out;
-    if (!site.ground.profile) {  // one uniform clay by mv: slices of equal thickness, settlement ∝ thickness
-        const double h = site.ground.thickness_m, n = defaults::slices_per_layer;
-        for (int i = 0; i < defaults::slices_per_layer; ++i)
-            out.push_back({1, (i + 0.5) * h / n, h / n, std::nullopt, load, *row->ultimate_settlement_m / n,
-                           *row->settlement_at_deadline_m / n, std::nullopt, std::nullopt});
-    } else {
-        const SoilProfile& profile = *site.ground.profile;
-        const auto all = slices(profile);
-        std::size_t k = 0;
-        for (std::size_t l = 0; l < profile.layers.size(); ++l)
-            for (int i = 0; i < profile.slices_per_layer; ++i, ++k) {
-                const double final_m = slice_settlement_m(profile.layers[l], all[k], load);
-                out.push_back({l + 1, all[k].depth_m, all[k].thickness_m, all[k].sigma_v0_kPa, load, final_m,
-                               share * final_m, std::nullopt, std::nullopt});
-            }
-    }
+    for (const SettlementSlice& slice : settlement_slices(site, load))
+        out.push_back({slice.layer + 1, slice.depth_m, slice.thickness_m, slice.sigma_v0_kPa, slice.load_kPa, slice.final_m,
+                       share * slice.final_m, std::nullopt, std::nullopt});
     // The degree over depth at the deadline, where the method gives it.
     std::vector<double> depths;
     for (const auto& r : out) depths.push_back(r.depth_m);

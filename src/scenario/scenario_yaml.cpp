@@ -174,7 +174,7 @@ private:
 const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "drains", "drain_length_m",
                                         "drain_outlets", "installation", "patterns", "spacing", "studies",
                                         "uncertain", "fill_unit_weight_kN_per_m3", "loading", "method",
-                                        "numerical_mesh", "project", "series_terms"};
+                                        "numerical_mesh", "project", "series_terms", "embankment"};
 
 void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "target");
@@ -198,6 +198,41 @@ void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     c.deadline_s = units::days_to_seconds(r.number(node, "target", "deadline_days", positive("days")));
 }
 
+// The undrained strength of one layer (stage checks): the profile form or the normalised form.
+std::optional<UndrainedStrength> read_strength(const Reader& r, const YAML::Node& l, const std::string& path,
+                                               double thickness_m) {
+    if (l["su_top_kPa"] && l["su_ratio"])
+        r.fail(l["su_ratio"], path + ".su_ratio", "give either 'su_top_kPa' (with a gradient) or 'su_ratio', not both");
+    const auto only_with = [&](const char* key, const char* form) {
+        if (l[key]) r.fail(l[key], path + "." + key, std::string("goes with '") + form + "' only");
+    };
+    UndrainedStrength st;
+    if (l["su_top_kPa"]) {
+        only_with("strength_exponent", "su_ratio");
+        st.su_top_kPa = r.number(l, path, "su_top_kPa", positive("kPa"));
+        st.su_gradient_kPa_per_m = r.optional_number(l, path, "su_gradient_kPa_per_m", {-inf, false, inf, false, "kPa/m"});
+        st.gain_ratio = r.optional_number(l, path, "su_gain_ratio", {0.0, true, 2.0, false, ""}).value_or(defaults::su_gain_ratio);
+        const double at_base = *st.su_top_kPa + st.su_gradient_kPa_per_m.value_or(0.0) * thickness_m;
+        if (!(at_base > 0.0))
+            r.fail(l["su_gradient_kPa_per_m"], path + ".su_gradient_kPa_per_m",
+                   format_value(*st.su_gradient_kPa_per_m) + " kPa/m takes su to " + format_value(at_base) +
+                       " kPa at the base of the layer; su must stay greater than 0");
+        return st;
+    }
+    if (l["su_ratio"]) {
+        only_with("su_gradient_kPa_per_m", "su_top_kPa");
+        only_with("su_gain_ratio", "su_top_kPa");
+        st.su_ratio = r.number(l, path, "su_ratio", {0.0, false, 2.0, false, ""});
+        st.strength_exponent = r.optional_number(l, path, "strength_exponent", {0.0, true, 1.0, true, ""})
+                                   .value_or(defaults::strength_exponent);
+        st.gain_ratio = *st.su_ratio;
+        return st;
+    }
+    for (const char* key : {"su_gradient_kPa_per_m", "su_gain_ratio", "strength_exponent"})
+        if (l[key]) r.fail(l[key], path + "." + key, "needs 'su_top_kPa' or 'su_ratio' in the same layer");
+    return std::nullopt;
+}
+
 void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
     const YAML::Node node = clay["layers"];
     r.remember("clay.layers", node);
@@ -213,7 +248,8 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
         r.remember(path, l);
         r.expect_map(l, path);
         r.allow_keys(l, path, {"thickness_m", "unit_weight_kN_per_m3", "e0", "cc", "cr", "preconsolidation_kPa", "ocr",
-                               "mv_m2_per_kN", "cv_m2_per_year", "ch_m2_per_year"});
+                               "mv_m2_per_kN", "cv_m2_per_year", "ch_m2_per_year", "su_top_kPa",
+                               "su_gradient_kPa_per_m", "su_ratio", "strength_exponent", "su_gain_ratio"});
         SoilLayer layer;
         if (const auto cv = r.optional_number(l, path, "cv_m2_per_year", positive("m²/year")))
             layer.cv_m2_per_s = units::per_year_to_per_second(*cv);
@@ -237,6 +273,7 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
             layer.preconsolidation_kPa = r.optional_number(l, path, "preconsolidation_kPa", positive("kPa"));
             layer.ocr = r.optional_number(l, path, "ocr", {1.0, true, inf, false, ""});
         }
+        layer.strength = read_strength(r, l, path, layer.thickness_m);
         profile.layers.push_back(layer);
     }
     try {
@@ -692,8 +729,38 @@ double stage_pressure(const Reader& r, const YAML::Node& node, const std::string
     return r.number(node, path, "pressure_kPa", positive("kPa"));
 }
 
+void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
+    if (!root["embankment"]) return;
+    const std::string path = "embankment";
+    const YAML::Node node = root[path];
+    r.remember(path, node);
+    r.expect_map(node, path);
+    r.allow_keys(node, path, {"crest_width_m", "side_slope_h_per_v", "fill_unit_weight_kN_per_m3", "fill_friction_angle_deg",
+                              "fill_cohesion_kPa", "target_factor_of_safety"});
+    EmbankmentSection e;
+    e.crest_width_m = r.number(node, path, "crest_width_m", non_negative("m"));
+    e.side_slope_h_per_v = r.number(node, path, "side_slope_h_per_v",
+                                    {0.0, true, inf, false, "(horizontal per vertical; 0 is vertical, below 0 steeper than vertical)"});
+    if (e.crest_width_m == 0.0 && e.side_slope_h_per_v == 0.0)
+        r.fail(node["crest_width_m"], path + ".crest_width_m",
+               "0 is not allowed with vertical sides (side_slope_h_per_v: 0): the section does not close");
+    e.fill_unit_weight_kN_per_m3 = r.number(node, path, "fill_unit_weight_kN_per_m3", positive("kN/m³"));
+    e.fill_friction_angle_deg = r.number(node, path, "fill_friction_angle_deg", {0.0, true, 90.0, false, "degrees"});
+    e.fill_cohesion_kPa = r.optional_number(node, path, "fill_cohesion_kPa", non_negative("kPa")).value_or(0.0);
+    e.target_factor_of_safety = r.optional_number(node, path, "target_factor_of_safety", {1.0, true, inf, false, ""})
+                                    .value_or(defaults::target_factor_of_safety);
+    if (const auto top = r.optional_number(root, "", "fill_unit_weight_kN_per_m3", positive("kN/m³"));
+        top && *top != e.fill_unit_weight_kN_per_m3)
+        r.fail(node["fill_unit_weight_kN_per_m3"], path + ".fill_unit_weight_kN_per_m3",
+               format_value(e.fill_unit_weight_kN_per_m3) + " differs from the top-level 'fill_unit_weight_kN_per_m3' " +
+                   format_value(*top) + "; give one fill unit weight");
+    s.site.embankment = e;
+}
+
 void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
     s.fill_unit_weight_kN_per_m3 = r.optional_number(root, "", "fill_unit_weight_kN_per_m3", positive("kN/m³"));
+    if (!s.fill_unit_weight_kN_per_m3 && s.site.embankment)
+        s.fill_unit_weight_kN_per_m3 = s.site.embankment->fill_unit_weight_kN_per_m3;
     if (!root["loading"]) return;
     const YAML::Node node = root["loading"];
     r.expect_map(node, "loading");
@@ -819,6 +886,7 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     read_target(r, root, s);
     read_method(r, root, s);
     read_clay(r, root, s);
+    read_embankment(r, root, s);
     read_loading(r, root, s);
     check_settlement_criterion(s);
     read_drains(r, root, s);

@@ -1,0 +1,69 @@
+#pragma once
+// Staged construction on soft clay: the stability of each fill stage when it is placed, with the
+// strength the clay has gained by then, and the earliest day the next stage may start.
+//
+// The clay's effective stress increase at depth z and offset x at time t is taken as
+// Δσ'(x, z, t) = Δσ(x, z, h(t))·(q(t) − u(z, t))/q(t): the stress the section adds at the fill height
+// h(t) (embankment.hpp), times the consolidated share of the unit cell's load at that depth (the
+// cell-averaged excess pore pressure u of the site's cell model under the uniform load q(t), so the
+// drains are taken to treat the whole base out to the toes; no gain beyond the toes). Strength gain
+// follows strength.hpp; stability, stability.hpp. The surcharge, when the site has one, is checked
+// as the last stage.
+#include <optional>
+#include <vector>
+
+#include "wickgrid/cell_model.hpp"
+#include "wickgrid/stability.hpp"
+
+namespace wickgrid {
+
+struct StageCheck {
+    int stage = 0;                  // 1-based; the surcharge is the last
+    bool surcharge = false;
+    double start_s = 0.0;
+    double end_s = 0.0;             // when its placement is complete (the moment it is checked)
+    double height_m = 0.0;          // fill height once placed (all stages so far)
+    double factor_of_safety = 0.0;  // at end_s
+    CircleResult critical;
+    std::optional<double> settlement_m;  // at end_s, from the cell model
+    // For the next stage: the earliest start (s) at which it meets the target once placed, with its
+    // own duration; nullopt for the last stage or when no wait reaches the target.
+    std::optional<double> earliest_next_start_s;
+    bool next_reachable = true;     // false: the next stage fails the target even after full consolidation
+};
+
+struct StagePlan {
+    std::vector<StageCheck> stages;
+    double target_factor_of_safety = 0.0;
+    bool planned = false;  // true: start days moved to the earliest that keep the target
+};
+
+// The checks of the site's stage schedule for one drain product × pattern × spacing. Requires the
+// site's embankment, a loading with stages, layers with an undrained strength each, and a method
+// that resolves depth (closed form or layered series); throws InputError naming what is missing.
+// Cost: one critical-circle search per stage, and about 20 more per stage for the earliest start.
+StagePlan check_stages(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m);
+
+// A schedule that meets the target with the fewest days: each stage starts at the earliest day its
+// check allows given the stages planned before it (keeping its duration and the gaps the surcharge
+// keeps to its removal). Waiting never lowers a later stage's factor of safety (the clay only gains
+// strength with time), so starting each stage as early as allowed gives the shortest schedule.
+// A stage that cannot meet the target at any wait ends the plan there (its check says so).
+StagePlan plan_stages(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m);
+
+// The factor of safety against time for a schedule (the chart): at each time, the fill placed so far
+// with the strength gained by then, by the same search as the stage checks (so the chart and the
+// table agree at each stage's end). Cost: one critical-circle search per time.
+struct SafetyPoint {
+    double time_s = 0.0;
+    double height_m = 0.0;
+    double factor_of_safety = 0.0;
+    std::optional<double> settlement_m;
+};
+std::vector<SafetyPoint> safety_history(const Site& site, const DrainProductSpec& product, Pattern pattern,
+                                        double spacing_m, const std::vector<double>& times_s);
+
+// The slope model of the site at time t under its own load history (for tests and the report).
+SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s);
+
+}  // namespace wickgrid

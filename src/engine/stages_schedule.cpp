@@ -1,0 +1,219 @@
+// Stage checks and the earliest schedule; see stages.hpp for the model of the strength gained.
+#include <algorithm>
+#include <cmath>
+
+#include "wickgrid/errors.hpp"
+#include "wickgrid/stages.hpp"
+#include "wickgrid/units.hpp"
+
+namespace wickgrid {
+
+namespace {
+constexpr int gain_depths = 41;               // depths at which the consolidated share is sampled
+constexpr double start_tolerance_s = 43200.0;  // earliest starts are found to half a day
+
+// One stage of the schedule as placed: a permanent stage or the surcharge.
+struct Placement {
+    double start_s, end_s, pressure_kPa;
+    bool surcharge;
+    double removal_gap_s;  // surcharge: removal − end
+};
+
+std::vector<Placement> placements(const LoadHistory& h) {
+    std::vector<Placement> out;
+    for (const LoadStage& s : h.stages) out.push_back({s.start_s, s.end_s, s.pressure_kPa, false, 0.0});
+    std::stable_sort(out.begin(), out.end(), [](const Placement& a, const Placement& b) { return a.start_s < b.start_s; });
+    if (h.surcharge)
+        out.push_back({h.surcharge->start_s, h.surcharge->end_s, h.surcharge->pressure_kPa, true,
+                       h.surcharge->removal_s - h.surcharge->end_s});
+    return out;
+}
+
+LoadHistory history_of(const std::vector<Placement>& placed) {
+    LoadHistory h;
+    for (const Placement& p : placed) {
+        if (p.surcharge) h.surcharge = Surcharge{p.start_s, p.end_s, p.end_s + p.removal_gap_s, p.pressure_kPa};
+        else h.stages.push_back({p.start_s, p.end_s, p.pressure_kPa});
+    }
+    return h;
+}
+
+void require_stage_inputs(const Site& site) {
+    if (!site.embankment) throw InputError("embankment", 0.0, "a cross-section block for stage checks");
+    validate_section(*site.embankment);
+    if (!site.loading || site.loading->stages.empty())
+        throw InputError("loading.stages", 0.0, "at least one stage for stage checks");
+    if (site.loading->vacuum)
+        throw InputError("loading.vacuum.pressure_kPa", site.loading->vacuum->pressure_kPa,
+                         "absent for stage checks (strength gain under vacuum is not modelled)");
+    if (!site.ground.profile) throw InputError("clay.layers", 0.0, "given, each layer with su_top_kPa or su_ratio");
+    for (std::size_t i = 0; i < site.ground.profile->layers.size(); ++i) {
+        const auto& strength = site.ground.profile->layers[i].strength;
+        if (!strength) throw InputError("clay.layers[" + std::to_string(i) + "].su_top_kPa", 0.0, "given (or su_ratio)");
+        validate_strength(*strength);
+    }
+}
+
+struct StageState {
+    double factor_of_safety;
+    CircleResult critical;
+    std::optional<double> settlement_m;
+};
+
+StageState state_at(const Site& base, const DrainProductSpec& product, Pattern pattern, double spacing_m,
+                    const LoadHistory& history, double time_s) {
+    Site site = base;
+    site.loading = history;
+    const auto model = make_cell_model(site, product, pattern, spacing_m);
+    const CircleResult c = critical_circle(stage_slope_model(site, *model, time_s));
+    return {c.factor_of_safety, c, model->settlement_m(time_s)};
+}
+
+// The earliest start (>= from_s) at which `next`, placed after `before` with its own duration, meets
+// the target at the end of its placement; nullopt when no wait within the search horizon does.
+std::optional<double> earliest_start(const Site& site, const DrainProductSpec& product, Pattern pattern,
+                                     double spacing_m, std::vector<Placement> placed, Placement next, double from_s,
+                                     double target) {
+    const double duration = next.end_s - next.start_s;
+    const auto fs_if_started = [&](double s) {
+        next.start_s = s;
+        next.end_s = s + duration;
+        placed.push_back(next);
+        const double fs = state_at(site, product, pattern, spacing_m, history_of(placed), s + duration).factor_of_safety;
+        placed.pop_back();
+        return fs;
+    };
+    if (fs_if_started(from_s) >= target) return from_s;
+    const double horizon = from_s + defaults::search_horizon_years * units::seconds_per_year;
+    double lo = from_s, hi = from_s + units::seconds_per_day;
+    while (fs_if_started(hi) < target) {
+        if (hi >= horizon) return std::nullopt;
+        lo = hi;
+        hi = std::min(horizon, from_s + 2.0 * (hi - from_s));
+    }
+    while (hi - lo > start_tolerance_s) {
+        const double mid = 0.5 * (lo + hi);
+        (fs_if_started(mid) >= target ? hi : lo) = mid;
+    }
+    return hi;
+}
+
+StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m, bool plan) {
+    require_stage_inputs(site);
+    const EmbankmentSection& section = *site.embankment;
+    const std::vector<Placement> all = placements(*site.loading);
+    StagePlan out;
+    out.target_factor_of_safety = section.target_factor_of_safety;
+    out.planned = plan;
+    std::vector<Placement> placed;
+    double height = 0.0;
+    for (std::size_t i = 0; i < all.size(); ++i) {
+        Placement p = all[i];
+        if (plan && i > 0) {
+            const StageCheck& before = out.stages.back();
+            if (!before.earliest_next_start_s) break;  // the plan cannot go on: its check says why
+            const double duration = p.end_s - p.start_s;
+            p.start_s = *before.earliest_next_start_s;
+            p.end_s = p.start_s + duration;
+        }
+        placed.push_back(p);
+        height += p.pressure_kPa / section.fill_unit_weight_kN_per_m3;
+        const StageState st = state_at(site, product, pattern, spacing_m, history_of(placed), p.end_s);
+        StageCheck check{static_cast<int>(i + 1), p.surcharge, p.start_s, p.end_s, height, st.factor_of_safety,
+                         st.critical, st.settlement_m, std::nullopt, true};
+        if (i + 1 < all.size()) {
+            check.earliest_next_start_s = earliest_start(site, product, pattern, spacing_m, placed, all[i + 1], p.end_s,
+                                                         section.target_factor_of_safety);
+            check.next_reachable = check.earliest_next_start_s.has_value();
+        }
+        out.stages.push_back(check);
+    }
+    return out;
+}
+
+// Effective stress and preconsolidation pressure before loading at depth z (kPa).
+std::pair<double, double> initial_stress(const SoilProfile& profile, double z) {
+    double top = 0.0, total = 0.0;
+    for (const SoilLayer& l : profile.layers) {
+        const double bottom = top + l.thickness_m;
+        if (z <= bottom || &l == &profile.layers.back()) {
+            total += l.unit_weight_kN_per_m3 * (z - top);
+            const double sigma = total - units::gamma_w_kN_per_m3 * std::max(0.0, z - profile.groundwater_depth_m);
+            double sigma_p = sigma;
+            if (l.preconsolidation_kPa) sigma_p = *l.preconsolidation_kPa;
+            if (l.ocr) sigma_p = *l.ocr * sigma;
+            return {std::max(0.0, sigma), std::max(sigma_p, std::max(0.0, sigma))};
+        }
+        total += l.unit_weight_kN_per_m3 * l.thickness_m;
+        top = bottom;
+    }
+    return {0.0, 0.0};
+}
+}  // namespace
+
+SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s) {
+    require_stage_inputs(site);
+    const SoilProfile& profile = *site.ground.profile;
+    const EmbankmentSection& section = *site.embankment;
+    const double q = site.loading->applied_at_kPa(time_s);
+    const double height = q / section.fill_unit_weight_kN_per_m3;
+    SlopeModel m;
+    m.section = section;
+    m.height_m = height;
+    m.clay_thickness_m = site.ground.thickness_m;
+    double top = 0.0;
+    for (const SoilLayer& l : profile.layers) {
+        m.bands.push_back({top, top + l.thickness_m, l.unit_weight_kN_per_m3});
+        top += l.thickness_m;
+    }
+    m.bands.back().bottom_m = m.clay_thickness_m;
+    // The consolidated share (q − u)/q of the cell's load, sampled over depth.
+    std::vector<double> depths(gain_depths), share(gain_depths, 0.0);
+    for (int i = 0; i < gain_depths; ++i) depths[i] = m.clay_thickness_m * i / (gain_depths - 1);
+    if (q > 0.0) {
+        const auto states = model.over_depth(depths, time_s);
+        if (!states)
+            throw InputError("method", 0.0, "the closed form or the layered series for stage checks (the numerical cell "
+                                            "reports depth averages only)");
+        for (int i = 0; i < gain_depths; ++i) share[i] = (q - (*states)[i].excess_pore_pressure_kPa) / q;
+    }
+    const double toe = toe_offset_m(section, height), dz = depths[1];
+    m.su_kPa = [profile, section, height, toe, share, dz, bands = m.bands](double x, double z) {
+        std::size_t layer = 0;
+        while (layer + 1 < bands.size() && z > bands[layer].bottom_m) ++layer;
+        const auto [sigma0, sigma_p] = initial_stress(profile, z);
+        double gain = 0.0;
+        if (std::fabs(x) <= toe) {
+            const double pos = std::clamp(z / dz, 0.0, static_cast<double>(share.size() - 1));
+            const std::size_t k = std::min(static_cast<std::size_t>(pos), share.size() - 2);
+            const double f = share[k] + (share[k + 1] - share[k]) * (pos - static_cast<double>(k));
+            gain = f * embankment_stress_kPa(section, height, x, z);
+        }
+        return undrained_strength_kPa(*profile.layers[layer].strength, z - bands[layer].top_m, sigma0, sigma_p, gain);
+    };
+    return m;
+}
+
+StagePlan check_stages(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m) {
+    return run(site, product, pattern, spacing_m, false);
+}
+
+StagePlan plan_stages(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m) {
+    return run(site, product, pattern, spacing_m, true);
+}
+
+std::vector<SafetyPoint> safety_history(const Site& site, const DrainProductSpec& product, Pattern pattern,
+                                        double spacing_m, const std::vector<double>& times_s) {
+    require_stage_inputs(site);
+    const auto model = make_cell_model(site, product, pattern, spacing_m);
+    std::vector<SafetyPoint> out;
+    for (const double t : times_s) {
+        const double q = site.loading->applied_at_kPa(t);
+        if (q <= 0.0) continue;
+        const CircleResult c = critical_circle(stage_slope_model(site, *model, t));
+        out.push_back({t, q / site.embankment->fill_unit_weight_kN_per_m3, c.factor_of_safety, model->settlement_m(t)});
+    }
+    return out;
+}
+
+}  // namespace wickgrid

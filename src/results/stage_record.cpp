@@ -1,0 +1,92 @@
+#include "results/stage_record.hpp"
+
+#include <algorithm>
+
+#include "wickgrid/units.hpp"
+
+namespace wickgrid::results {
+
+std::optional<std::pair<std::string, std::string>> stage_check_refusal(const scenario::Scenario& s) {
+    const Site& site = s.site;
+    if (!site.embankment)
+        return std::pair<std::string, std::string>{"embankment", "stage checks need an 'embankment' block (the cross-section)"};
+    if (!site.loading || site.loading->stages.empty())
+        return std::pair<std::string, std::string>{"loading", "stage checks need 'loading.stages' (the fill stages)"};
+    if (site.loading->vacuum)
+        return std::pair<std::string, std::string>{"loading.vacuum",
+                                                   "stage checks do not model the strength gained under vacuum"};
+    if (!site.ground.profile)
+        return std::pair<std::string, std::string>{"clay", "stage checks need 'clay.layers', each with 'su_top_kPa' or 'su_ratio'"};
+    for (std::size_t i = 0; i < site.ground.profile->layers.size(); ++i)
+        if (!site.ground.profile->layers[i].strength)
+            return std::pair<std::string, std::string>{"clay.layers[" + std::to_string(i) + "]",
+                                                       "stage checks need an undrained strength in every layer: "
+                                                       "'su_top_kPa' (with 'su_gradient_kPa_per_m') or 'su_ratio'"};
+    if (site.method.method == CellMethod::numerical)
+        return std::pair<std::string, std::string>{"method", "stage checks need the degree over depth: 'analytical' or "
+                                                             "'layered_series' (the numerical cell reports depth averages only)"};
+    return std::nullopt;
+}
+
+StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, Pattern pattern, double spacing_m,
+                         bool plan, int chart_points) {
+    const Site& site = s.site;
+    const DrainProductSpec& product = site.product(drain);
+    StageRecord r;
+    r.drain = drain;
+    r.pattern = pattern;
+    r.spacing_m = spacing_m;
+    r.method = site.method.method;
+    r.plan = plan ? plan_stages(site, product, pattern, spacing_m) : check_stages(site, product, pattern, spacing_m);
+    r.section = *site.embankment;
+    r.clay_thickness_m = site.ground.thickness_m;
+    double bottom = 0.0;
+    for (const auto& l : site.ground.profile->layers) r.layer_bottoms_m.push_back(bottom += l.thickness_m);
+    // The chart follows the schedule checked: the planned one when planning.
+    Site charted = site;
+    if (plan) {
+        // The plan moved the days only: permanent stages keep their pressures in order of start, the
+        // surcharge its pressure and its time on before removal.
+        std::vector<LoadStage> given = site.loading->stages;
+        std::stable_sort(given.begin(), given.end(), [](const LoadStage& a, const LoadStage& b) { return a.start_s < b.start_s; });
+        LoadHistory h;
+        for (std::size_t i = 0; i < r.plan.stages.size(); ++i) {
+            const StageCheck& c = r.plan.stages[i];
+            if (c.surcharge) {
+                const Surcharge& sur = *site.loading->surcharge;
+                h.surcharge = Surcharge{c.start_s, c.end_s, c.end_s + (sur.removal_s - sur.end_s), sur.pressure_kPa};
+            } else {
+                h.stages.push_back({c.start_s, c.end_s, given[i].pressure_kPa});
+            }
+        }
+        charted.loading = h;
+    }
+    double last = site.criterion.deadline_s;
+    for (const StageCheck& c : r.plan.stages) last = std::max(last, c.end_s);
+    std::vector<double> times;
+    for (int i = 1; i <= chart_points; ++i) times.push_back(1.5 * last * i / chart_points);
+    // The moments just after each placement, where the factor of safety is lowest.
+    for (const StageCheck& c : r.plan.stages) times.push_back(c.end_s);
+    std::sort(times.begin(), times.end());
+    times.erase(std::unique(times.begin(), times.end()), times.end());
+    r.history = safety_history(charted, product, pattern, spacing_m, times);
+    r.assumptions = {
+        "Circular slips by Bishop's simplified method; undrained (φ = 0) strength in the clay, c′–φ′ in the dry fill; no "
+        "tension crack, no reinforcement, the section drawn at its placed height on the original ground.",
+        "Strength gain from the consolidated share of the unit cell's load at each depth times the stress the section adds "
+        "there; the drains are taken to treat the whole base out to the toes, with no gain beyond them.",
+        "Each stage is checked when its placement is complete, the moment of least safety during construction (the load "
+        "added undrained).",
+    };
+    return r;
+}
+
+bool stages_meet_target(const StageRecord& record) {
+    const auto& p = record.plan;
+    for (const StageCheck& c : p.stages)
+        if (c.factor_of_safety < p.target_factor_of_safety) return false;
+    if (p.planned && !p.stages.empty() && !p.stages.back().next_reachable) return false;
+    return true;
+}
+
+}  // namespace wickgrid::results

@@ -1,0 +1,39 @@
+#pragma once
+// The stage-stability result a writer shows: the checks of each stage (or the planned schedule),
+// the factor of safety against time for the chart, and the section the circles are drawn on.
+// Computed once here; `stages`, `report` and their writers only format it.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "scenario/scenario.hpp"
+#include "wickgrid/stages.hpp"
+
+namespace wickgrid::results {
+
+struct StageRecord {
+    std::string drain;
+    Pattern pattern = Pattern::triangular;
+    double spacing_m = 0.0;
+    CellMethod method = CellMethod::closed_form;
+    StagePlan plan;
+    std::vector<SafetyPoint> history;  // the chart: factor of safety, fill height, settlement against time
+    EmbankmentSection section;
+    double clay_thickness_m = 0.0;
+    std::vector<double> layer_bottoms_m;
+    std::vector<std::string> assumptions;
+};
+
+// Whether the scenario can be checked stage by stage: an embankment, stages, and a strength in
+// every layer; otherwise the reason (the key path and what is missing), for a located error.
+std::optional<std::pair<std::string, std::string>> stage_check_refusal(const scenario::Scenario& s);
+
+// The checks (or with plan, the earliest schedule) for one drain × pattern × spacing; the chart's
+// times run to 1.5 × the last stage's end (or the deadline, if later), with chart_points of them.
+StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, Pattern pattern, double spacing_m,
+                         bool plan, int chart_points);
+
+// Whether every stage meets the target (and, planned, every stage could be placed).
+bool stages_meet_target(const StageRecord& record);
+
+}  // namespace wickgrid::results

@@ -1,0 +1,182 @@
+// Embankment stress, undrained strength and circular-slip stability: checks against published
+// values and hand calculations (each row names its source).
+#include <gtest/gtest.h>
+
+#include <boost/math/constants/constants.hpp>
+#include <cmath>
+
+#include "wickgrid/embankment.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/stability.hpp"
+#include "wickgrid/strength.hpp"
+
+namespace wickgrid {
+namespace {
+
+constexpr double pi = boost::math::double_constants::pi;
+
+// A uniform φ = 0 clay of strength su and unit weight γ, thickness H, under a section.
+SlopeModel uniform_clay(const EmbankmentSection& section, double height, double thickness, double su, double gamma) {
+    SlopeModel m;
+    m.section = section;
+    m.height_m = height;
+    m.clay_thickness_m = thickness;
+    m.bands = {{0.0, thickness, gamma}};
+    m.su_kPa = [su](double, double) { return su; };
+    return m;
+}
+
+// --- Stress under the section --------------------------------------------------------------------
+
+struct InfluenceRow {
+    const char* source;
+    double a_m, b_m, z_m;
+    double expected;
+    double tolerance;
+};
+
+// Osterberg's influence: limits the formula must meet, and the strip load's closed form
+// (the elastic strip, σ = (q/π)(α + sin α) on the centre line, as in standard texts; common
+// practice), computed here from that formula.
+TEST(Embankment, OsterbergInfluenceRows) {
+    const auto strip_half = [](double b, double z) {
+        const double alpha = 2.0 * std::atan(b / z);
+        return 0.5 * (alpha + std::sin(alpha)) / pi;
+    };
+    const InfluenceRow rows[] = {
+        {"surface under the crest: half the load", 5.0, 10.0, 0.0, 0.5, 1e-12},
+        {"a → 0 is half a strip of half-width b (strip closed form)", 1e-9, 3.0, 2.0, strip_half(3.0, 2.0), 1e-8},
+        {"a → 0, deep point (strip closed form)", 1e-9, 3.0, 30.0, strip_half(3.0, 30.0), 1e-8},
+        // b = 0, the triangle's apex: α2 = 0 and I = α1/π with α1 = atan(a/z); 0.25 for a = z.
+        {"b = 0, a = z: I = atan(1)/π = 0.25 (by hand)", 4.0, 0.0, 4.0, 0.25, 1e-12},
+        // a = b = z: α2 = π/4, α1 = atan 2 − π/4; I = (2·atan 2 − π/4)/π (by hand) = 0.45483.
+        {"a = b = z (by hand)", 3.0, 3.0, 3.0, (2.0 * std::atan(2.0) - pi / 4.0) / pi, 1e-12},
+    };
+    for (const auto& r : rows) EXPECT_NEAR(osterberg_influence(r.a_m, r.b_m, r.z_m), r.expected, r.tolerance) << r.source;
+}
+
+// The Flamant integral over the whole section equals twice Osterberg's influence on the centre line
+// (two independent formulas for the same integral).
+TEST(Embankment, FlamantIntegralMatchesOsterbergOnCentreLine) {
+    const EmbankmentSection s{30.0, 2.0, 19.0, 32.0, 0.0, 1.3};
+    for (const double h : {1.0, 3.0, 6.0})
+        for (const double z : {0.5, 2.0, 8.0, 20.0, 60.0}) {
+            const double q = 19.0 * h;
+            EXPECT_NEAR(embankment_stress_kPa(s, h, 0.0, z), q * centreline_influence(s, h, z), 1e-9 * q) << h << " " << z;
+        }
+}
+
+// Equilibrium: the vertical stress integrated across any horizontal plane carries the whole load
+// (statics), here by the trapezoid rule over a wide span.
+TEST(Embankment, StressCarriesTheWholeLoad) {
+    const EmbankmentSection s{20.0, 2.0, 20.0, 30.0, 0.0, 1.3};
+    const double h = 4.0, load = 20.0 * h * (20.0 + 2.0 * h);  // kN/m: γ·h·(crest + n·h)
+    const double z = 6.0;
+    double total = 0.0;
+    const double dx = 0.01;
+    for (double x = -3000.0; x < 3000.0; x += dx) total += embankment_stress_kPa(s, h, x + 0.5 * dx, z) * dx;
+    EXPECT_NEAR(total, load, 0.005 * load);  // the tails beyond ±3 km carry about 0.1 %
+}
+
+TEST(Embankment, SectionErrorsNameTheField) {
+    const auto expect_field = [](EmbankmentSection s, const std::string& field) {
+        try {
+            validate_section(s);
+            ADD_FAILURE() << field;
+        } catch (const InputError& e) {
+            EXPECT_EQ(e.quantity(), field);
+        }
+    };
+    const EmbankmentSection ok{30.0, 2.0, 19.0, 32.0, 0.0, 1.3};
+    EXPECT_NO_THROW(validate_section(ok));
+    auto s = ok;
+    s.side_slope_h_per_v = -0.5;  // steeper than vertical
+    expect_field(s, "embankment.side_slope_h_per_v");
+    s = ok;
+    s.crest_width_m = 0.0;
+    s.side_slope_h_per_v = 0.0;  // does not close
+    expect_field(s, "embankment.crest_width_m");
+    s = ok;
+    s.target_factor_of_safety = 0.9;
+    expect_field(s, "embankment.target_factor_of_safety");
+    s = ok;
+    s.fill_friction_angle_deg = 90.0;
+    expect_field(s, "embankment.fill_friction_angle_deg");
+}
+
+// --- Strength ------------------------------------------------------------------------------------
+
+TEST(Strength, HandCalculations) {
+    UndrainedStrength profile;
+    profile.su_top_kPa = 12.0;
+    profile.su_gradient_kPa_per_m = 1.5;
+    profile.gain_ratio = 0.25;
+    // 12 + 1.5·4 + 0.25·40 = 28 kPa (by hand).
+    EXPECT_NEAR(undrained_strength_kPa(profile, 4.0, 30.0, 30.0, 40.0), 28.0, 1e-12);
+    UndrainedStrength ratio;
+    ratio.su_ratio = 0.22;
+    ratio.strength_exponent = 0.8;
+    // OCR 2 at σ'v0 = 50: 0.22·50·2^0.8 = 19.150 kPa (by hand: 2^0.8 = 1.74110).
+    EXPECT_NEAR(undrained_strength_kPa(ratio, 0.0, 50.0, 100.0, 0.0), 0.22 * 50.0 * 1.7411011, 1e-6);
+    // Loaded past σ'p: normally consolidated, 0.22·(50 + 80) = 28.6 kPa.
+    EXPECT_NEAR(undrained_strength_kPa(ratio, 0.0, 50.0, 100.0, 80.0), 28.6, 1e-12);
+    // Within the over-consolidated range: 0.22·70·(100/70)^0.8 (by hand 21.44 kPa).
+    EXPECT_NEAR(undrained_strength_kPa(ratio, 0.0, 50.0, 100.0, 20.0), 0.22 * 70.0 * std::pow(100.0 / 70.0, 0.8), 1e-12);
+    UndrainedStrength both = profile;
+    both.su_ratio = 0.2;
+    EXPECT_THROW(validate_strength(both), InputError);
+    UndrainedStrength zero = profile;
+    zero.su_top_kPa = 0.0;
+    EXPECT_THROW(validate_strength(zero), InputError);
+}
+
+// --- Circular slips ------------------------------------------------------------------------------
+
+// φ = 0 clay under a strip load of width B on its surface: the critical circle carries about
+// 5.5·su, the stability number for deep failure of Taylor (1937) (1/0.181 = 5.52, from memory),
+// above Prandtl's (1920) exact 5.14·su (circles are upper bounds in limit analysis).
+TEST(Stability, StripLoadOnClayCollapsesNearFellenius552) {
+    const double su = 20.0, B = 10.0;
+    // A thin, very heavy block of no strength is the strip load.
+    EmbankmentSection strip{B, 0.0, 1.0e4, 0.0, 0.0, 1.0};
+    const double h = 0.01;  // q = 100 kPa = 5 su
+    const auto m = uniform_clay(strip, h, 30.0, su, 16.0);
+    const CircleResult r = critical_circle(m);
+    // F = q_collapse/q for a load-independent mechanism with weightless-in-moment clay.
+    const double q_collapse = r.factor_of_safety * 1.0e4 * h;
+    EXPECT_NEAR(q_collapse / su, 5.52, 0.05);
+    EXPECT_GT(q_collapse / su, 5.14);
+    // The critical centre stands above the load's edge (Fellenius' circle).
+    EXPECT_NEAR(r.circle.centre_x_m, 0.5 * B, 0.05 * B);
+}
+
+// One circle by hand: a semicircle centred on the edge of a uniform strip load q on φ = 0 clay,
+// radius R inside the load's width. Driving moment q·R²/2 (the loaded half), resisting su·πR·R (the
+// clay's own weight is symmetric about the centre): F = 2π·su/q (the classic semicircle bound).
+TEST(Stability, SemicircleOnStripEdgeByHand) {
+    const double su = 15.0, q = 60.0, h = 0.001;
+    EmbankmentSection strip{20.0, 0.0, q / h, 0.0, 0.0, 1.0};
+    const auto m = uniform_clay(strip, h, 30.0, su, 17.0);
+    const auto r = bishop_factor_of_safety(m, {10.0, h, 6.0}, 400);
+    ASSERT_TRUE(r.has_value());
+    EXPECT_NEAR(r->factor_of_safety, 2.0 * pi * su / q, 0.005 * 2.0 * pi * su / q);
+    EXPECT_NEAR(r->entry_x_m, 4.0, 1e-6);
+    EXPECT_NEAR(r->exit_x_m, 16.0, 1e-6);
+}
+
+// A dry cohesionless fill slope on a rigid base: the factor of safety tends to the infinite-slope
+// value tanφ/tanβ for shallow slips (statics of a block on a plane).
+TEST(Stability, DryCohesionlessSlopeTendsToInfiniteSlope) {
+    const double phi = 32.0, n = 2.0;
+    EmbankmentSection fill{20.0, n, 19.0, phi, 0.0, 1.0};
+    const auto m = uniform_clay(fill, 5.0, 2.0, 1.0e6, 18.0);  // a clay too strong to fail
+    CircleSearch search;
+    search.through_clay = false;
+    const CircleResult r = critical_circle(m, search);
+    const double infinite = std::tan(phi * pi / 180.0) * n;
+    EXPECT_GE(r.factor_of_safety, infinite - 1e-6);
+    EXPECT_NEAR(r.factor_of_safety, infinite, 0.02 * infinite);
+}
+
+}  // namespace
+}  // namespace wickgrid
