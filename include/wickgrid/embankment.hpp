@@ -7,6 +7,8 @@
 // The stress is that of an elastic half-space under a strip load (Flamant's line load integrated
 // over the section); on the centre line it equals Osterberg's (1957) influence for embankment
 // loading, which the tests compare against.
+#include <optional>
+
 #include "wickgrid/defaults.hpp"
 
 namespace wickgrid {
@@ -17,7 +19,10 @@ struct EmbankmentSection {
     double fill_unit_weight_kN_per_m3 = 0.0;
     double fill_friction_angle_deg = 0.0;   // 0 <= φ' < 90
     double fill_cohesion_kPa = 0.0;         // >= 0
-    double target_factor_of_safety = defaults::target_factor_of_safety; // >= 1
+    double target_factor_of_safety = defaults::target_factor_of_safety;  // >= 1
+    // The fill surface's design level above the original ground once primary settlement is over
+    // (optional; stages.hpp: fill to a finished level).
+    std::optional<double> finished_height_m;
 };
 
 // Throws InputError naming the field: a negative crest width or slope (steeper than vertical), a

@@ -63,6 +63,22 @@ struct SafetyPoint {
 std::vector<SafetyPoint> safety_history(const Site& site, const DrainProductSpec& product, Pattern pattern,
                                         double spacing_m, const std::vector<double>& times_s);
 
+// Fill to reach a finished level (common practice): the thickness to place so that, once primary
+// settlement is over, the fill surface stands finished_height_m above the original ground. The
+// settlement consumes fill, and the fill that settles below the groundwater table weighs its
+// submerged unit weight (γ − γw), so the load is q = γ·H − γw·max(0, S − dw) with S the final
+// settlement under q (the site's settlement model, under the section when there is one) and dw the
+// groundwater depth; H = finished + S solved for S by TOMS 748. Throws InputError without a
+// settlement model or fill unit weight, EvaluationError when no thickness below 1000 m does it.
+struct FillToFinish {
+    double finished_height_m = 0.0;
+    double placed_height_m = 0.0;      // H
+    double final_settlement_m = 0.0;   // S
+    double submerged_m = 0.0;          // fill below the groundwater table, max(0, S − dw)
+    double load_kPa = 0.0;             // q
+};
+FillToFinish fill_to_finish(const Site& site, double fill_unit_weight_kN_per_m3, double finished_height_m);
+
 // The slope model of the site at time t under its own load history (for tests and the report).
 SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s);
 

@@ -69,6 +69,7 @@ double arc_y(const SlipCircle& c, double x) {
 
 struct Slice {
     double width_m, weight_kN, sin_a, cos_a, cohesion_kPa, tan_phi;
+    double base_m;  // the arc's length under the slice (exact, so steep ends are not under-counted)
 };
 }  // namespace
 
@@ -115,7 +116,9 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
             if (yb < base_y - 1e-9) return std::nullopt;  // crosses the firm base
             const double fill_kPa = m.section.fill_unit_weight_kN_per_m3 * std::max(0.0, ys - std::max(yb, 0.0));
             const double clay_kPa = yb < 0.0 ? clay_column_kPa(m.bands, -yb) : 0.0;
-            Slice s{w, (fill_kPa + clay_kPa) * w, (c.centre_x_m - xm) / c.radius_m, (c.centre_y_m - yb) / c.radius_m, 0.0, 0.0};
+            const auto angle = [&](double x) { return std::asin(std::clamp((x - c.centre_x_m) / c.radius_m, -1.0, 1.0)); };
+            Slice s{w, (fill_kPa + clay_kPa) * w, (c.centre_x_m - xm) / c.radius_m, (c.centre_y_m - yb) / c.radius_m, 0.0, 0.0,
+                    c.radius_m * (angle(x0 + (k + 1) * w) - angle(x0 + k * w))};
             if (yb >= 0.0) {
                 s.cohesion_kPa = m.section.fill_cohesion_kPa;
                 s.tan_phi = tan_fill;
@@ -137,7 +140,7 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
     for (const Slice& s : slices) {
         if (!(s.cos_a > 0.0)) return std::nullopt;  // an arc above its centre: not a slip surface
         driving += s.weight_kN * s.sin_a;
-        fellenius += s.cohesion_kPa * s.width_m / s.cos_a + s.weight_kN * s.cos_a * s.tan_phi;
+        fellenius += s.cohesion_kPa * s.base_m + s.weight_kN * s.cos_a * s.tan_phi;
     }
     if (!(driving > 0.0)) return std::nullopt;
     double f = fellenius / driving;
@@ -146,7 +149,7 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
         double resisting = 0.0;
         for (const Slice& s : slices) {
             if (s.tan_phi == 0.0) {
-                resisting += s.cohesion_kPa * s.width_m / s.cos_a;
+                resisting += s.cohesion_kPa * s.base_m;
                 continue;
             }
             const double m_alpha = s.cos_a + s.sin_a * s.tan_phi / f;

@@ -77,6 +77,13 @@ nlohmann::json stages_json(const scenario::Scenario& s, const results::StageReco
              {"meets_target", results::stages_meet_target(r)},
              {"stages", stages},
              {"history", history},
+             {"fill_to_finish", r.finish ? json{{"finished_height_m", r.finish->finished_height_m},
+                                                {"placed_height_m", r.finish->placed_height_m},
+                                                {"final_settlement_m", r.finish->final_settlement_m},
+                                                {"submerged_m", r.finish->submerged_m},
+                                                {"load_kPa", r.finish->load_kPa},
+                                                {"last_stage_placed_m", *r.last_stage_placed_m}}
+                                         : json(nullptr)},
              {"coordinates", "x across the section from its centre line, y up from the top of the clay (m)"},
              {"assumptions", r.assumptions},
              {"cautions", results::cautions()}};
@@ -95,6 +102,13 @@ std::string stages_table(const scenario::Scenario& s, const results::StageRecord
         o << stage_name(c) << ": critical circle centre (" << fixed(c.critical.circle.centre_x_m, 2) << ", "
           << fixed(c.critical.circle.centre_y_m, 2) << ") m, radius " << fixed(c.critical.circle.radius_m, 2)
           << " m, from x = " << fixed(c.critical.entry_x_m, 2) << " to " << fixed(c.critical.exit_x_m, 2) << " m\n";
+    if (r.finish)
+        o << "To finish " << fixed(r.finish->finished_height_m, 2) << " m above the original ground after primary settlement: "
+          << "place " << fixed(r.finish->placed_height_m, 2) << " m of fill in all (final settlement "
+          << fixed(r.finish->final_settlement_m, 2) << " m, of which " << fixed(r.finish->submerged_m, 2)
+          << " m below the groundwater table weighing γ − γw; load " << fixed(r.finish->load_kPa, 1)
+          << " kPa); the last stage places " << fixed(*r.last_stage_placed_m, 2)
+          << " m. Stages are checked at their scheduled heights.\n";
     o << (results::stages_meet_target(r) ? "Every stage meets the target factor of safety.\n"
                                          : "WARNING: a stage does not meet the target factor of safety.\n");
     o << "\nAssumptions:\n";

@@ -736,7 +736,7 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
     r.remember(path, node);
     r.expect_map(node, path);
     r.allow_keys(node, path, {"crest_width_m", "side_slope_h_per_v", "fill_unit_weight_kN_per_m3", "fill_friction_angle_deg",
-                              "fill_cohesion_kPa", "target_factor_of_safety"});
+                              "fill_cohesion_kPa", "target_factor_of_safety", "finished_height_m"});
     EmbankmentSection e;
     e.crest_width_m = r.number(node, path, "crest_width_m", non_negative("m"));
     e.side_slope_h_per_v = r.number(node, path, "side_slope_h_per_v",
@@ -749,6 +749,10 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
     e.fill_cohesion_kPa = r.optional_number(node, path, "fill_cohesion_kPa", non_negative("kPa")).value_or(0.0);
     e.target_factor_of_safety = r.optional_number(node, path, "target_factor_of_safety", {1.0, true, inf, false, ""})
                                     .value_or(defaults::target_factor_of_safety);
+    e.finished_height_m = r.optional_number(node, path, "finished_height_m", positive("m"));
+    if (e.finished_height_m && e.fill_unit_weight_kN_per_m3 <= units::gamma_w_kN_per_m3)
+        r.fail(node["fill_unit_weight_kN_per_m3"], path + ".fill_unit_weight_kN_per_m3",
+               "must exceed the unit weight of water (9.81 kN/m³) for fill to a finished level");
     if (const auto top = r.optional_number(root, "", "fill_unit_weight_kN_per_m3", positive("kN/m³"));
         top && *top != e.fill_unit_weight_kN_per_m3)
         r.fail(node["fill_unit_weight_kN_per_m3"], path + ".fill_unit_weight_kN_per_m3",

@@ -1,0 +1,175 @@
+// Staged construction through the site model and the `stages` command: strength gain and stress
+// under the section by hand, the JSON contract, the plan, and located errors for bad input.
+#include <gtest/gtest.h>
+
+#include <boost/math/constants/constants.hpp>
+#include <cmath>
+#include <nlohmann/json.hpp>
+
+#include "cli_helpers.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/cell_model.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/stages.hpp"
+#include "wickgrid/units.hpp"
+
+using namespace wickgrid;
+using namespace wickgrid::cli_testing;
+
+namespace {
+const char* staged = "configs/staged-embankment-stability.yaml";
+constexpr double pi = boost::math::double_constants::pi;
+
+// One NC clay layer (mv) under a 3 m trial fill placed at once. Invented test case.
+std::string trial(const std::string& strength) {
+    return "schema: 1\ntitle: Invented trial fill on one soft layer (test case)\n"
+           "target: {degree: 0.9, deadline_days: 200}\n"
+           "clay:\n  groundwater_depth_m: 0.0\n  layers:\n"
+           "    - {thickness_m: 10.0, unit_weight_kN_per_m3: 16.0, mv_m2_per_kN: 0.001, " + strength + "}\n"
+           "  cv_m2_per_year: 2.0\n  ch_m2_per_year: 4.0\n  kh_m_per_s: 1.0e-9\n  vertical_drainage: both_faces\n"
+           "embankment: {crest_width_m: 20.0, side_slope_h_per_v: 2.0, fill_unit_weight_kN_per_m3: 20.0, "
+           "fill_friction_angle_deg: 30.0}\n"
+           "loading:\n  stages:\n    - {start_day: 0, height_m: 3.0}\n"
+           "drains: [{name: d, width_mm: 100, thickness_mm: 4, discharge_capacity_m3_per_year: 100}]\n"
+           "installation: {mandrel_width_mm: 120, mandrel_depth_mm: 60, smear_diameter_ratio: 2.0, "
+           "smear_permeability_ratio: 3.0}\npatterns: [triangular]\nspacing: {min_m: 0.8, max_m: 3.0}\n";
+}
+
+// Osterberg's (1957) half-embankment influence written out here from the formula (a: slope length,
+// b: half crest, z: depth), to check the engine's Flamant integral by hand.
+double osterberg_by_hand(double a, double b, double z) {
+    const double a2 = std::atan(b / z), a1 = std::atan((a + b) / z) - a2;
+    return ((a + b) / a * (a1 + a2) - b / a * a2) / pi;
+}
+}  // namespace
+
+// su at the centre line, 5 m down, by hand: σ'v0 = (16 − 9.81)·5 = 30.95 kPa; the fill adds
+// Δσ = 60·2·I(6, 10, 5) = 58.67 kPa (Osterberg); at once the load is carried by pore pressure
+// (no gain), after 100 years it is all effective stress.
+TEST(StagesSite, StrengthGainByHand) {
+    const double sigma0 = (16.0 - units::gamma_w_kN_per_m3) * 5.0;
+    const double added = 60.0 * 2.0 * osterberg_by_hand(6.0, 10.0, 5.0);
+    EXPECT_NEAR(added, 58.665, 0.01);  // the hand value of the comment
+    struct Row {
+        std::string strength;
+        double at_once, at_end;
+    };
+    const Row rows[] = {
+        {"su_ratio: 0.25", 0.25 * sigma0, 0.25 * (sigma0 + added)},
+        {"su_top_kPa: 10.0, su_gradient_kPa_per_m: 1.5, su_gain_ratio: 0.3", 10.0 + 7.5, 10.0 + 7.5 + 0.3 * added},
+    };
+    for (const auto& row : rows) {
+        const auto s = scenario::parse_scenario(trial(row.strength), "trial.yaml");
+        const auto model = make_cell_model(s.site, s.site.products.front(), Pattern::triangular, 1.5);
+        const SlopeModel early = stage_slope_model(s.site, *model, units::days_to_seconds(1e-4));
+        const SlopeModel late = stage_slope_model(s.site, *model, units::days_to_seconds(36500.0));
+        EXPECT_NEAR(early.su_kPa(0.0, 5.0), row.at_once, 0.02 * (row.at_end - row.at_once)) << row.strength;
+        EXPECT_NEAR(late.su_kPa(0.0, 5.0), row.at_end, 0.01) << row.strength;
+        // Beyond the toe (16 m out) the clay gains nothing.
+        EXPECT_NEAR(late.su_kPa(17.0, 5.0), row.at_once, 1e-9) << row.strength;
+    }
+}
+
+// The settlement slices take the section's stress at their depth (Osterberg), not the fill pressure.
+TEST(StagesSite, SettlementUsesTheStressUnderTheSection) {
+    const auto s = scenario::parse_scenario(trial("su_ratio: 0.25"), "trial.yaml");
+    for (const auto& slice : settlement_slices(s.site, 60.0)) {
+        EXPECT_NEAR(slice.load_kPa, 60.0 * 2.0 * osterberg_by_hand(6.0, 10.0, slice.depth_m), 1e-9);
+        EXPECT_NEAR(slice.final_m, 0.001 * slice.load_kPa * slice.thickness_m, 1e-12);
+    }
+}
+
+// Fill to a finished level by hand on the uniform mv clay (no section spreading: a wide fill):
+// S = mv·H_clay·q with q = γ(f + S) − γw·S (groundwater at the surface), so
+// S = mv·H·γ·f / (1 − mv·H·(γ − γw)).
+TEST(StagesSite, FillToFinishByHand) {
+    auto s = scenario::parse_scenario(trial("su_ratio: 0.25"), "trial.yaml");
+    s.site.embankment.reset();
+    const double mvh = 0.001 * 10.0, f = 2.0;
+    const double expected = mvh * 20.0 * f / (1.0 - mvh * (20.0 - units::gamma_w_kN_per_m3));
+    const FillToFinish r = fill_to_finish(s.site, 20.0, f);
+    EXPECT_NEAR(r.final_settlement_m, expected, 1e-5);
+    EXPECT_NEAR(r.placed_height_m, f + expected, 1e-5);
+    EXPECT_NEAR(r.submerged_m, expected, 1e-5);
+}
+
+TEST(StagesCommand, JsonKeepsTheContractAndTheChartAgreesWithTheTable) {
+    const auto r = run("stages " + source(staged) + " --json");
+    ASSERT_LE(r.exit_code, 1) << r.err;
+    const auto doc = nlohmann::json::parse(r.out);
+    EXPECT_DOUBLE_EQ(doc.at("target_factor_of_safety").get<double>(), 1.3);
+    ASSERT_EQ(doc.at("stages").size(), 4u);
+    for (const auto& st : doc.at("stages")) {
+        for (const char* key : {"stage", "start_day", "height_m", "factor_of_safety", "earliest_next_start_day"})
+            EXPECT_TRUE(st.contains(key)) << key;
+        // The chart's point at the end of each stage is the table's check (one computation).
+        bool found = false;
+        for (const auto& p : doc.at("history"))
+            if (std::fabs(p.at("day").get<double>() - st.at("end_day").get<double>()) < 1e-9) {
+                EXPECT_DOUBLE_EQ(p.at("factor_of_safety").get<double>(), st.at("factor_of_safety").get<double>());
+                found = true;
+            }
+        EXPECT_TRUE(found);
+    }
+    EXPECT_EQ(doc.at("meets_target").get<bool>(), r.exit_code == 0);
+    EXPECT_TRUE(doc.at("stages").back().at("earliest_next_start_day").is_null());
+}
+
+// The plan starts each stage at the day its predecessor's check allows, and every planned stage
+// then meets the target.
+TEST(StagesCommand, PlanStartsEachStageAtTheEarliestDayAndMeetsTheTarget) {
+    const auto r = run("stages " + source(staged) + " --plan --json");
+    ASSERT_EQ(r.exit_code, 0) << r.err << r.out;
+    const auto doc = nlohmann::json::parse(r.out);
+    const auto& st = doc.at("stages");
+    ASSERT_EQ(st.size(), 4u);
+    EXPECT_TRUE(doc.at("planned").get<bool>());
+    for (std::size_t i = 0; i < st.size(); ++i) {
+        EXPECT_GE(st[i].at("factor_of_safety").get<double>(), 1.3);
+        if (i > 0) {
+            EXPECT_DOUBLE_EQ(st[i].at("start_day").get<double>(), st[i - 1].at("earliest_next_start_day").get<double>());
+        }
+    }
+}
+
+TEST(StagesCommand, BadInputIsNamedAndLocated) {
+    struct Row {
+        std::string from, to, key, message;
+    };
+    const std::vector<Row> rows{
+        {"crest_width_m: 30.0", "crest_width_m: 0.0", "embankment.crest_width_m", ""},
+        {"side_slope_h_per_v: 4.0", "side_slope_h_per_v: -1.0", "embankment.side_slope_h_per_v", "steeper than vertical"},
+        {"target_factor_of_safety: 1.3", "target_factor_of_safety: 0.9", "embankment.target_factor_of_safety", "at least 1"},
+        {"su_top_kPa: 25.0", "su_top_kPa: 0.0", "clay.layers[0].su_top_kPa", "greater than 0"},
+        {"su_gradient_kPa_per_m: -4.0", "su_gradient_kPa_per_m: -14.0", "clay.layers[0].su_gradient_kPa_per_m",
+         "su must stay greater than 0"},
+        {"su_ratio: 0.25}", "su_ratio: 0.25, su_top_kPa: 5}", "clay.layers[1].su_ratio", "not both"},
+        {"fill_friction_angle_deg: 32.0", "fill_friction_angle_deg: 95.0", "embankment.fill_friction_angle_deg", "degrees"},
+        {"fill_unit_weight_kN_per_m3: 19.0", "fill_unit_weight_kN_per_m3: 19.0\n  berm: 2", "embankment.berm",
+         "unknown key"},
+    };
+    for (const auto& row : rows) {
+        std::string text = edited_copy(staged, row.from, row.to);
+        if (row.key == "embankment.crest_width_m") {  // vertical sides with no crest: no section
+            const auto at = text.find("side_slope_h_per_v: 4.0");
+            text.replace(at, 23, "side_slope_h_per_v: 0.0");
+        }
+        try {
+            scenario::parse_scenario(text, "case.yaml");
+            ADD_FAILURE() << row.key << ": accepted";
+        } catch (const scenario::ScenarioError& e) {
+            EXPECT_EQ(e.key_path(), row.key) << e.what();
+            EXPECT_NE(e.message().find(row.message), std::string::npos) << e.what();
+            EXPECT_GT(e.mark().line, 0) << e.what();
+        }
+    }
+    // A scenario without a section, or a layer without a strength, is refused at the key at fault.
+    const auto none = run("stages " + source("demo/scenario.yaml"));
+    EXPECT_EQ(none.exit_code, 2);
+    EXPECT_NE(none.err.find("embankment"), std::string::npos) << none.err;
+    const auto weak = write_case(edited_copy(staged, ", su_ratio: 0.25}", "}"));
+    const auto missing = run("stages " + weak.string());
+    EXPECT_EQ(missing.exit_code, 2);
+    EXPECT_NE(missing.err.find("clay.layers[1]"), std::string::npos) << missing.err;
+    EXPECT_NE(missing.err.find(":12:"), std::string::npos) << missing.err;  // the layer's line
+}
