@@ -7,6 +7,7 @@
 
 #include "cli_helpers.hpp"
 #include "results/design_record.hpp"
+#include "results/stage_record.hpp"
 #include "scenario/scenario.hpp"
 #include "wickgrid/names.hpp"
 #include "wickgrid/units.hpp"
@@ -61,6 +62,17 @@ TEST_P(EveryScenario, EveryCommandRunsAndWritesWholeOutputs) {
         EXPECT_NE(sweep.err.find("Monte Carlo"), std::string::npos) << sweep.err;
     }
     const auto s = scenario::load_scenario(file);
+    if (!results::stage_check_refusal(s)) {
+        // The stage checks of the recommended design: `stages` and the report show the same figures.
+        const CommandRun stages = run("stages " + file + " --json");
+        ASSERT_TRUE(stages.exit_code == 0 || stages.exit_code == 1) << stages.err;
+        const std::string note = slurp(dir / "report" / "report.md");
+        for (const auto& st : json::parse(stages.out)["stages"]) {
+            char fs[32];
+            std::snprintf(fs, sizeof fs, "| %.2f", st["factor_of_safety"].get<double>());
+            EXPECT_NE(note.find(fs), std::string::npos) << fs;
+        }
+    }
     if (s.site.has_settlement()) {
         const auto& row = doc["designs"][0];
         const CommandRun surcharge =

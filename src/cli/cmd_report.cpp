@@ -2,6 +2,7 @@
 #include "commands.hpp"
 #include "report/html_report.hpp"
 #include "report/study_report.hpp"
+#include "results/stage_record.hpp"
 
 namespace wickgrid::cli {
 
@@ -19,7 +20,9 @@ Runner add_report(CLI::App& app) {
     cmd->add_option("FILE", o->files, "Scenario file (YAML); several files, or - for standard input")->required();
     cmd->add_option("--out", o->out_dir, "Folder for report.html, report.md (the same content as a Markdown note) and the chart SVG files")->required();
     cmd->add_option("--time-axis", o->time_axis, "Degree–time charts: linear or log")->check(CLI::IsMember({"linear", "log"}));
-    cmd->footer("Studies in the scenario ('studies:' one-at-a-time and grid, 'uncertain:' Monte Carlo) are charted too. Exit codes as for design.");
+    cmd->footer("Studies in the scenario ('studies:' one-at-a-time and grid, 'uncertain:' Monte Carlo) are charted too; a "
+                "scenario with an 'embankment' and a strength in every layer gets the stage checks of the recommended "
+                "design (as 'stages'). Exit codes as for design.");
     return [o] {
         return run_each(o->files, {false, false}, [&](const BatchItem& item) {
             const std::string& file = item.file;
@@ -33,6 +36,10 @@ Runner add_report(CLI::App& app) {
                 record.studies.monte_carlo = monte_carlo(s.site, record.result, *s.studies.monte_carlo);
                 record.studies.monte_carlo_spec = *s.studies.monte_carlo;
             }
+            // A site that can be checked stage by stage gets the checks of its recommended design.
+            if (const DesignRow* best = record.result.best(); best && !results::stage_check_refusal(s))
+                record.stages = results::stage_record(s, best->drain, best->pattern, best->spacing_m, false,
+                                                      defaults::chart_points / 2);
             const auto bundle = report::build_report(record);
             std::vector<std::pair<std::string, std::string>> files{{"report.html", bundle.html}, {"report.md", bundle.markdown}};
             for (const auto& chart : bundle.charts) files.emplace_back(chart.file, chart.svg);

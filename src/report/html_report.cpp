@@ -9,6 +9,7 @@
 
 #include "report/columns.hpp"
 #include "report/design_report.hpp"
+#include "report/stage_report.hpp"
 #include "wickgrid/names.hpp"
 #include "wickgrid/version.hpp"
 #include "report/svg_chart.hpp"
@@ -312,6 +313,21 @@ std::string markdown_sections(const results::DesignRecord& record, const std::ve
               << " | " << m.unevaluated << " |\n";
         o << "\n";
     }
+    if (const auto& st = record.stages) {
+        o << "## Stage stability\n\n" << markdown_text(stage_summary(*st)) << "\n\n|";
+        for (const auto& h : stage_header()) o << ' ' << markdown_text(h) << " |";
+        o << "\n|";
+        for (std::size_t i = 0; i < stage_header().size(); ++i) o << "---|";
+        o << "\n";
+        for (const auto& row : stage_rows(*st)) {
+            o << "|";
+            for (const auto& cell : row) o << ' ' << markdown_text(cell) << " |";
+            o << "\n";
+        }
+        o << "\n";
+        for (const auto& a : st->assumptions) o << "- " << markdown_text(a) << "\n";
+        o << "\n";
+    }
     o << "## Charts\n\n";
     for (std::size_t i = 0; i < charts.size(); ++i)
         o << "![Figure " << i + 1 << "](" << charts[i].file << ")\n\nFigure " << i + 1 << ". " << markdown_text(charts[i].caption)
@@ -338,6 +354,8 @@ ReportBundle build_report(const results::DesignRecord& record) {
     if (!record.chart_curves.empty() && record.chart_curves.front().points.front().settlement_m)
         bundle.charts.push_back(settlement_chart(site, record.chart_curves, record.log_time));
     for (auto& c : study_charts(record.studies, record.chart_curves, record.result)) bundle.charts.push_back(std::move(c));
+    if (record.stages)
+        for (auto& c : stage_charts(*record.stages)) bundle.charts.push_back(std::move(c));
 
     std::ostringstream o;
     o << "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<title>" << escape_xml(s.title)
@@ -380,6 +398,20 @@ ReportBundle build_report(const results::DesignRecord& record) {
             o << "</tr>\n";
         }
         o << "</table>\n</section>\n";
+    }
+    if (const auto& st = record.stages) {
+        o << "<section id=\"stages\"><h2>Stage stability</h2>\n<p>" << escape_xml(stage_summary(*st))
+          << "</p>\n<table class=\"stages\">\n<tr>";
+        for (const auto& h : stage_header()) o << "<th>" << escape_xml(h) << "</th>";
+        o << "</tr>\n";
+        for (const auto& row : stage_rows(*st)) {
+            o << "<tr>";
+            for (const auto& cell : row) o << "<td>" << escape_xml(cell) << "</td>";
+            o << "</tr>\n";
+        }
+        o << "</table>\n<ul>\n";
+        for (const auto& a : st->assumptions) o << "<li>" << escape_xml(a) << "</li>\n";
+        o << "</ul>\n</section>\n";
     }
     o << "<section><h2>Charts</h2>\n";
     for (std::size_t i = 0; i < bundle.charts.size(); ++i)

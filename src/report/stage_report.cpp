@@ -91,6 +91,20 @@ nlohmann::json stages_json(const scenario::Scenario& s, const results::StageReco
     return out;
 }
 
+std::string stage_summary(const results::StageRecord& r) {
+    std::ostringstream o;
+    o << "Each stage checked when its placement is complete, for drain " << r.drain << " in a " << to_string(r.pattern)
+      << " pattern at " << fixed(r.spacing_m, 2) << " m, against a target factor of safety of "
+      << fixed(r.plan.target_factor_of_safety, 2) << ": "
+      << (results::stages_meet_target(r) ? "every stage meets it." : "a stage does not meet it.");
+    if (r.finish)
+        o << " To finish " << fixed(r.finish->finished_height_m, 2) << " m above the original ground after primary "
+          << "settlement, " << fixed(r.finish->placed_height_m, 2) << " m of fill is placed in all (final settlement "
+          << fixed(r.finish->final_settlement_m, 2) << " m, " << fixed(r.finish->submerged_m, 2)
+          << " m of it below the groundwater table); the last stage places " << fixed(*r.last_stage_placed_m, 2) << " m.";
+    return o.str();
+}
+
 std::string stages_table(const scenario::Scenario& s, const results::StageRecord& r) {
     std::ostringstream o;
     o << s.title << "\nstage stability: drain " << r.drain << ", " << to_string(r.pattern) << " pattern at "

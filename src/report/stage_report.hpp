@@ -20,6 +20,10 @@ std::string stage_section_svg(const results::StageRecord& record);
 // and settlement against time.
 std::vector<Chart> stage_charts(const results::StageRecord& record);
 
+// One paragraph: the design checked, the target, whether every stage meets it, and the fill to a
+// finished level when the scenario asks for it.
+std::string stage_summary(const results::StageRecord& record);
+
 // The stage table (header and rows) shared by the Markdown note and the HTML report.
 std::vector<std::string> stage_header();
 std::vector<std::vector<std::string>> stage_rows(const results::StageRecord& record);

@@ -229,10 +229,17 @@ std::vector<std::string> assumptions(const Site& site) {
                              "consolidation layer by layer (no radial term below a drain's tip), solved as a series of " +
                                  std::to_string(site.method.series_terms) + " terms."
                            : "Closed form: equal-strain radial flow, vertical and radial flow combined by Carrillo's rule.");
-    if (site.has_settlement())
+    if (site.has_settlement()) {
         out.push_back(g.profile ? "Settlement by one-dimensional e–log σ' (or mv) per layer over " +
                                       std::to_string(g.profile->slices_per_layer) + " slices per layer."
-                                : "Settlement as mv × load × clay thickness.");
+                        : site.embankment ? "Settlement as mv × stress increase × thickness over " +
+                                                std::to_string(defaults::slices_per_layer) + " slices."
+                                          : "Settlement as mv × load × clay thickness.");
+        if (site.embankment)
+            out.push_back("The stress increase at each depth is that under the embankment's centre line (Osterberg's "
+                          "influence for the section at the fill height of the load); consolidation itself is that of "
+                          "the unit cell under the fill pressure.");
+    }
     else
         out.push_back("No settlement model: degrees only.");
     if (const auto* r = site.criterion.residual())
@@ -337,6 +344,12 @@ std::vector<std::string> reference_keys(const DesignRecord& record) {
     if (!site.criterion.residual()) add("alefeld1995");  // the residual criterion scans and bisects
     if (site.loading && closed_form) add("olson1977");
     if (record.studies.monte_carlo) add("clopper_pearson1934");
+    if (site.embankment) add("osterberg1957");
+    if (record.stages) {
+        for (const char* key : {"bishop1955", "ladd_foott1974", "whitman_bailey1967"}) add(key);
+        for (const auto& layer : site.ground.profile->layers)
+            if (layer.strength && layer.strength->su_top_kPa) add("mesri1975");  // the default gain ratio
+    }
     return keys;
 }
 

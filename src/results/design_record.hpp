@@ -6,6 +6,7 @@
 #include <string>
 #include <vector>
 
+#include "results/stage_record.hpp"
 #include "scenario/scenario.hpp"
 #include "wickgrid/design.hpp"
 #include "wickgrid/studies.hpp"
@@ -62,6 +63,8 @@ struct DesignRecord {
     std::vector<Curve> chart_curves;  // the recommended product (or the first) in every pattern
     std::vector<SpacingSeries> spacing_vs_time;
     Studies studies;
+    // Stage stability of the recommended design (report only; `stages` computes the same record).
+    std::optional<StageRecord> stages;
     std::vector<SubLayerRow> sublayers;  // empty without clay layers and a load history
     // The layer properties the numerical cell and the layered series take (mv, secant for e–log layers;
     // kv and kh = c·mv·γw), as the inputs table shows them; empty for the closed form.
