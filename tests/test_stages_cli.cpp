@@ -93,6 +93,65 @@ TEST(StagesSite, FillToFinishByHand) {
     EXPECT_NEAR(r.submerged_m, expected, 1e-5);
 }
 
+// Secondary compression by hand: one e–log layer, Cα = 0.03, e0 = 1.5, 10 m thick, so
+// 0.03/2.5·10 = 0.12 m per log cycle of time from the end of primary tp (U = 95 %).
+namespace {
+std::string creeping(const std::string& secondary, const std::string& service) {
+    return "schema: 1\ntitle: Invented creeping clay (test case)\n"
+           "target: {residual_settlement_mm: 100, " + service + "deadline_days: 200}\n"
+           "clay:\n  groundwater_depth_m: 0.0\n  layers:\n"
+           "    - {thickness_m: 10.0, unit_weight_kN_per_m3: 16.0, e0: 1.5, cc: 0.6, cr: 0.06, ocr: 1.0" + secondary + "}\n"
+           "  cv_m2_per_year: 2.0\n  ch_m2_per_year: 4.0\n  kh_m_per_s: 1.0e-9\n  vertical_drainage: both_faces\n"
+           "loading:\n  stages:\n    - {start_day: 0, pressure_kPa: 60}\n"
+           "drains: [{name: d, width_mm: 100, thickness_mm: 4, discharge_capacity_m3_per_year: 100}]\n"
+           "installation: {mandrel_width_mm: 120, mandrel_depth_mm: 60, smear_diameter_ratio: 2.0, "
+           "smear_permeability_ratio: 3.0}\npatterns: [triangular]\nspacing: {min_m: 0.8, max_m: 3.0}\n";
+}
+}  // namespace
+
+TEST(StagesSite, SecondaryCompressionByHand) {
+    const auto plain = scenario::parse_scenario(creeping("", "service_days: 7300, "), "c.yaml");
+    for (const std::string key : {", c_alpha: 0.03", ", c_alpha_over_cc: 0.05"}) {
+        const auto s = scenario::parse_scenario(creeping(key, "service_days: 7300, "), "c.yaml");
+        const auto model = make_cell_model(s.site, s.site.products.front(), Pattern::triangular, 1.5);
+        const auto base = make_cell_model(plain.site, plain.site.products.front(), Pattern::triangular, 1.5);
+        const auto tp = model->end_of_primary_s();
+        ASSERT_TRUE(tp.has_value());
+        EXPECT_NEAR(model->degree(*tp), 0.95, 1e-6);
+        const double t = units::days_to_seconds(200.0), period = units::days_to_seconds(7300.0);
+        EXPECT_NEAR(model->secondary_m(*tp * 10.0), 0.12, 1e-12) << key;  // one log cycle
+        EXPECT_EQ(model->secondary_m(0.5 * *tp), 0.0);
+        const double by_hand = 0.12 * (std::log10((t + period) / *tp) - std::log10(std::max(t, *tp) / *tp));
+        EXPECT_NEAR(model->residual_m(t, period) - base->residual_m(t, period), by_hand, 1e-9) << key;
+    }
+    // Negative Cα, Cα on an mv layer and a residual criterion without a service period are refused.
+    const std::pair<std::string, std::string> bad[] = {
+        {creeping(", c_alpha: -0.01", "service_days: 7300, "), "clay.layers[0].c_alpha"},
+        {creeping(", c_alpha: 0.03", ""), "target.residual_settlement_mm"},
+        {creeping(", c_alpha: 0.03, c_alpha_over_cc: 0.05", "service_days: 7300, "), "clay.layers[0].c_alpha_over_cc"},
+    };
+    for (const auto& [text, key] : bad) {
+        try {
+            scenario::parse_scenario(text, "c.yaml");
+            ADD_FAILURE() << key;
+        } catch (const scenario::ScenarioError& e) {
+            EXPECT_EQ(e.key_path(), key) << e.what();
+            EXPECT_GT(e.mark().line, 0) << e.what();
+        }
+    }
+    // The surcharge that also offsets secondary compression is larger, and reaches primary plus the offset.
+    const auto file = write_case(creeping(", c_alpha: 0.03", "service_days: 7300, "));
+    const std::string args = "surcharge " + file.string() + " --drain d --pattern triangular --spacing 2.0 --removal-day 150 --json";
+    const auto primary_only = run(args), offset = run(args + " --offset-secondary");
+    ASSERT_EQ(primary_only.exit_code, 0) << primary_only.err;
+    ASSERT_EQ(offset.exit_code, 0) << offset.err;
+    const auto a = nlohmann::json::parse(primary_only.out), b = nlohmann::json::parse(offset.out);
+    EXPECT_GT(b["secondary_offset_mm"].get<double>(), 0.0);
+    EXPECT_GT(b["surcharge_kPa"].get<double>(), a["surcharge_kPa"].get<double>());
+    EXPECT_NEAR(b["settlement_at_removal_mm"].get<double>(),
+                b["final_settlement_mm"].get<double>() + b["secondary_offset_mm"].get<double>(), 1e-3);
+}
+
 TEST(StagesCommand, JsonKeepsTheContractAndTheChartAgreesWithTheTable) {
     const auto r = run("stages " + source(staged) + " --json");
     ASSERT_LE(r.exit_code, 1) << r.err;

@@ -70,20 +70,34 @@ public:
     double degree(double time_s) const { return combined({time_s}).front(); }
     // Settlement (m) at a time: U × final settlement; nullopt without a settlement model.
     std::optional<double> settlement_m(double time_s) const;
-    // Settlement still to come after time_s: until time_s + period, or to the end (period absent).
-    // Throws InputError without a settlement model.
+    // Settlement still to come after time_s: until time_s + period, or to the end (period absent):
+    // primary, plus secondary compression over the period where the site gives Cα. Throws
+    // InputError without a settlement model, or with secondary compression and no period (it does
+    // not end).
     double residual_m(double time_s, std::optional<double> period_s) const;
+    // Secondary compression (m) from the end of primary (the time U reaches
+    // defaults::end_of_primary_degree) to time_s: Σ Cα/(1 + e0)·H·log10(t/tp); 0 before tp, without
+    // Cα, or when tp is beyond the search horizon. Cost: one time-to-degree root.
+    double secondary_m(double time_s) const;
+    // The end of primary consolidation (s); nullopt when not reached within the search horizon.
+    std::optional<double> end_of_primary_s() const { return time_to_degree_s(defaults::end_of_primary_degree); }
     // How far the criterion is met at the deadline: >= 0 when met (degree − target, or limit − residual).
     double margin(const Criterion& criterion) const;
     // First time the criterion holds; nullopt when not within the search horizon.
     std::optional<double> time_criterion_met_s(const Criterion& criterion) const;
 
 protected:
-    CellModel(const CellFigures& figures, std::optional<double> final_m) : figures_(figures), final_m_(final_m) {}
+    CellModel(const CellFigures& figures, std::optional<double> final_m,
+              std::optional<double> secondary_per_cycle_m = std::nullopt)
+        : figures_(figures), final_m_(final_m), secondary_per_cycle_m_(secondary_per_cycle_m) {}
 
 private:
+    // Secondary compression between two times given the end of primary tp (0 without tp or Cα).
+    double secondary_between(double from_s, double to_s, std::optional<double> tp) const;
+
     CellFigures figures_;
     std::optional<double> final_m_;
+    std::optional<double> secondary_per_cycle_m_;  // Σ Cα/(1 + e0)·H, m per log cycle
 };
 
 // The cell model of the site's method for one product × pattern × spacing. Throws InputError for

@@ -45,6 +45,10 @@ inline constexpr double su_gain_ratio = 0.22;
 inline constexpr double strength_exponent = 0.8;
 inline constexpr double target_factor_of_safety = 1.3;
 
+// Secondary compression counts from the end of primary consolidation, taken as the time the unit
+// cell reaches this average degree (common practice: the log-time law needs a finite start).
+inline constexpr double end_of_primary_degree = 0.95;
+
 // Curves.
 inline constexpr int curve_points = 31;
 inline constexpr double curve_span_of_deadline = 1.5;  // curves run to 1.5 × deadline by default

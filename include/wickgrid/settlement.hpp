@@ -20,6 +20,9 @@ struct SoilLayer {
     std::optional<double> mv_m2_per_kN;
     // Consolidation coefficients of this layer (numerical method); absent: the clay's.
     std::optional<double> cv_m2_per_s, ch_m2_per_s;
+    // Secondary compression index Cα (Δe per log cycle of time; e–log layers), given or as Cα/Cc
+    // (Mesri & Godlewski 1977) times cc; absent: no secondary compression counted.
+    std::optional<double> c_alpha;
     // Undrained strength (stage stability); absent: the layer's strength is not given.
     std::optional<UndrainedStrength> strength;
 };

@@ -145,6 +145,11 @@ struct SettlementSlice {
 };
 std::vector<SettlementSlice> settlement_slices(const Site& site, double surface_load_kPa);
 
+// Secondary compression of the profile per log cycle of time (m): Σ Cα/(1 + e0)·H over the layers
+// that give Cα; nullopt when none does. Secondary settlement after the end of primary tp is this
+// times log10(t/tp) (the usual log-time law; Mesri & Godlewski 1977 for Cα/Cc).
+std::optional<double> secondary_per_cycle_m(const Site& site);
+
 // Ultimate primary settlement (m) under a total load q (kPa) on this site: the sum of its
 // settlement slices; without a settlement model, q itself (so that settlement histories
 // become load-weighted degrees).

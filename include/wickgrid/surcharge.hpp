@@ -1,8 +1,12 @@
 #pragma once
 // Surcharge design by the classic preloading criterion: at removal, the settlement under the
 // permanent load plus surcharge equals the final primary settlement under the permanent load
-// alone (Johnson 1970, from memory as the usual reference). Rebound on removal and secondary
-// compression are ignored.
+// alone (Johnson 1970, from memory as the usual reference). Rebound on removal is ignored. With
+// offset_secondary_service_s, the surcharge also offsets secondary compression: the settlement at
+// removal equals the final primary settlement plus the secondary compression under the permanent
+// load from the end of primary to removal + service period (the extension of the same criterion
+// that Johnson 1970 discusses; common practice), so that the settlement left after removal over
+// the service life is compensated in advance.
 #include "wickgrid/cell_model.hpp"
 
 namespace wickgrid {
@@ -15,6 +19,7 @@ struct SurchargeResult {
     double final_m = 0.0;                  // final primary settlement under the permanent load
     double settlement_at_removal_m = 0.0;  // under permanent + surcharge, at removal
     bool needed = true;                    // false: the permanent load alone reaches final by removal
+    double secondary_offset_m = 0.0;       // secondary compression offset (0 unless asked)
 };
 
 // One drain product × pattern × spacing on a site; every settlement comes from the site's cell model
@@ -24,6 +29,7 @@ struct SurchargeCell {
     const DrainProductSpec& product;
     Pattern pattern;
     double spacing_m;
+    std::optional<double> offset_secondary_service_s = std::nullopt;  // service period after removal (s)
 };
 
 // The surcharge pressure for removal at timing.removal_s (timing.pressure_kPa is ignored). Throws

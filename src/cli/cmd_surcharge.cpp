@@ -22,6 +22,8 @@ struct SurchargeOptions {
     std::string find = "pressure";
     std::optional<double> removal_day;
     std::optional<double> max_height_m;
+    bool offset_secondary = false;
+    std::optional<double> service_days;
     bool json = false;
 };
 
@@ -44,6 +46,11 @@ Runner add_surcharge(CLI::App& app) {
         ->check(positive_number());
     cmd->add_option("--max-height", o->max_height_m, "Warn when the surcharge fill exceeds this height (m)")
         ->check(positive_number());
+    cmd->add_flag("--offset-secondary", o->offset_secondary,
+                  "Also offset the secondary compression (layers' c_alpha) up to the end of the service life after removal");
+    cmd->add_option("--service-days", o->service_days,
+                    "Service life after removal for --offset-secondary (default: target.service_days)")
+        ->check(positive_number());
     cmd->add_flag("--json", o->json, "JSON on stdout");
     return [o] {
         return run_each(o->files, {o->json, false}, [&](const BatchItem& item) {
@@ -55,7 +62,17 @@ Runner add_surcharge(CLI::App& app) {
                 s.fail_at("clay", "surcharge design needs a settlement model: 'clay.layers' or 'clay.mv_m2_per_kN'");
             const Pattern pattern = pattern_option(o->pattern);
             model_from_options(s, o->drain, pattern, o->spacing_m);  // the spacing, checked against --spacing
-            const SurchargeCell cell{site, site.product(s.drain(o->drain).name), pattern, o->spacing_m};
+            SurchargeCell cell{site, site.product(s.drain(o->drain).name), pattern, o->spacing_m};
+            if (o->service_days && !o->offset_secondary)
+                throw UsageError("--service-days", "goes with --offset-secondary only");
+            if (o->offset_secondary) {
+                if (!secondary_per_cycle_m(site))
+                    throw UsageError("--offset-secondary", "needs 'c_alpha' or 'c_alpha_over_cc' in at least one clay layer");
+                const auto* residual = site.criterion.residual();
+                if (o->service_days) cell.offset_secondary_service_s = units::days_to_seconds(*o->service_days);
+                else if (residual && residual->service_s) cell.offset_secondary_service_s = residual->service_s;
+                else throw UsageError("--offset-secondary", "needs --service-days or 'target.service_days' (the service life)");
+            }
             const auto& drain = s.drain(o->drain);
             Surcharge timing;
             if (site.loading->surcharge) {
@@ -92,7 +109,10 @@ Runner add_surcharge(CLI::App& app) {
                          {"settlement_at_removal_mm", result.settlement_at_removal_m * 1000.0},
                          {"height_limit_m", limit ? json(*limit) : json(nullptr)}, {"exceeds_limit", exceeds},
                          {"method", std::string(to_string(site.method.method))},
-                         {"ignores", json::array({ignores[0], ignores[1], ignores[2]})},
+                         {"offset_secondary", o->offset_secondary},
+                         {"secondary_offset_mm", result.secondary_offset_m * 1000.0},
+                         {"ignores", o->offset_secondary ? json::array({ignores[1], ignores[2]})
+                                                         : json::array({ignores[0], ignores[1], ignores[2]})},
                          {"cautions", results::cautions()}};
                 item.print(doc.dump(2) + "\n");
                 return static_cast<int>(ok);
@@ -102,16 +122,24 @@ Runner add_surcharge(CLI::App& app) {
                 << " m\n\n";
             if (!result.needed)
                 out << "No surcharge is needed: the permanent load alone reaches its final primary settlement ("
-                    << report::fixed(result.final_m * 1000.0, 0) << " mm) by day " << report::fixed(units::seconds_to_days(result.removal_s), 0) << ".\n";
+                    << report::fixed(result.final_m * 1000.0, 0) << " mm"
+                    << (o->offset_secondary ? " plus the secondary offset of " + report::fixed(result.secondary_offset_m * 1000.0, 0) + " mm"
+                                            : std::string())
+                    << ") by day " << report::fixed(units::seconds_to_days(result.removal_s), 0) << ".\n";
             else
                 out << "Surcharge " << report::fixed(result.pressure_kPa, 1) << " kPa"
                     << (height ? " (" + report::fixed(*height, 2) + " m of fill)" : std::string()) << ", placed from day "
                     << report::fixed(units::seconds_to_days(result.start_s), 0) << " to day "
                     << report::fixed(units::seconds_to_days(result.end_s), 0) << ", removed at day "
                     << report::fixed(units::seconds_to_days(result.removal_s), 1) << ": settlement at removal "
-                    << report::fixed(result.settlement_at_removal_m * 1000.0, 0) << " mm = final primary settlement under the permanent load.\n";
+                    << report::fixed(result.settlement_at_removal_m * 1000.0, 0) << " mm = final primary settlement under the permanent load"
+                    << (o->offset_secondary ? " (" + report::fixed(result.final_m * 1000.0, 0) + " mm) plus the secondary compression to the end of the service life (" +
+                                                  report::fixed(result.secondary_offset_m * 1000.0, 0) + " mm)"
+                                            : std::string())
+                    << ".\n";
             if (exceeds) out << "WARNING: the surcharge height exceeds the limit of " << report::fixed(*limit, 2) << " m.\n";
-            out << "The method ignores " << ignores[0] << ", " << ignores[1] << " and " << ignores[2] << ".\n";
+            if (o->offset_secondary) out << "The method ignores " << ignores[1] << " and " << ignores[2] << ".\n";
+            else out << "The method ignores " << ignores[0] << ", " << ignores[1] << " and " << ignores[2] << ".\n";
             out << "\n" << results::caution_block();
             item.print(out.str());
             return static_cast<int>(ok);

@@ -38,8 +38,8 @@ std::optional<LayeredCell> vertical_of(NumericalCellSpec spec, RadialTheory theo
 class LayeredModel final : public CellModel {
 public:
     LayeredModel(const NumericalCellSpec& spec, RadialTheory theory, int terms, LayeredCell cell,
-                 std::optional<double> final_m)
-        : CellModel(figures_of(spec, cell), final_m), spec_(spec), theory_(theory), terms_(terms), cell_(std::move(cell)) {}
+                 std::optional<double> final_m, std::optional<double> secondary)
+        : CellModel(figures_of(spec, cell), final_m, secondary), spec_(spec), theory_(theory), terms_(terms), cell_(std::move(cell)) {}
 
     // Uv needs the series without a drain: built here, when degrees are asked, so that the searches
     // (which ask U alone) do not pay for it.
@@ -98,6 +98,7 @@ std::function<double(double)> layered_margin_function(const Site& site, const Dr
     const RadialTheory theory = site.installation.theory;
     const int terms = site.method.series_terms;
     const Criterion criterion = site.criterion;
+    const std::optional<double> secondary = secondary_per_cycle_m(site);
     // With a settlement model and fill the final settlement does not depend on spacing either.
     const bool settles = site.has_settlement();
     const bool fill = settles && site.loading->permanent_kPa() > 0.0;
@@ -109,7 +110,7 @@ std::function<double(double)> layered_margin_function(const Site& site, const Dr
         LayeredCell cell(spec, theory, terms);
         std::optional<double> final_m = fill_final;
         if (settles && !fill) final_m = ultimate(cell.reference_load_kPa()) - ultimate(0.0);
-        return LayeredModel(spec, theory, terms, std::move(cell), final_m).margin(criterion);
+        return LayeredModel(spec, theory, terms, std::move(cell), final_m, secondary).margin(criterion);
     };
 }
 
@@ -120,7 +121,7 @@ std::unique_ptr<CellModel> make_layered_model(const Site& site, const DrainProdu
     const int terms = site.method.series_terms;
     LayeredCell cell(spec, theory, terms);
     const auto final_m = final_settlement(site, ultimate_settlement_function(site), cell);
-    return std::make_unique<LayeredModel>(spec, theory, terms, std::move(cell), final_m);
+    return std::make_unique<LayeredModel>(spec, theory, terms, std::move(cell), final_m, secondary_per_cycle_m(site));
 }
 
 }  // namespace wickgrid::detail

@@ -100,6 +100,14 @@ std::vector<SettlementSlice> settlement_slices(const Site& site, double q) {
     return out;
 }
 
+std::optional<double> secondary_per_cycle_m(const Site& site) {
+    if (!site.ground.profile) return std::nullopt;
+    std::optional<double> total;
+    for (const SoilLayer& l : site.ground.profile->layers)
+        if (l.c_alpha && l.e0) total = total.value_or(0.0) + *l.c_alpha / (1.0 + *l.e0) * l.thickness_m;
+    return total;
+}
+
 std::function<double(double)> ultimate_settlement_function(const Site& site) {
     if (site.loading && (site.ground.profile || site.ground.mv_m2_per_kN)) {
         if (!site.embankment && site.ground.profile) {

@@ -33,6 +33,13 @@ void check(const SurchargeCell& c, const Surcharge& timing) {
     require_at_least("surcharge end (s)", timing.end_s, timing.start_s, "at least the surcharge start");
 }
 
+// What the settlement at removal time t must reach: the final primary settlement, plus the
+// secondary compression to t + service when asked.
+double target_at(const SurchargeCell& c, const CellModel& permanent, double t) {
+    const double primary = *permanent.final_settlement_m();
+    return c.offset_secondary_service_s ? primary + permanent.secondary_m(t + *c.offset_secondary_service_s) : primary;
+}
+
 template <class F>
 double root(const char* what, F&& f, double lo, double hi) {
     std::uintmax_t iterations = defaults::root_iterations;
@@ -48,13 +55,15 @@ SurchargeResult surcharge_for_removal(const SurchargeCell& c, const Surcharge& t
     SurchargeResult out{0.0, timing.start_s, timing.end_s, timing.removal_s, 0.0, 0.0, true};
     const auto permanent = model_with(c, std::nullopt);
     out.final_m = *permanent->final_settlement_m();
+    const double target = target_at(c, *permanent, timing.removal_s);
+    out.secondary_offset_m = target - out.final_m;
     auto gap = [&](double q) {
         Surcharge s = timing;
         s.pressure_kPa = q;
-        return loaded_settlement(c, s, timing.removal_s) - out.final_m;
+        return loaded_settlement(c, s, timing.removal_s) - target;
     };
     const double without = *permanent->settlement_m(timing.removal_s);
-    if (without >= out.final_m) {
+    if (without >= target) {
         out.needed = false;
         out.settlement_at_removal_m = without;
         return out;
@@ -67,7 +76,7 @@ SurchargeResult surcharge_for_removal(const SurchargeCell& c, const Surcharge& t
                                   "no surcharge below 5000 kPa reaches the final settlement by then; remove it later");
     }
     out.pressure_kPa = root("surcharge pressure", gap, 1e-9, hi);
-    out.settlement_at_removal_m = out.final_m + gap(out.pressure_kPa);
+    out.settlement_at_removal_m = target + gap(out.pressure_kPa);
     return out;
 }
 
@@ -75,12 +84,14 @@ SurchargeResult removal_for_surcharge(const SurchargeCell& c, const Surcharge& t
     check(c, timing);
     require_positive("surcharge pressure (kPa)", timing.pressure_kPa);
     SurchargeResult out{timing.pressure_kPa, timing.start_s, timing.end_s, timing.end_s, 0.0, 0.0, true};
-    out.final_m = *model_with(c, std::nullopt)->final_settlement_m();
-    auto gap = [&](double t) { return loaded_settlement(c, timing, t) - out.final_m; };
+    const auto permanent = model_with(c, std::nullopt);
+    out.final_m = *permanent->final_settlement_m();
+    auto gap = [&](double t) { return loaded_settlement(c, timing, t) - target_at(c, *permanent, t); };
     const double earliest = std::max(timing.end_s, c.site.loading->end_of_construction_s());
     if (gap(earliest) >= 0.0) {
         out.removal_s = earliest;
-        out.settlement_at_removal_m = out.final_m + gap(earliest);
+        out.secondary_offset_m = target_at(c, *permanent, earliest) - out.final_m;
+        out.settlement_at_removal_m = out.final_m + out.secondary_offset_m + gap(earliest);
         return out;
     }
     double hi = earliest + units::seconds_per_day;
@@ -92,7 +103,8 @@ SurchargeResult removal_for_surcharge(const SurchargeCell& c, const Surcharge& t
                                       format_value(defaults::search_horizon_years) + " years; a larger surcharge is needed");
     }
     out.removal_s = root("surcharge removal day", gap, earliest, hi);
-    out.settlement_at_removal_m = out.final_m + gap(out.removal_s);
+    out.secondary_offset_m = target_at(c, *permanent, out.removal_s) - out.final_m;
+    out.settlement_at_removal_m = out.final_m + out.secondary_offset_m + gap(out.removal_s);
     return out;
 }
 

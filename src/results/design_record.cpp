@@ -242,6 +242,11 @@ std::vector<std::string> assumptions(const Site& site) {
     }
     else
         out.push_back("No settlement model: degrees only.");
+    if (secondary_per_cycle_m(site))
+        out.push_back("Secondary compression Σ Cα/(1 + e0)·H·log10(t/tp) from the end of primary tp (the time the unit "
+                      "cell reaches an average degree of " + fixed(100.0 * defaults::end_of_primary_degree, 0) +
+                      " %), counted in the residual settlement; Cα is not reduced by the over-consolidation a surcharge "
+                      "leaves.");
     if (const auto* r = site.criterion.residual())
         out.push_back(r->service_s ? "Residual settlement counted over the " + fixed(days(*r->service_s), 0) +
                                          "-day service period after the deadline only."
@@ -345,6 +350,7 @@ std::vector<std::string> reference_keys(const DesignRecord& record) {
     if (site.loading && closed_form) add("olson1977");
     if (record.studies.monte_carlo) add("clopper_pearson1934");
     if (site.embankment) add("osterberg1957");
+    if (secondary_per_cycle_m(site)) add("mesri_godlewski1977");
     if (record.stages) {
         for (const char* key : {"bishop1955", "ladd_foott1974", "whitman_bailey1967"}) add(key);
         for (const auto& layer : site.ground.profile->layers)

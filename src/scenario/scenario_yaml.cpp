@@ -249,7 +249,8 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
         r.expect_map(l, path);
         r.allow_keys(l, path, {"thickness_m", "unit_weight_kN_per_m3", "e0", "cc", "cr", "preconsolidation_kPa", "ocr",
                                "mv_m2_per_kN", "cv_m2_per_year", "ch_m2_per_year", "su_top_kPa",
-                               "su_gradient_kPa_per_m", "su_ratio", "strength_exponent", "su_gain_ratio"});
+                               "su_gradient_kPa_per_m", "su_ratio", "strength_exponent", "su_gain_ratio", "c_alpha",
+                               "c_alpha_over_cc"});
         SoilLayer layer;
         if (const auto cv = r.optional_number(l, path, "cv_m2_per_year", positive("m²/year")))
             layer.cv_m2_per_s = units::per_year_to_per_second(*cv);
@@ -274,6 +275,15 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
             layer.ocr = r.optional_number(l, path, "ocr", {1.0, true, inf, false, ""});
         }
         layer.strength = read_strength(r, l, path, layer.thickness_m);
+        if (l["c_alpha"] && l["c_alpha_over_cc"])
+            r.fail(l["c_alpha_over_cc"], path + ".c_alpha_over_cc", "give either 'c_alpha' or 'c_alpha_over_cc', not both");
+        for (const char* key : {"c_alpha", "c_alpha_over_cc"})
+            if (l[key] && layer.mv_m2_per_kN)
+                r.fail(l[key], path + "." + key, "needs an e–log layer (e0, cc, cr): secondary strain is Cα/(1 + e0)");
+        if (const auto ca = r.optional_number(l, path, "c_alpha", {0.0, true, 1.0, false, "(Δe per log cycle of time; 0 to 1)"}))
+            layer.c_alpha = *ca;
+        if (const auto ratio = r.optional_number(l, path, "c_alpha_over_cc", {0.0, true, 0.2, true, "(Cα/Cc, 0 to 0.2)"}))
+            layer.c_alpha = *ratio * *layer.cc;
         profile.layers.push_back(layer);
     }
     try {
@@ -872,6 +882,10 @@ void check_settlement_criterion(const Scenario& s) {
     if (!site.ground.profile && !site.ground.mv_m2_per_kN)
         s.fail_at("target.residual_settlement_mm",
                   "a residual settlement criterion needs 'clay.layers' or 'clay.mv_m2_per_kN' for the settlement");
+    if (secondary_per_cycle_m(site) && !site.criterion.residual()->service_s)
+        s.fail_at("target.residual_settlement_mm",
+                  "with secondary compression (c_alpha) the residual settlement needs 'service_days': secondary "
+                  "compression does not end");
 }
 
 Scenario read(const YAML::Node& root, const std::string& file) {
