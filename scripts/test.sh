@@ -14,10 +14,12 @@ ctest --test-dir build/release --output-on-failure -j "$jobs"
 cmake -S . -B build/sanitize -G Ninja -DCMAKE_BUILD_TYPE=Debug -DWICKGRID_SANITIZE=ON \
       -DWICKGRID_BENCH=OFF -DCMAKE_CXX_FLAGS="-O1"
 cmake --build build/sanitize -j "$jobs"
-# The command × scenario matrix (label "matrix") checks agreement between commands, not memory: it
-# runs in the release tree only, where it is fast.
+# The command × scenario matrix (label "matrix"), the SciPy oracle and the printed-report check (label
+# "agreement") check agreement with other computations, not memory: they run in the release tree
+# only, where they are fast. The engine paths they reach run under the sanitizers in the unit and
+# command tests.
 ASAN_OPTIONS=detect_leaks=1:abort_on_error=1 UBSAN_OPTIONS=print_stacktrace=1:halt_on_error=1 \
-  ctest --test-dir build/sanitize --output-on-failure -j "$jobs" -LE matrix
+  ctest --test-dir build/sanitize --output-on-failure -j "$jobs" -LE "matrix|agreement"
 
 # Fuzz: the scenario loader for about two minutes and the layout's area readers for one, from the
 # bundled files as seeds (FUZZ_SECONDS and FUZZ_AREA_SECONDS to change). New corpus entries and any

@@ -12,15 +12,9 @@ namespace wickgrid::detail {
 
 namespace {
 CellFigures figures_of(const NumericalCellSpec& spec, const LayeredCell& cell) {
-    CellFigures f;
-    f.equivalent_diameter_m = spec.drain_diameter_m;
-    f.smear_diameter_m = spec.smear_diameter_m;
-    f.influence_diameter_m = spec.influence_diameter_m;
-    f.n = f.influence_diameter_m / f.equivalent_diameter_m;
-    f.s = f.smear_diameter_m / f.equivalent_diameter_m;
+    CellFigures f = spec_geometry(spec);
     f.mu_smear = cell.mu_smear();
     f.mu_depth_mean = cell.mu_depth_mean();
-    f.drain_length_m = spec.drain_length_m;
     return f;
 }
 

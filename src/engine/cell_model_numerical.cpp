@@ -32,12 +32,7 @@ double mu_depth_mean_layered(const NumericalCellSpec& spec, double mu_smear) {
 }
 
 CellFigures figures_of(const Site& site, const NumericalCellSpec& spec, double spacing_m) {
-    CellFigures f;
-    f.equivalent_diameter_m = spec.drain_diameter_m;
-    f.smear_diameter_m = spec.smear_diameter_m;
-    f.influence_diameter_m = spec.influence_diameter_m;
-    f.n = f.influence_diameter_m / f.equivalent_diameter_m;
-    f.s = f.smear_diameter_m / f.equivalent_diameter_m;
+    CellFigures f = spec_geometry(spec);
     DrainInstallation drain;
     drain.equivalent_diameter_m = spec.drain_diameter_m;
     drain.smear_diameter_m = spec.smear_diameter_m;
@@ -46,7 +41,6 @@ CellFigures figures_of(const Site& site, const NumericalCellSpec& spec, double s
     drain.theory = site.installation.theory;
     f.mu_smear = smear_mu(drain, f.n, spacing_m);
     f.mu_depth_mean = mu_depth_mean_layered(spec, f.mu_smear);
-    f.drain_length_m = spec.drain_length_m;
     return f;
 }
 
