@@ -296,6 +296,37 @@ std::string print_page_css(const scenario::Scenario& s) {
 }
 
 namespace {
+// A header and rows as an HTML table (cells escaped) and as a Markdown table.
+std::string html_table(const std::string& css_class, const std::vector<std::string>& header,
+                       const std::vector<std::vector<std::string>>& rows) {
+    std::ostringstream o;
+    o << "<table class=\"" << css_class << "\">\n<tr>";
+    for (const auto& h : header) o << "<th>" << escape_xml(h) << "</th>";
+    o << "</tr>\n";
+    for (const auto& row : rows) {
+        o << "<tr>";
+        for (const auto& cell : row) o << "<td>" << escape_xml(cell) << "</td>";
+        o << "</tr>\n";
+    }
+    o << "</table>\n";
+    return o.str();
+}
+
+std::string markdown_table(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows) {
+    std::ostringstream o;
+    o << "|";
+    for (const auto& h : header) o << ' ' << markdown_text(h) << " |";
+    o << "\n|";
+    for (std::size_t i = 0; i < header.size(); ++i) o << "---|";
+    o << "\n";
+    for (const auto& row : rows) {
+        o << "|";
+        for (const auto& cell : row) o << ' ' << markdown_text(cell) << " |";
+        o << "\n";
+    }
+    return o.str();
+}
+
 // The report's sections beyond the design note, in Markdown: the reliability table and the charts.
 std::string markdown_sections(const results::DesignRecord& record, const std::vector<Chart>& charts) {
     std::ostringstream o;
@@ -314,17 +345,8 @@ std::string markdown_sections(const results::DesignRecord& record, const std::ve
         o << "\n";
     }
     if (const auto& st = record.stages) {
-        o << "## Stage stability\n\n" << markdown_text(stage_summary(*st)) << "\n\n|";
-        for (const auto& h : stage_header()) o << ' ' << markdown_text(h) << " |";
-        o << "\n|";
-        for (std::size_t i = 0; i < stage_header().size(); ++i) o << "---|";
-        o << "\n";
-        for (const auto& row : stage_rows(*st)) {
-            o << "|";
-            for (const auto& cell : row) o << ' ' << markdown_text(cell) << " |";
-            o << "\n";
-        }
-        o << "\n";
+        o << "## Stage stability\n\n" << markdown_text(stage_summary(*st)) << "\n\n"
+          << markdown_table(stage_header(), stage_rows(*st)) << "\n";
         for (const auto& a : st->assumptions) o << "- " << markdown_text(a) << "\n";
         o << "\n";
     }
@@ -389,27 +411,12 @@ ReportBundle build_report(const results::DesignRecord& record) {
              "criterion), under the final permanent load; u and the local degree at the slice centre at the deadline "
              "show how consolidation is spread over depth (– where the method reports depth averages only); the "
              "settlement at the deadline applies the design's average degree, so that the slices add up to the design "
-             "row.</p>\n<table class=\"sublayers\">\n<tr>";
-        for (const auto& h : sublayer_header()) o << "<th>" << escape_xml(h) << "</th>";
-        o << "</tr>\n";
-        for (const auto& row : sublayer_table_rows(record)) {
-            o << "<tr>";
-            for (const auto& cell : row) o << "<td>" << escape_xml(cell) << "</td>";
-            o << "</tr>\n";
-        }
-        o << "</table>\n</section>\n";
+             "row.</p>\n"
+          << html_table("sublayers", sublayer_header(), sublayer_table_rows(record)) << "</section>\n";
     }
     if (const auto& st = record.stages) {
-        o << "<section id=\"stages\"><h2>Stage stability</h2>\n<p>" << escape_xml(stage_summary(*st))
-          << "</p>\n<table class=\"stages\">\n<tr>";
-        for (const auto& h : stage_header()) o << "<th>" << escape_xml(h) << "</th>";
-        o << "</tr>\n";
-        for (const auto& row : stage_rows(*st)) {
-            o << "<tr>";
-            for (const auto& cell : row) o << "<td>" << escape_xml(cell) << "</td>";
-            o << "</tr>\n";
-        }
-        o << "</table>\n<ul>\n";
+        o << "<section id=\"stages\"><h2>Stage stability</h2>\n<p>" << escape_xml(stage_summary(*st)) << "</p>\n"
+          << html_table("stages", stage_header(), stage_rows(*st)) << "<ul>\n";
         for (const auto& a : st->assumptions) o << "<li>" << escape_xml(a) << "</li>\n";
         o << "</ul>\n</section>\n";
     }
