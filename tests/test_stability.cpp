@@ -16,11 +16,24 @@ namespace {
 
 constexpr double pi = boost::math::double_constants::pi;
 
+EmbankmentSection section_of(double crest, double slope, double gamma, double phi, double cohesion, double target,
+                             std::vector<Berm> berms = {}) {
+    EmbankmentSection s;
+    s.crest_width_m = crest;
+    s.side_slope_h_per_v = slope;
+    s.fill_unit_weight_kN_per_m3 = gamma;
+    s.fill_friction_angle_deg = phi;
+    s.fill_cohesion_kPa = cohesion;
+    s.target_factor_of_safety = target;
+    s.berms = std::move(berms);
+    return s;
+}
+
 // A uniform φ = 0 clay of strength su and unit weight γ, thickness H, under a section.
 SlopeModel uniform_clay(const EmbankmentSection& section, double height, double thickness, double su, double gamma) {
     SlopeModel m;
     m.section = section;
-    m.height_m = height;
+    m.profile = fill_profile(section, height, height);
     m.clay_thickness_m = thickness;
     m.bands = {{0.0, thickness, gamma}};
     m.su_kPa = [su](double, double) { return su; };
@@ -56,26 +69,60 @@ TEST(Embankment, OsterbergInfluenceRows) {
     for (const auto& r : rows) EXPECT_NEAR(osterberg_influence(r.a_m, r.b_m, r.z_m), r.expected, r.tolerance) << r.source;
 }
 
-// The Flamant integral over the whole section equals twice Osterberg's influence on the centre line
-// (two independent formulas for the same integral).
+// The Flamant integral over the whole section equals Osterberg's half embankments superposed on the
+// centre line (two independent formulas for the same integral), with and without berms, at the
+// final height and part-way up; and a plain trapezoid gives twice Osterberg's influence.
 TEST(Embankment, FlamantIntegralMatchesOsterbergOnCentreLine) {
-    const EmbankmentSection s{30.0, 2.0, 19.0, 32.0, 0.0, 1.3, std::nullopt};
+    EmbankmentSection s = section_of(30.0, 2.0, 19.0, 32.0, 0.0, 1.3);
+    EmbankmentSection bermed = s;
+    bermed.berms = {{8.0, 3.0}, {5.0, 1.5}};
     for (const double h : {1.0, 3.0, 6.0})
         for (const double z : {0.5, 2.0, 8.0, 20.0, 60.0}) {
             const double q = 19.0 * h;
-            EXPECT_NEAR(embankment_stress_kPa(s, h, 0.0, z), q * centreline_influence(s, h, z), 1e-9 * q) << h << " " << z;
+            const FillProfile plain = fill_profile(s, h, h);
+            EXPECT_NEAR(centreline_stress_kPa(plain, 19.0, z), q * 2.0 * osterberg_influence(2.0 * h, 15.0, z), 1e-9 * q);
+            EXPECT_NEAR(embankment_stress_kPa(plain, 19.0, 0.0, z), centreline_stress_kPa(plain, 19.0, z), 1e-9 * q);
+            const FillProfile stepped = fill_profile(bermed, 6.5, h);
+            EXPECT_NEAR(embankment_stress_kPa(stepped, 19.0, 0.0, z), centreline_stress_kPa(stepped, 19.0, z), 1e-9 * q)
+                << h << " " << z;
         }
+}
+
+// A section with berms, cut at heights by hand: crest half-width 10, slopes 2:1, a berm 6 m wide at
+// 2 m, final height 5 m. Full: (0,5) (10,5) (16,2) (22,2) (26,0). At 3 m: (0,3) (14,3) (16,2) (22,2)
+// (26,0). At 2 m: the berm's top is the crest: (0,2) (22,2) (26,0). At 1 m: (0,1) (24,1) (26,0).
+TEST(Embankment, FillProfileWithABermByHand) {
+    EmbankmentSection s = section_of(20.0, 2.0, 19.0, 32.0, 0.0, 1.3, {{6.0, 2.0}});
+    struct Row {
+        double h;
+        std::vector<double> x, y;
+    };
+    const Row rows[] = {{5.0, {0, 10, 16, 22, 26}, {5, 5, 2, 2, 0}},
+                        {3.0, {0, 14, 16, 22, 26}, {3, 3, 2, 2, 0}},
+                        {2.0, {0, 22, 26}, {2, 2, 0}},
+                        {1.0, {0, 24, 26}, {1, 1, 0}}};
+    for (const auto& row : rows) {
+        const FillProfile p = fill_profile(s, 5.0, row.h);
+        ASSERT_EQ(p.x_m.size(), row.x.size()) << row.h;
+        for (std::size_t i = 0; i < row.x.size(); ++i) {
+            EXPECT_NEAR(p.x_m[i], row.x[i], 1e-12) << row.h;
+            EXPECT_NEAR(p.y_m[i], row.y[i], 1e-12) << row.h;
+        }
+        EXPECT_NEAR(fill_surface_m(p, -15.0), row.h >= 3.0 ? 2.5 : row.h, 1e-12) << row.h;  // on the slope, or the flat top
+    }
+    EXPECT_THROW(fill_profile(s, 1.5, 1.5), InputError);  // the berm stands above the fill
 }
 
 // Equilibrium: the vertical stress integrated across any horizontal plane carries the whole load
 // (statics), here by the trapezoid rule over a wide span.
 TEST(Embankment, StressCarriesTheWholeLoad) {
-    const EmbankmentSection s{20.0, 2.0, 20.0, 30.0, 0.0, 1.3, std::nullopt};
+    const EmbankmentSection s = section_of(20.0, 2.0, 20.0, 30.0, 0.0, 1.3);
     const double h = 4.0, load = 20.0 * h * (20.0 + 2.0 * h);  // kN/m: γ·h·(crest + n·h)
     const double z = 6.0;
+    const FillProfile p = fill_profile(s, h, h);
     double total = 0.0;
     const double dx = 0.01;
-    for (double x = -3000.0; x < 3000.0; x += dx) total += embankment_stress_kPa(s, h, x + 0.5 * dx, z) * dx;
+    for (double x = -3000.0; x < 3000.0; x += dx) total += embankment_stress_kPa(p, 20.0, x + 0.5 * dx, z) * dx;
     EXPECT_NEAR(total, load, 0.005 * load);  // the tails beyond ±3 km carry about 0.1 %
 }
 
@@ -88,7 +135,7 @@ TEST(Embankment, SectionErrorsNameTheField) {
             EXPECT_EQ(e.quantity(), field);
         }
     };
-    const EmbankmentSection ok{30.0, 2.0, 19.0, 32.0, 0.0, 1.3, std::nullopt};
+    const EmbankmentSection ok = section_of(30.0, 2.0, 19.0, 32.0, 0.0, 1.3);
     EXPECT_NO_THROW(validate_section(ok));
     auto s = ok;
     s.side_slope_h_per_v = -0.5;  // steeper than vertical
@@ -139,7 +186,7 @@ TEST(Strength, HandCalculations) {
 TEST(Stability, StripLoadOnClayCollapsesNearFellenius552) {
     const double su = 20.0, B = 10.0;
     // A thin, very heavy block of no strength is the strip load.
-    EmbankmentSection strip{B, 0.0, 1.0e4, 0.0, 0.0, 1.0, std::nullopt};
+    EmbankmentSection strip = section_of(B, 0.0, 1.0e4, 0.0, 0.0, 1.0);
     const double h = 0.01;  // q = 100 kPa = 5 su
     const auto m = uniform_clay(strip, h, 30.0, su, 16.0);
     const CircleResult r = critical_circle(m);
@@ -156,7 +203,7 @@ TEST(Stability, StripLoadOnClayCollapsesNearFellenius552) {
 // clay's own weight is symmetric about the centre): F = 2π·su/q (the classic semicircle bound).
 TEST(Stability, SemicircleOnStripEdgeByHand) {
     const double su = 15.0, q = 60.0, h = 0.001;
-    EmbankmentSection strip{20.0, 0.0, q / h, 0.0, 0.0, 1.0, std::nullopt};
+    EmbankmentSection strip = section_of(20.0, 0.0, q / h, 0.0, 0.0, 1.0);
     const auto m = uniform_clay(strip, h, 30.0, su, 17.0);
     const auto r = bishop_factor_of_safety(m, {10.0, h, 6.0}, 400);
     ASSERT_TRUE(r.has_value());
@@ -169,7 +216,7 @@ TEST(Stability, SemicircleOnStripEdgeByHand) {
 // value tanφ/tanβ for shallow slips (statics of a block on a plane).
 TEST(Stability, DryCohesionlessSlopeTendsToInfiniteSlope) {
     const double phi = 32.0, n = 2.0;
-    EmbankmentSection fill{20.0, n, 19.0, phi, 0.0, 1.0, std::nullopt};
+    EmbankmentSection fill = section_of(20.0, n, 19.0, phi, 0.0, 1.0);
     const auto m = uniform_clay(fill, 5.0, 2.0, 1.0e6, 18.0);  // a clay too strong to fail
     CircleSearch search;
     search.through_clay = false;
@@ -184,10 +231,10 @@ TEST(Stability, DryCohesionlessSlopeTendsToInfiniteSlope) {
 // safety no higher than the scan's best (within 0.5 %). A consistency check of the search, not an
 // outside reference.
 TEST(Stability, SearchFindsWhatADenseScanFinds) {
-    EmbankmentSection fill{20.0, 2.0, 19.0, 30.0, 0.0, 1.3, std::nullopt};
+    EmbankmentSection fill = section_of(20.0, 2.0, 19.0, 30.0, 0.0, 1.3);
     SlopeModel m;
     m.section = fill;
-    m.height_m = 4.0;
+    m.profile = fill_profile(fill, 4.0, 4.0);
     m.clay_thickness_m = 12.0;
     m.bands = {{0.0, 3.0, 17.0}, {3.0, 5.0, 15.0}, {5.0, 12.0, 16.5}};
     m.su_kPa = [](double, double z) { return z > 3.0 && z <= 5.0 ? 9.0 : 25.0 + 1.0 * z; };
@@ -206,12 +253,14 @@ TEST(Stability, SearchFindsWhatADenseScanFinds) {
 
 // Named failures of a slope model.
 TEST(Stability, BadSlopeModelsAreNamed) {
-    EmbankmentSection fill{20.0, 2.0, 19.0, 30.0, 0.0, 1.3, std::nullopt};
+    EmbankmentSection fill = section_of(20.0, 2.0, 19.0, 30.0, 0.0, 1.3);
     auto m = uniform_clay(fill, 3.0, 10.0, 20.0, 16.0);
     m.bands = {{0.0, 6.0, 16.0}};  // does not reach the clay's base
     EXPECT_THROW(critical_circle(m), InputError);
-    m = uniform_clay(fill, -1.0, 10.0, 20.0, 16.0);
+    m = uniform_clay(fill, 3.0, 10.0, 20.0, 16.0);
+    m.profile.y_m.back() = 0.5;  // a toe above the ground: the profile does not close
     EXPECT_THROW(critical_circle(m), InputError);
+    EXPECT_THROW(fill_profile(fill, 3.0, -1.0), InputError);
 }
 
 }  // namespace

@@ -70,6 +70,19 @@ TEST(StagesSite, StrengthGainByHand) {
     }
 }
 
+// The tabulated strength (the fast path) against the exact one at points spread over the section,
+// for the staged scenario's last stage with its berm.
+TEST(StagesSite, TabulatedStrengthAgreesWithExact) {
+    const auto s = scenario::load_scenario(source(staged));
+    const auto model = make_cell_model(s.site, s.site.products.front(), Pattern::triangular, 1.4);
+    const double t = s.site.loading->end_of_construction_s();
+    const SlopeModel fast = stage_slope_model(s.site, *model, t), exact = stage_slope_model(s.site, *model, t, StrengthField::exact);
+    double worst = 0.0;
+    for (double x = -50.0; x <= 50.0; x += 0.37)
+        for (double z = 0.0; z <= 14.0; z += 0.23) worst = std::max(worst, std::fabs(fast.su_kPa(x, z) - exact.su_kPa(x, z)));
+    EXPECT_LT(worst, 0.5);
+}
+
 // The settlement slices take the section's stress at their depth (Osterberg), not the fill pressure.
 TEST(StagesSite, SettlementUsesTheStressUnderTheSection) {
     const auto s = scenario::parse_scenario(trial("su_ratio: 0.25"), "trial.yaml");
@@ -197,7 +210,11 @@ TEST(StagesCommand, BadInputIsNamedAndLocated) {
     };
     const std::vector<Row> rows{
         {"crest_width_m: 30.0", "crest_width_m: 0.0", "embankment.crest_width_m", ""},
-        {"side_slope_h_per_v: 4.0", "side_slope_h_per_v: -1.0", "embankment.side_slope_h_per_v", "steeper than vertical"},
+        {"side_slope_h_per_v: 2.0", "side_slope_h_per_v: -1.0", "embankment.side_slope_h_per_v", "steeper than vertical"},
+        {"height_m: 2.5}]", "height_m: 7.0}]", "embankment.berms[0].height_m", "below the embankment's full height"},
+        {"height_m: 2.5}]", "height_m: 2.5}, {width_m: 5.0, height_m: 3.0}]", "embankment.berms[1].height_m",
+         "below the berm before it"},
+        {"height_m: 2.5}]", "height_m: 2.5, slope: 3}]", "embankment.berms[0].slope", "unknown key"},
         {"target_factor_of_safety: 1.3", "target_factor_of_safety: 0.9", "embankment.target_factor_of_safety", "at least 1"},
         {"su_top_kPa: 25.0", "su_top_kPa: 0.0", "clay.layers[0].su_top_kPa", "greater than 0"},
         {"su_gradient_kPa_per_m: -4.0", "su_gradient_kPa_per_m: -14.0", "clay.layers[0].su_gradient_kPa_per_m",
@@ -210,7 +227,7 @@ TEST(StagesCommand, BadInputIsNamedAndLocated) {
     for (const auto& row : rows) {
         std::string text = edited_copy(staged, row.from, row.to);
         if (row.key == "embankment.crest_width_m") {  // vertical sides with no crest: no section
-            const auto at = text.find("side_slope_h_per_v: 4.0");
+            const auto at = text.find("side_slope_h_per_v: 2.0");
             text.replace(at, 23, "side_slope_h_per_v: 0.0");
         }
         try {

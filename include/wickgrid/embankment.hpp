@@ -1,21 +1,32 @@
 #pragma once
 // A symmetric embankment cross-section on the clay and the vertical stress it adds in the ground.
-// Coordinates: x across the embankment from its centre line (m), depth z below the top of the clay
-// (m). The fill is a trapezoid: crest of width crest_width_m at height h, side slopes of
-// side_slope_h_per_v horizontal to one vertical down to the toes on the original ground.
+// Coordinates: x across the embankment from its centre line (m), y up from the original ground, z
+// depth below the top of the clay (m). The final section has a crest of width crest_width_m at the
+// final fill height H, side slopes of side_slope_h_per_v horizontal to one vertical, and optional
+// berms (flat steps of given width at given heights) on the way down to the toes. Fill goes up in
+// layers across the footprint, so the fill at height h <= H is the part of the final section
+// below level h.
 //
-// The stress is that of an elastic half-space under a strip load (Flamant's line load integrated
-// over the section); on the centre line it equals Osterberg's (1957) influence for embankment
-// loading, which the tests compare against.
+// The stress is that of an elastic half-space under the strip load the fill makes: on the centre
+// line, Osterberg's (1957) influence for embankment loading summed over the slopes (superposition
+// of half embankments); elsewhere, Flamant's line load integrated in closed form over the section.
+// The tests hold the two equal on the centre line.
 #include <optional>
+#include <vector>
 
 #include "wickgrid/defaults.hpp"
 
 namespace wickgrid {
 
+// A flat step in the side slope: its width (m) at its height above the original ground (m).
+struct Berm {
+    double width_m = 0.0;
+    double height_m = 0.0;
+};
+
 struct EmbankmentSection {
-    double crest_width_m = 0.0;             // >= 0 (0: a triangular section)
-    double side_slope_h_per_v = 0.0;        // >= 0 (0: vertical sides, a rectangular strip)
+    double crest_width_m = 0.0;             // >= 0 (0: a pointed crest)
+    double side_slope_h_per_v = 0.0;        // >= 0 (0: vertical sides)
     double fill_unit_weight_kN_per_m3 = 0.0;
     double fill_friction_angle_deg = 0.0;   // 0 <= φ' < 90
     double fill_cohesion_kPa = 0.0;         // >= 0
@@ -23,21 +34,34 @@ struct EmbankmentSection {
     // The fill surface's design level above the original ground once primary settlement is over
     // (optional; stages.hpp: fill to a finished level).
     std::optional<double> finished_height_m;
+    // The section's full fill height (its crest level above the original ground); absent: the
+    // permanent stages' total (site.hpp: final_fill_height_m). A surcharge rises above it with the
+    // same slopes.
+    std::optional<double> height_m;
+    std::vector<Berm> berms;  // outwards from the crest: heights falling, each above 0
 };
 
 // Throws InputError naming the field: a negative crest width or slope (steeper than vertical), a
 // section that does not close (no crest and vertical sides), a unit weight that is not positive, an
-// angle outside [0, 90), a negative cohesion, a target factor of safety below 1.
+// angle outside [0, 90), a negative cohesion, a target factor of safety below 1, a berm whose width
+// is not positive or whose height is not below the one before it (and above 0).
 void validate_section(const EmbankmentSection& section);
 
-// Half the crest width and the toe's distance from the centre line (m) at fill height h.
-inline double crest_half_width_m(const EmbankmentSection& s) noexcept { return 0.5 * s.crest_width_m; }
-inline double toe_offset_m(const EmbankmentSection& s, double height_m) noexcept {
-    return crest_half_width_m(s) + s.side_slope_h_per_v * height_m;
-}
+// The right half of the fill at one moment: vertices from the centre line (0, h) out to the toe
+// (x, 0), x never falling, y never rising (a vertical side is two vertices at one x).
+struct FillProfile {
+    std::vector<double> x_m, y_m;
+    double height_m() const { return y_m.front(); }
+    double toe_m() const { return x_m.back(); }
+    double crest_edge_m() const { return x_m.size() > 1 ? x_m[1] : 0.0; }
+};
 
-// Height of the fill surface above the original ground at offset x (m), for fill height h.
-double fill_surface_m(const EmbankmentSection& section, double height_m, double x_m) noexcept;
+// The section filled to height h (0 < h <= H, the final height): the final section cut at level h.
+// Throws InputError for h outside (0, H] or a berm not below H. Cost: O(berms).
+FillProfile fill_profile(const EmbankmentSection& section, double final_height_m, double height_m);
+
+// Height of the fill surface above the original ground at offset x (either side; 0 beyond the toes).
+double fill_surface_m(const FillProfile& profile, double x_m) noexcept;
 
 // Osterberg's (1957) influence factor I for a half embankment (slope of horizontal length a_m,
 // flat top of width b_m measured from the point) at depth z_m below the flat top's outer end:
@@ -46,12 +70,14 @@ double fill_surface_m(const EmbankmentSection& section, double height_m, double 
 // Requires a, b >= 0, z >= 0. Cost: a few atan calls; thread-safe.
 double osterberg_influence(double a_m, double b_m, double z_m) noexcept;
 
-// Vertical stress increase (kPa) at (x, z) under the section filled to height h: the closed-form
-// integral of Flamant's line load over the crest and both slopes. z = 0 returns the fill pressure at
-// x. Requires h >= 0, z >= 0. Cost: O(1); thread-safe.
-double embankment_stress_kPa(const EmbankmentSection& section, double height_m, double x_m, double z_m) noexcept;
+// Vertical stress increase (kPa) on the centre line at depth z under the fill: each drop d of the
+// profile over a slope from x to x + a adds γ·d·2·I(a, x, z) (Osterberg's half embankments
+// superposed). z = 0 gives γ·h.
+double centreline_stress_kPa(const FillProfile& profile, double unit_weight_kN_per_m3, double z_m) noexcept;
 
-// The centre-line influence Δσz/(γh) at depth z (1 at the surface), for fill height h > 0.
-double centreline_influence(const EmbankmentSection& section, double height_m, double z_m) noexcept;
+// Vertical stress increase (kPa) at (x, z) under the fill: the closed-form integral of Flamant's line
+// load over each linear piece of the load, both halves. z = 0 returns the fill pressure at x.
+// Requires z >= 0. Cost: O(vertices); thread-safe.
+double embankment_stress_kPa(const FillProfile& profile, double unit_weight_kN_per_m3, double x_m, double z_m) noexcept;
 
 }  // namespace wickgrid

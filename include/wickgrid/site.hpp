@@ -126,10 +126,15 @@ struct Site {
 // drain length); throws InputError naming the quantity. Cost: O(layers).
 void validate_site(const Site& site);
 
-// The vertical stress increase (kPa) at a depth (m below the top of the clay) under a surface load
-// q (kPa): q itself, or under the embankment's centre line with the fill height q/γ (Osterberg's
-// influence). Cost: a few atan calls.
-double load_at_depth_kPa(const Site& site, double surface_load_kPa, double depth_m);
+// The embankment's full fill height (m): the section's own height_m, else the permanent stages' total
+// at the fill unit weight (a surcharge rises above it); nullopt without an embankment, or without
+// either a height or permanent stages.
+std::optional<double> final_fill_height_m(const Site& site);
+
+// The vertical stress increase (kPa) at each depth (m below the top of the clay) under a surface
+// load q (kPa): q itself, or under the embankment's centre line with the fill at height q/γ
+// (Osterberg's influence over the section's slopes, embankment.hpp). Cost: O(depths × slopes).
+std::vector<double> load_at_depths_kPa(const Site& site, double surface_load_kPa, const std::vector<double>& depths_m);
 
 // One slice of the settlement sum under a surface load: its layer (0-based), centre depth,
 // thickness, initial effective stress (absent for one uniform clay by mv), the load there and its

@@ -8,7 +8,7 @@
 // rests at depth clay_thickness_m on a firm base that no circle may cross. Assumptions, stated:
 // total stresses in the clay (no pore pressure term, the strength carries the drainage state),
 // dry fill (no pore pressure), no tension crack, no reinforcement; the settled shape is not
-// followed (the section is drawn on the original ground at its placed height).
+// followed (the fill is drawn on the original ground at its placed height).
 #include <functional>
 #include <optional>
 #include <vector>
@@ -33,8 +33,8 @@ struct ClayBand {
 // One stage as the stability check sees it. su(x, depth) gives the clay's undrained strength (kPa,
 // >= 0) at offset x and depth below the top of the clay; it is called once per slice.
 struct SlopeModel {
-    EmbankmentSection section;
-    double height_m = 0.0;                 // fill height of the stage (>= 0)
+    EmbankmentSection section;             // the fill's strength and unit weight
+    FillProfile profile;                   // the fill at this stage (embankment.hpp)
     double clay_thickness_m = 0.0;         // > 0; firm base below
     std::vector<ClayBand> bands;           // cover 0 .. clay_thickness_m, in order
     std::function<double(double x_m, double depth_m)> su_kPa;

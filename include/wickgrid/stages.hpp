@@ -79,7 +79,13 @@ struct FillToFinish {
 };
 FillToFinish fill_to_finish(const Site& site, double fill_unit_weight_kN_per_m3, double finished_height_m);
 
-// The slope model of the site at time t under its own load history (for tests and the report).
-SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s);
+// The slope model of the site at time t under its own load history. The strength gain needs the
+// section's stress at every slice base; `tabulated` (the fast path every command uses) samples the
+// gained effective stress on a grid of offsets (0 to the toe) × depths and interpolates bilinearly,
+// `exact` (the reference) integrates the stress at each call; a test holds them within 0.5 kPa of
+// su. Cost: tabulated, one grid (about 5000 stress integrals) then O(1) a call.
+enum class StrengthField { tabulated, exact };
+SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s,
+                             StrengthField field = StrengthField::tabulated);
 
 }  // namespace wickgrid

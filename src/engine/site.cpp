@@ -72,31 +72,43 @@ void validate_site(const Site& site) {
     if (site.loading) validate_load_history(*site.loading);
 }
 
-double load_at_depth_kPa(const Site& site, double q, double depth_m) {
-    if (!site.embankment || q <= 0.0) return q;
-    const double height = q / site.embankment->fill_unit_weight_kN_per_m3;
-    return q * centreline_influence(*site.embankment, height, depth_m);
+std::optional<double> final_fill_height_m(const Site& site) {
+    if (!site.embankment) return std::nullopt;
+    if (site.embankment->height_m) return site.embankment->height_m;
+    if (!site.loading || !(site.loading->permanent_kPa() > 0.0)) return std::nullopt;
+    return site.loading->permanent_kPa() / site.embankment->fill_unit_weight_kN_per_m3;
+}
+
+std::vector<double> load_at_depths_kPa(const Site& site, double q, const std::vector<double>& depths_m) {
+    if (!site.embankment || q <= 0.0) return std::vector<double>(depths_m.size(), q);
+    const double gamma = site.embankment->fill_unit_weight_kN_per_m3, height = q / gamma;
+    const FillProfile profile =
+        fill_profile(*site.embankment, std::max(height, final_fill_height_m(site).value_or(height)), height);
+    std::vector<double> out;
+    for (const double z : depths_m) out.push_back(centreline_stress_kPa(profile, gamma, z));
+    return out;
 }
 
 std::vector<SettlementSlice> settlement_slices(const Site& site, double q) {
     std::vector<SettlementSlice> out;
     if (const auto& profile = site.ground.profile) {
         const auto all = slices(*profile);
+        std::vector<double> depths;
+        for (const auto& slice : all) depths.push_back(slice.depth_m);
+        const auto loads = load_at_depths_kPa(site, q, depths);
         std::size_t k = 0;
         for (std::size_t l = 0; l < profile->layers.size(); ++l)
-            for (int i = 0; i < profile->slices_per_layer; ++i, ++k) {
-                const double load = load_at_depth_kPa(site, q, all[k].depth_m);
-                out.push_back({l, all[k].depth_m, all[k].thickness_m, all[k].sigma_v0_kPa, load,
-                               slice_settlement_m(profile->layers[l], all[k], load)});
-            }
+            for (int i = 0; i < profile->slices_per_layer; ++i, ++k)
+                out.push_back({l, all[k].depth_m, all[k].thickness_m, all[k].sigma_v0_kPa, loads[k],
+                               slice_settlement_m(profile->layers[l], all[k], loads[k])});
         return out;
     }
     if (!site.ground.mv_m2_per_kN) throw InputError("clay.mv_m2_per_kN", 0.0, "given, or clay.layers (a settlement model)");
     const double mv = *site.ground.mv_m2_per_kN, h = site.ground.thickness_m / defaults::slices_per_layer;
-    for (int i = 0; i < defaults::slices_per_layer; ++i) {
-        const double z = (i + 0.5) * h, load = load_at_depth_kPa(site, q, z);
-        out.push_back({0, z, h, std::nullopt, load, mv * load * h});
-    }
+    std::vector<double> depths;
+    for (int i = 0; i < defaults::slices_per_layer; ++i) depths.push_back((i + 0.5) * h);
+    const auto loads = load_at_depths_kPa(site, q, depths);
+    for (int i = 0; i < defaults::slices_per_layer; ++i) out.push_back({0, depths[i], h, std::nullopt, loads[i], mv * loads[i] * h});
     return out;
 }
 

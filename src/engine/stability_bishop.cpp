@@ -29,9 +29,10 @@ double clay_column_kPa(const std::vector<ClayBand>& bands, double depth_m) {
 // Points where the circle may change what it cuts: its ends, the surface's kinks, the circle's
 // crossings of each surface segment, of the original ground and of each band boundary.
 std::vector<double> breakpoints(const SlopeModel& m, const SlipCircle& c) {
-    const double b = crest_half_width_m(m.section), toe = toe_offset_m(m.section, m.height_m), h = m.height_m;
+    const FillProfile& p = m.profile;
     const double xa = c.centre_x_m - c.radius_m, xb = c.centre_x_m + c.radius_m;
-    std::vector<double> xs{xa, xb, -toe, -b, b, toe};
+    std::vector<double> xs{xa, xb};
+    for (const double x : p.x_m) xs.push_back(x), xs.push_back(-x);
     // Crossings with the line y = y0 + k·(x − x0) on [lo, hi].
     const auto crossings = [&](double x0, double y0, double k, double lo, double hi) {
         // (x − xc)² + (y0 + k(x − x0) − yc)² = R², a quadratic in x.
@@ -47,12 +48,12 @@ std::vector<double> breakpoints(const SlopeModel& m, const SlipCircle& c) {
     };
     const double big = std::numeric_limits<double>::max();
     crossings(0.0, 0.0, 0.0, -big, big);  // the original ground, and below the fill the fill/clay contact
-    if (h > 0.0) {
-        crossings(0.0, h, 0.0, -b, b);
-        if (toe > b) {
-            crossings(b, h, -h / (toe - b), b, toe);
-            crossings(-b, h, h / (toe - b), -toe, -b);
-        }
+    for (std::size_t i = 0; i + 1 < p.x_m.size(); ++i) {
+        const double x1 = p.x_m[i], x2 = p.x_m[i + 1];
+        if (!(x2 > x1)) continue;  // a vertical side: its ends are breakpoints already
+        const double k = (p.y_m[i + 1] - p.y_m[i]) / (x2 - x1);
+        crossings(x1, p.y_m[i], k, x1, x2);
+        crossings(-x1, p.y_m[i], -k, -x2, -x1);
     }
     for (const ClayBand& band : m.bands) crossings(0.0, -band.bottom_m, 0.0, -big, big);
     std::sort(xs.begin(), xs.end());
@@ -75,7 +76,13 @@ struct Slice {
 
 void validate_slope_model(const SlopeModel& m) {
     validate_section(m.section);
-    require_non_negative("fill height (m)", m.height_m);
+    const FillProfile& p = m.profile;
+    if (p.x_m.size() < 2 || p.x_m.size() != p.y_m.size() || !(p.height_m() > 0.0) || p.y_m.back() != 0.0)
+        throw InputError("fill profile vertices", static_cast<double>(p.x_m.size()),
+                         "at least two, from the centre line at the fill height down to the toe on the ground");
+    for (std::size_t i = 0; i + 1 < p.x_m.size(); ++i)
+        if (!(p.x_m[i + 1] >= p.x_m[i]) || !(p.y_m[i + 1] <= p.y_m[i]))
+            throw InputError("fill profile vertex x (m)", p.x_m[i + 1], "outwards and downwards from the one before");
     require_positive("clay thickness (m)", m.clay_thickness_m);
     double top = 0.0;
     for (const ClayBand& b : m.bands) {
@@ -93,8 +100,8 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
     if (!(c.radius_m > 0.0)) return std::nullopt;
     // The arc must leave the ground at both ends: a circle whose horizontal diameter ends inside the
     // section would cut a closed block, not a slip from the surface.
-    if (fill_surface_m(m.section, m.height_m, c.centre_x_m - c.radius_m) > c.centre_y_m ||
-        fill_surface_m(m.section, m.height_m, c.centre_x_m + c.radius_m) > c.centre_y_m)
+    if (fill_surface_m(m.profile, c.centre_x_m - c.radius_m) > c.centre_y_m ||
+        fill_surface_m(m.profile, c.centre_x_m + c.radius_m) > c.centre_y_m)
         return std::nullopt;
     const double base_y = -m.clay_thickness_m;
     const double tan_fill = std::tan(m.section.fill_friction_angle_deg * deg);
@@ -107,12 +114,12 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
     bool any = false;
     for (std::size_t i = 0; i + 1 < xs.size(); ++i) {
         const double x0 = xs[i], x1 = xs[i + 1], mid = 0.5 * (x0 + x1);
-        if (arc_y(c, mid) >= fill_surface_m(m.section, m.height_m, mid)) continue;  // nothing above the arc here
+        if (arc_y(c, mid) >= fill_surface_m(m.profile, mid)) continue;  // nothing above the arc here
         const int n = std::max(1, static_cast<int>(std::lround(slice_count * (x1 - x0) / span)));
         const double w = (x1 - x0) / n;
         for (int k = 0; k < n; ++k) {
             const double xm = x0 + (k + 0.5) * w;
-            const double yb = arc_y(c, xm), ys = fill_surface_m(m.section, m.height_m, xm);
+            const double yb = arc_y(c, xm), ys = fill_surface_m(m.profile, xm);
             if (yb < base_y - 1e-9) return std::nullopt;  // crosses the firm base
             const double fill_kPa = m.section.fill_unit_weight_kN_per_m3 * std::max(0.0, ys - std::max(yb, 0.0));
             const double clay_kPa = yb < 0.0 ? clay_column_kPa(m.bands, -yb) : 0.0;
@@ -183,8 +190,8 @@ std::optional<CircleResult> admissible(const SlopeModel& m, const CircleSearch& 
 }
 
 std::vector<CircleResult> coarse_grid(const SlopeModel& m, const CircleSearch& search, const Window& w) {
-    const double b = crest_half_width_m(m.section), toe = toe_offset_m(m.section, m.height_m);
-    const double depth = m.height_m + m.clay_thickness_m;
+    const double b = m.profile.crest_edge_m(), toe = m.profile.toe_m();
+    const double depth = m.profile.height_m() + m.clay_thickness_m;
     const int n = search.centre_steps;
     std::vector<CircleResult> found;
     for (int i = 0; i <= n; ++i)
@@ -193,7 +200,7 @@ std::vector<CircleResult> coarse_grid(const SlopeModel& m, const CircleSearch& s
             std::vector<double> radii;
             for (int k = 0; k <= search.exit_steps; ++k) {
                 const double xe = b + (toe + depth - b) * k / search.exit_steps;
-                radii.push_back(std::hypot(xe - xc, fill_surface_m(m.section, m.height_m, xe) - yc));
+                radii.push_back(std::hypot(xe - xc, fill_surface_m(m.profile, xe) - yc));
             }
             radii.push_back(yc + m.clay_thickness_m);
             for (const ClayBand& band : m.bands) radii.push_back(yc + band.bottom_m);
@@ -237,9 +244,9 @@ CircleResult critical_circle(const SlopeModel& m, const CircleSearch& search) {
     validate_slope_model(m);
     if (search.centre_steps < 2 || search.exit_steps < 1 || search.slices < 4 || !(search.resolution_m > 0.0))
         throw InputError("circle search grid", search.centre_steps, "at least 2 centre steps, 1 exit step, 4 slices");
-    const double toe = toe_offset_m(m.section, m.height_m);
-    const double depth = m.height_m + m.clay_thickness_m;
-    Window w{-toe, toe + depth, 0.02 * depth, m.height_m + 2.0 * depth};
+    const double toe = m.profile.toe_m();
+    const double depth = m.profile.height_m() + m.clay_thickness_m;
+    Window w{-toe, toe + depth, 0.02 * depth, m.profile.height_m() + 2.0 * depth};
     std::vector<CircleResult> coarse;
     for (int moves = 0;; ++moves) {
         coarse = coarse_grid(m, search, w);

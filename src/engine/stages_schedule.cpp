@@ -10,6 +10,7 @@ namespace wickgrid {
 
 namespace {
 constexpr int gain_depths = 41;               // depths at which the consolidated share is sampled
+constexpr int grid_offsets = 97, grid_depths = 49;  // the tabulated gain: offsets 0..toe × depths 0..H
 constexpr double start_tolerance_s = 43200.0;  // earliest starts are found to half a day
 
 // One stage of the schedule as placed: a permanent stage or the surcharge.
@@ -64,6 +65,7 @@ StageState state_at(const Site& base, const DrainProductSpec& product, Pattern p
                     const LoadHistory& history, double time_s) {
     Site site = base;
     site.loading = history;
+    site.embankment->height_m = final_fill_height_m(base);  // the section being built, whatever is placed so far
     const auto model = make_cell_model(site, product, pattern, spacing_m);
     const CircleResult c = critical_circle(stage_slope_model(site, *model, time_s));
     return {c.factor_of_safety, c, model->settlement_m(time_s)};
@@ -151,15 +153,16 @@ std::pair<double, double> initial_stress(const SoilProfile& profile, double z) {
 }
 }  // namespace
 
-SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s) {
+SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s, StrengthField field) {
     require_stage_inputs(site);
     const SoilProfile& profile = *site.ground.profile;
     const EmbankmentSection& section = *site.embankment;
     const double q = site.loading->applied_at_kPa(time_s);
     const double height = q / section.fill_unit_weight_kN_per_m3;
+    if (!(height > 0.0)) throw InputError("fill height at the time checked (m)", height, "greater than 0 (fill placed)");
     SlopeModel m;
     m.section = section;
-    m.height_m = height;
+    m.profile = fill_profile(section, std::max(height, final_fill_height_m(site).value_or(height)), height);
     m.clay_thickness_m = site.ground.thickness_m;
     double top = 0.0;
     for (const SoilLayer& l : profile.layers) {
@@ -177,18 +180,34 @@ SlopeModel stage_slope_model(const Site& site, const CellModel& model, double ti
                                             "reports depth averages only)");
         for (int i = 0; i < gain_depths; ++i) share[i] = (q - (*states)[i].excess_pore_pressure_kPa) / q;
     }
-    const double toe = toe_offset_m(section, height), dz = depths[1];
-    m.su_kPa = [profile, section, height, toe, share, dz, bands = m.bands](double x, double z) {
+    const double toe = m.profile.toe_m(), dz = depths[1], gamma = section.fill_unit_weight_kN_per_m3;
+    // The gained effective stress at (x, z) within the toes: the share at z times the section's stress.
+    const auto gained = [share, dz, gamma, fill = m.profile](double x, double z) {
+        const double pos = std::clamp(z / dz, 0.0, static_cast<double>(share.size() - 1));
+        const std::size_t k = std::min(static_cast<std::size_t>(pos), share.size() - 2);
+        const double f = share[k] + (share[k + 1] - share[k]) * (pos - static_cast<double>(k));
+        return f * embankment_stress_kPa(fill, gamma, x, z);
+    };
+    std::function<double(double, double)> gain_at = gained;
+    if (field == StrengthField::tabulated) {
+        const double hx = toe / (grid_offsets - 1), hz = m.clay_thickness_m / (grid_depths - 1);
+        std::vector<double> grid(static_cast<std::size_t>(grid_offsets * grid_depths));
+        for (int i = 0; i < grid_offsets; ++i)
+            for (int j = 0; j < grid_depths; ++j) grid[static_cast<std::size_t>(i * grid_depths + j)] = gained(i * hx, j * hz);
+        gain_at = [grid = std::move(grid), hx, hz](double x, double z) {
+            const double px = std::clamp(std::fabs(x) / hx, 0.0, grid_offsets - 1.0);
+            const double pz = std::clamp(z / hz, 0.0, grid_depths - 1.0);
+            const int i = std::min(static_cast<int>(px), grid_offsets - 2), j = std::min(static_cast<int>(pz), grid_depths - 2);
+            const double tx = px - i, tz = pz - j;
+            const auto g = [&](int a, int b) { return grid[static_cast<std::size_t>(a * grid_depths + b)]; };
+            return (1 - tx) * ((1 - tz) * g(i, j) + tz * g(i, j + 1)) + tx * ((1 - tz) * g(i + 1, j) + tz * g(i + 1, j + 1));
+        };
+    }
+    m.su_kPa = [profile, toe, gain_at, bands = m.bands](double x, double z) {
         std::size_t layer = 0;
         while (layer + 1 < bands.size() && z > bands[layer].bottom_m) ++layer;
         const auto [sigma0, sigma_p] = initial_stress(profile, z);
-        double gain = 0.0;
-        if (std::fabs(x) <= toe) {
-            const double pos = std::clamp(z / dz, 0.0, static_cast<double>(share.size() - 1));
-            const std::size_t k = std::min(static_cast<std::size_t>(pos), share.size() - 2);
-            const double f = share[k] + (share[k + 1] - share[k]) * (pos - static_cast<double>(k));
-            gain = f * embankment_stress_kPa(section, height, x, z);
-        }
+        const double gain = std::fabs(x) <= toe ? gain_at(x, z) : 0.0;
         return undrained_strength_kPa(*profile.layers[layer].strength, z - bands[layer].top_m, sigma0, sigma_p, gain);
     };
     return m;

@@ -138,7 +138,7 @@ std::string stage_section_svg(const results::StageRecord& r) {
         h_max = std::max(h_max, c.height_m);
         x_max = std::max(x_max, c.critical.exit_x_m);
     }
-    x_max = std::max(x_max, toe_offset_m(r.section, h_max)) + 0.2 * r.clay_thickness_m;
+    x_max = std::max(x_max, fill_profile(r.section, std::max(r.final_height_m, h_max), h_max).toe_m()) + 0.2 * r.clay_thickness_m;
     double y_top = h_max;
     for (const StageCheck& c : r.plan.stages) y_top = std::max(y_top, std::min(c.critical.circle.centre_y_m, 2.0 * h_max + 2.0));
     const double y_bottom = -r.clay_thickness_m;
@@ -164,13 +164,18 @@ std::string stage_section_svg(const results::StageRecord& r) {
     }
     o << "<line x1=\"" << num(px(0)) << "\" y1=\"" << num(py(y_bottom)) << "\" x2=\"" << num(px(x_max)) << "\" y2=\""
       << num(py(y_bottom)) << "\" stroke=\"#1d2a33\" stroke-width=\"3\"/>\n";
+    // The fills first (the highest, filled, under the others' outlines), then the circles over them.
+    for (std::size_t i = r.plan.stages.size(); i-- > 0;) {
+        const double h = r.plan.stages[i].height_m;  // a surcharge rises above the full height
+        const FillProfile fill = fill_profile(r.section, std::max(r.final_height_m, h), h);
+        o << "<polyline fill=\"" << (i + 1 == r.plan.stages.size() ? "#d9dcc8" : "none") << "\" stroke=\"#6b6f55\" points=\""
+          << num(px(0)) << ',' << num(py(0));
+        for (std::size_t k = 0; k < fill.x_m.size(); ++k) o << ' ' << num(px(fill.x_m[k])) << ',' << num(py(fill.y_m[k]));
+        o << "\"/>\n";
+    }
     for (std::size_t i = 0; i < r.plan.stages.size(); ++i) {
         const StageCheck& c = r.plan.stages[i];
         const char* colour = stage_colours[i % 5];
-        const double b = crest_half_width_m(r.section), toe = toe_offset_m(r.section, c.height_m);
-        o << "<polyline fill=\"" << (i + 1 == r.plan.stages.size() ? "#d9dcc8" : "none") << "\" stroke=\"#6b6f55\" points=\""
-          << num(px(0)) << ',' << num(py(0)) << ' ' << num(px(0)) << ',' << num(py(c.height_m)) << ' ' << num(px(b)) << ','
-          << num(py(c.height_m)) << ' ' << num(px(toe)) << ',' << num(py(0)) << "\"/>\n";
         const SlipCircle& circle = c.critical.circle;
         o << "<polyline fill=\"none\" stroke=\"" << colour << "\" stroke-width=\"2\" points=\"";
         for (int j = 0; j <= 60; ++j) {

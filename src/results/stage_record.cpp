@@ -39,6 +39,7 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
     r.method = site.method.method;
     r.plan = plan ? plan_stages(site, product, pattern, spacing_m) : check_stages(site, product, pattern, spacing_m);
     r.section = *site.embankment;
+    r.final_height_m = *final_fill_height_m(site);
     r.clay_thickness_m = site.ground.thickness_m;
     double bottom = 0.0;
     for (const auto& l : site.ground.profile->layers) r.layer_bottoms_m.push_back(bottom += l.thickness_m);
@@ -60,6 +61,7 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
             }
         }
         charted.loading = h;
+        charted.embankment->height_m = final_fill_height_m(site);
     }
     if (r.section.finished_height_m) {
         r.finish = fill_to_finish(site, r.section.fill_unit_weight_kN_per_m3, *r.section.finished_height_m);

@@ -19,6 +19,7 @@ struct StageRecord {
     StagePlan plan;
     std::vector<SafetyPoint> history;  // the chart: factor of safety, fill height, settlement against time
     EmbankmentSection section;
+    double final_height_m = 0.0;  // the highest fill of the schedule: the section the stages are cut from
     double clay_thickness_m = 0.0;
     std::vector<double> layer_bottoms_m;
     std::vector<std::string> assumptions;

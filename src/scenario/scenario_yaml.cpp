@@ -746,7 +746,7 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
     r.remember(path, node);
     r.expect_map(node, path);
     r.allow_keys(node, path, {"crest_width_m", "side_slope_h_per_v", "fill_unit_weight_kN_per_m3", "fill_friction_angle_deg",
-                              "fill_cohesion_kPa", "target_factor_of_safety", "finished_height_m"});
+                              "fill_cohesion_kPa", "target_factor_of_safety", "finished_height_m", "berms", "height_m"});
     EmbankmentSection e;
     e.crest_width_m = r.number(node, path, "crest_width_m", non_negative("m"));
     e.side_slope_h_per_v = r.number(node, path, "side_slope_h_per_v",
@@ -760,6 +760,25 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
     e.target_factor_of_safety = r.optional_number(node, path, "target_factor_of_safety", {1.0, true, inf, false, ""})
                                     .value_or(defaults::target_factor_of_safety);
     e.finished_height_m = r.optional_number(node, path, "finished_height_m", positive("m"));
+    e.height_m = r.optional_number(node, path, "height_m", positive("m"));
+    if (const YAML::Node berms = node["berms"]) {
+        r.remember(path + ".berms", berms);
+        if (!berms.IsSequence()) r.fail(berms, path + ".berms", "must be a list of berms ({width_m, height_m}), outwards from the crest");
+        for (std::size_t i = 0; i < berms.size(); ++i) {
+            const std::string at = path + ".berms[" + std::to_string(i) + "]";
+            r.remember(at, berms[i]);
+            r.expect_map(berms[i], at);
+            r.allow_keys(berms[i], at, {"width_m", "height_m"});
+            Berm b;
+            b.width_m = r.number(berms[i], at, "width_m", positive("m"));
+            b.height_m = r.number(berms[i], at, "height_m", positive("m"));
+            if (!e.berms.empty() && !(b.height_m < e.berms.back().height_m))
+                r.fail(berms[i]["height_m"], at + ".height_m",
+                       format_value(b.height_m) + " m is not allowed: berms go outwards and down, so it must be below the "
+                       "berm before it (" + format_value(e.berms.back().height_m) + " m)");
+            e.berms.push_back(b);
+        }
+    }
     if (e.finished_height_m && e.fill_unit_weight_kN_per_m3 <= units::gamma_w_kN_per_m3)
         r.fail(node["fill_unit_weight_kN_per_m3"], path + ".fill_unit_weight_kN_per_m3",
                "must exceed the unit weight of water (9.81 kN/m³) for fill to a finished level");
@@ -873,6 +892,18 @@ CellMethod default_method(const Site& site) {
     return site.ground.layered_flow() || partial || vacuum ? CellMethod::layered : CellMethod::closed_form;
 }
 
+// The section against the load history: every berm below the highest fill the schedule places.
+void check_embankment(const Scenario& s) {
+    const auto height = final_fill_height_m(s.site);
+    if (!height) return;
+    const auto& berms = s.site.embankment->berms;
+    for (std::size_t i = 0; i < berms.size(); ++i)
+        if (!(berms[i].height_m < *height))
+            s.fail_at("embankment.berms[" + std::to_string(i) + "].height_m",
+                      format_value(berms[i].height_m) + " m is not allowed: a berm must stand below the embankment's full "
+                      "height, " + format_value(*height) + " m (embankment.height_m, else the permanent stages' total)");
+}
+
 void check_settlement_criterion(const Scenario& s) {
     const Site& site = s.site;
     if (!site.criterion.residual()) return;
@@ -906,6 +937,7 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     read_clay(r, root, s);
     read_embankment(r, root, s);
     read_loading(r, root, s);
+    check_embankment(s);
     check_settlement_criterion(s);
     read_drains(r, root, s);
     Installation& in = s.site.installation;
