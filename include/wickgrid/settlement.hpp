@@ -46,6 +46,12 @@ struct SliceState {
 
 std::vector<SliceState> slices(const SoilProfile& profile);
 
+// The state before loading at a depth z (m below the top of the clay, within the profile; below its
+// base the last layer continues): σ'v0 from the unit weights and the groundwater depth, and σ'p from
+// the layer's preconsolidation pressure or OCR (σ'v0 for mv layers). slices() takes it at each
+// slice centre. Cost: O(layers).
+SliceState initial_state(const SoilProfile& profile, double depth_m);
+
 // Primary settlement (m) of the whole profile under a uniform increase of vertical stress.
 double ultimate_settlement_m(const SoilProfile& profile, double load_kPa);
 

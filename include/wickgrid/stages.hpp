@@ -36,6 +36,7 @@ struct StagePlan {
     std::vector<StageCheck> stages;
     double target_factor_of_safety = 0.0;
     bool planned = false;  // true: start days moved to the earliest that keep the target
+    LoadHistory schedule;  // the stages as checked (planned: on their new days; up to where the plan ended)
 };
 
 // The checks of the site's stage schedule for one drain product × pattern × spacing. Requires the

@@ -46,23 +46,35 @@ double profile_thickness_m(const SoilProfile& profile) {
     return h;
 }
 
-std::vector<SliceState> slices(const SoilProfile& profile) {
-    std::vector<SliceState> out;
-    double top = 0.0, total_above = 0.0;  // total vertical stress at the top of the layer
+SliceState initial_state(const SoilProfile& profile, double z) {
+    double top = 0.0, total = 0.0;  // total vertical stress at the top of the layer
     for (const auto& l : profile.layers) {
-        const double h = l.thickness_m / profile.slices_per_layer;
-        for (int i = 0; i < profile.slices_per_layer; ++i) {
-            const double z = top + (i + 0.5) * h;
-            const double total = total_above + l.unit_weight_kN_per_m3 * (i + 0.5) * h;
+        if (z <= top + l.thickness_m || &l == &profile.layers.back()) {
+            total += l.unit_weight_kN_per_m3 * (z - top);
             const double pore = units::gamma_w_kN_per_m3 * std::max(0.0, z - profile.groundwater_depth_m);
             const double sigma0 = total - pore;
             double sigma_p = sigma0;
             if (l.preconsolidation_kPa) sigma_p = *l.preconsolidation_kPa;
             if (l.ocr) sigma_p = *l.ocr * sigma0;
-            out.push_back({z, h, sigma0, sigma_p});
+            return {z, 0.0, sigma0, sigma_p};
         }
         top += l.thickness_m;
-        total_above += l.unit_weight_kN_per_m3 * l.thickness_m;
+        total += l.unit_weight_kN_per_m3 * l.thickness_m;
+    }
+    return {z, 0.0, 0.0, 0.0};
+}
+
+std::vector<SliceState> slices(const SoilProfile& profile) {
+    std::vector<SliceState> out;
+    double top = 0.0;
+    for (const auto& l : profile.layers) {
+        const double h = l.thickness_m / profile.slices_per_layer;
+        for (int i = 0; i < profile.slices_per_layer; ++i) {
+            SliceState s = initial_state(profile, top + (i + 0.5) * h);
+            s.thickness_m = h;
+            out.push_back(s);
+        }
+        top += l.thickness_m;
     }
     return out;
 }

@@ -130,27 +130,10 @@ StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern
         }
         out.stages.push_back(check);
     }
+    out.schedule = history_of(placed);
     return out;
 }
 
-// Effective stress and preconsolidation pressure before loading at depth z (kPa).
-std::pair<double, double> initial_stress(const SoilProfile& profile, double z) {
-    double top = 0.0, total = 0.0;
-    for (const SoilLayer& l : profile.layers) {
-        const double bottom = top + l.thickness_m;
-        if (z <= bottom || &l == &profile.layers.back()) {
-            total += l.unit_weight_kN_per_m3 * (z - top);
-            const double sigma = total - units::gamma_w_kN_per_m3 * std::max(0.0, z - profile.groundwater_depth_m);
-            double sigma_p = sigma;
-            if (l.preconsolidation_kPa) sigma_p = *l.preconsolidation_kPa;
-            if (l.ocr) sigma_p = *l.ocr * sigma;
-            return {std::max(0.0, sigma), std::max(sigma_p, std::max(0.0, sigma))};
-        }
-        total += l.unit_weight_kN_per_m3 * l.thickness_m;
-        top = bottom;
-    }
-    return {0.0, 0.0};
-}
 }  // namespace
 
 SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s, StrengthField field) {
@@ -206,7 +189,8 @@ SlopeModel stage_slope_model(const Site& site, const CellModel& model, double ti
     m.su_kPa = [profile, toe, gain_at, bands = m.bands](double x, double z) {
         std::size_t layer = 0;
         while (layer + 1 < bands.size() && z > bands[layer].bottom_m) ++layer;
-        const auto [sigma0, sigma_p] = initial_stress(profile, z);
+        const SliceState before = initial_state(profile, z);
+        const double sigma0 = std::max(0.0, before.sigma_v0_kPa), sigma_p = std::max(before.sigma_p_kPa, sigma0);
         const double gain = std::fabs(x) <= toe ? gain_at(x, z) : 0.0;
         return undrained_strength_kPa(*profile.layers[layer].strength, z - bands[layer].top_m, sigma0, sigma_p, gain);
     };

@@ -46,21 +46,7 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
     // The chart follows the schedule checked: the planned one when planning.
     Site charted = site;
     if (plan) {
-        // The plan moved the days only: permanent stages keep their pressures in order of start, the
-        // surcharge its pressure and its time on before removal.
-        std::vector<LoadStage> given = site.loading->stages;
-        std::stable_sort(given.begin(), given.end(), [](const LoadStage& a, const LoadStage& b) { return a.start_s < b.start_s; });
-        LoadHistory h;
-        for (std::size_t i = 0; i < r.plan.stages.size(); ++i) {
-            const StageCheck& c = r.plan.stages[i];
-            if (c.surcharge) {
-                const Surcharge& sur = *site.loading->surcharge;
-                h.surcharge = Surcharge{c.start_s, c.end_s, c.end_s + (sur.removal_s - sur.end_s), sur.pressure_kPa};
-            } else {
-                h.stages.push_back({c.start_s, c.end_s, given[i].pressure_kPa});
-            }
-        }
-        charted.loading = h;
+        charted.loading = r.plan.schedule;
         charted.embankment->height_m = final_fill_height_m(site);
     }
     if (r.section.finished_height_m) {
