@@ -56,21 +56,41 @@ static void BM_SpacingSolverReused(benchmark::State& state) {
 }
 BENCHMARK(BM_SpacingSolverReused);
 
-// The Monte Carlo case: 1,000,000 samples of (ch, smear ratios, qw), a full largest-spacing
-// search for each of two patterns, on all cores. Wall time.
-static void BM_MonteCarloMillion(benchmark::State& state) {
-    const Site d = fixtures::typical_design(180.0);
-    const DesignResult base = run_design(d);
+namespace {
+// The Monte Carlo case of the speed work: (ch, smear ratios, qw) drawn per sample, a full
+// largest-spacing search for each of two patterns.
+MonteCarloSpec typical_monte_carlo(const Site& d, std::size_t samples, unsigned threads) {
     MonteCarloSpec spec;
-    spec.samples = 1000000;
+    spec.samples = samples;
+    spec.threads = threads;
     spec.inputs = {
         {StudyInput::ch, {DistributionKind::lognormal, *d.ground.ch_m2_per_s, 0.3 * *d.ground.ch_m2_per_s}},
         {StudyInput::smear_diameter_ratio, {DistributionKind::uniform, 1.5, 3.0}},
         {StudyInput::smear_permeability_ratio, {DistributionKind::triangular, 2.0, 3.0, 5.0}},
         {StudyInput::discharge_capacity_factor, {DistributionKind::lognormal, 1.0, 0.3}}};
+    return spec;
+}
+}  // namespace
+
+// 1,000,000 samples × 2 patterns on two threads. Wall time.
+static void BM_MonteCarloMillion(benchmark::State& state) {
+    const Site d = fixtures::typical_design(180.0);
+    const DesignResult base = run_design(d);
+    const MonteCarloSpec spec = typical_monte_carlo(d, 1000000, 2);
     for (auto _ : state) benchmark::DoNotOptimize(monte_carlo(d, base, spec));
 }
 BENCHMARK(BM_MonteCarloMillion)->Iterations(2)->Unit(benchmark::kSecond)->UseRealTime();
+
+// One sample × pattern on one core (draws, search, statistics): 100,000 samples × 2 patterns,
+// reported per sample × pattern.
+static void BM_MonteCarloSampleOneCore(benchmark::State& state) {
+    const Site d = fixtures::typical_design(180.0);
+    const DesignResult base = run_design(d);
+    const MonteCarloSpec spec = typical_monte_carlo(d, 100000, 1);
+    for (auto _ : state) benchmark::DoNotOptimize(monte_carlo(d, base, spec));
+    state.SetItemsProcessed(static_cast<std::int64_t>(state.iterations() * spec.samples * base.rows.size()));
+}
+BENCHMARK(BM_MonteCarloSampleOneCore)->Unit(benchmark::kMillisecond)->UseRealTime();
 
 // The numerical unit cell: 40 × 80 cells (plus the drain conduit) marched to U = 0.99.
 static void BM_NumericalTo99(benchmark::State& state) {

@@ -139,8 +139,12 @@ TEST(Search, InfeasibleAndCappedCases) {
     const double short_deadline = units::days_to_seconds(5.0);
     const auto none = largest_spacing(typical_cell(), 0.9, short_deadline, {0.8, 4.0});
     EXPECT_FALSE(none.feasible);
-    EXPECT_GT(none.degree_at_minimum, 0.0);
-    EXPECT_LT(none.degree_at_minimum, 0.9);
+    ASSERT_TRUE(none.degree_at_minimum);
+    EXPECT_LT(*none.degree_at_minimum, 0.9);
+    // The best the range reaches: the degree of the cell at the smallest spacing (the reference cell).
+    EXPECT_NEAR(*none.degree_at_minimum,
+                UnitCell(typical_cell(Pattern::triangular, 0.8), DepthAverageRule::Accuracy::reference).at(short_deadline).combined,
+                1e-9);
     const auto capped = largest_spacing(typical_cell(), 0.5, units::days_to_seconds(3000.0), {0.8, 4.0});
     EXPECT_TRUE(capped.feasible);
     EXPECT_TRUE(capped.at_maximum);

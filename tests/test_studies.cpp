@@ -79,6 +79,42 @@ TEST(MonteCarlo, DegenerateDistributionsGiveExactlyZeroOrOne) {
     EXPECT_NEAR(*below.rows[0].reliability_spacing_m, limit, 1e-12);
 }
 
+TEST(MonteCarlo, OneSearchPerProductGivesEachPatternItsOwnLimit) {
+    // The closed form samples one search in the influence diameter per product and reads each
+    // pattern's limit off it. With constant inputs every sample's limit is the design's own
+    // (a separate search per pattern): interior, capped at the maximum, and infeasible.
+    Site base = typical_design();
+    base.products.push_back({"wide-qw", base.products[0].equivalent_diameter_m,
+                             4.0 * base.products[0].discharge_capacity_m3_per_s, 1.3});
+    const DesignResult free = run_design(base);
+    const double tri = row_of(free, Pattern::triangular).spacing_limit_m, sq = row_of(free, Pattern::square).spacing_limit_m;
+    ASSERT_LT(sq, tri);
+    MonteCarloSpec spec;
+    spec.samples = 64;
+    spec.inputs = {{StudyInput::ch, {DistributionKind::normal, *base.ground.ch_m2_per_s, 0.0}}};
+    for (const SpacingBounds bounds : {base.range.bounds, SpacingBounds{base.range.bounds.min_m, 0.5 * (sq + tri)},
+                                       SpacingBounds{0.5 * (sq + tri), base.range.bounds.max_m}}) {
+        Site site = base;
+        site.range.bounds = bounds;
+        const DesignResult design = run_design(site);
+        const MonteCarloResult mc = monte_carlo(site, design, spec);
+        ASSERT_EQ(mc.rows.size(), design.rows.size());
+        for (std::size_t k = 0; k < design.rows.size(); ++k) {
+            const DesignRow& row = design.rows[k];
+            SCOPED_TRACE(row.drain + " " + std::string(to_string(row.pattern)) + " max " + std::to_string(bounds.max_m));
+            if (!row.feasible) {
+                EXPECT_FALSE(mc.rows[k].reliability_spacing_m);
+                EXPECT_EQ(mc.rows[k].feasible_fraction, 0.0);
+                continue;
+            }
+            ASSERT_TRUE(mc.rows[k].reliability_spacing_m);
+            EXPECT_NEAR(*mc.rows[k].reliability_spacing_m, row.spacing_limit_m, 1e-9);
+            EXPECT_NEAR(mc.rows[k].median_spacing_m, row.spacing_limit_m, 1e-9);
+            EXPECT_EQ(mc.rows[k].reliability_at_maximum, row.limited_by_maximum);
+        }
+    }
+}
+
 TEST(MonteCarlo, MatchesQuadratureOfTheSameProbability) {
     // Only ch is uncertain (lognormal): P(target at spacing s) = P(ch >= ch*), ch* the value at
     // which spacing s just reaches the target. Evaluated by Gauss–Kronrod quadrature of the pdf.

@@ -1,6 +1,7 @@
 #pragma once
 // Typed input errors: every physical check names the quantity, the value and what is allowed.
 #include <stdexcept>
+#include <cmath>
 #include <string>
 #include <string_view>
 
@@ -40,11 +41,28 @@ void require_converged(std::string_view what, unsigned long long iterations_used
 // Formats a value the way the error messages show it (6 significant digits, "nan"/"inf" spelled).
 std::string format_value(double value);
 
+namespace detail {
+// Builds and throws the InputError of a failed guard: out of line, so a passing check costs one
+// comparison and builds no message (the guards run per Monte Carlo sample).
+[[noreturn]] void fail_guard(std::string_view quantity, double value, std::string_view allowed);
+}  // namespace detail
+
 // Guards used at every engine entry point; each throws InputError and never clamps.
-void require_finite(std::string_view quantity, double value);
-void require_positive(std::string_view quantity, double value);      // finite, > 0
-void require_non_negative(std::string_view quantity, double value);  // finite, >= 0
-void require_open_unit(std::string_view quantity, double value);     // 0 < value < 1
+inline void require_finite(std::string_view quantity, double value) {
+    if (!std::isfinite(value)) [[unlikely]] detail::fail_guard(quantity, value, "a finite number");
+}
+inline void require_positive(std::string_view quantity, double value) {  // finite, > 0
+    if (!(std::isfinite(value) && value > 0.0)) [[unlikely]]
+        detail::fail_guard(quantity, value, "a finite number greater than 0");
+}
+inline void require_non_negative(std::string_view quantity, double value) {  // finite, >= 0
+    if (!(std::isfinite(value) && value >= 0.0)) [[unlikely]]
+        detail::fail_guard(quantity, value, "a finite number of at least 0");
+}
+inline void require_open_unit(std::string_view quantity, double value) {  // 0 < value < 1
+    if (!(value > 0.0 && value < 1.0)) [[unlikely]]
+        detail::fail_guard(quantity, value, "between 0 and 1, both excluded");
+}
 void require_greater(std::string_view quantity, double value, double lower, std::string_view allowed);
 void require_at_least(std::string_view quantity, double value, double lower, std::string_view allowed);
 void require_less(std::string_view quantity, double value, double upper, std::string_view allowed);

@@ -113,6 +113,7 @@ private:
     Distribution d_;
     bool constant_ = false;
     double p_low_ = 0.0, p_high_ = 1.0;
+    double log_location_ = 0.0, log_scale_ = 0.0;  // lognormal: mean and sd of ln x
 };
 
 struct UncertainInput {

@@ -33,23 +33,8 @@ std::string format_value(double value) {
     return buffer;
 }
 
-void require_finite(std::string_view quantity, double value) {
-    if (!std::isfinite(value)) throw InputError(std::string(quantity), value, "a finite number");
-}
-
-void require_positive(std::string_view quantity, double value) {
-    if (!(std::isfinite(value) && value > 0.0))
-        throw InputError(std::string(quantity), value, "a finite number greater than 0");
-}
-
-void require_non_negative(std::string_view quantity, double value) {
-    if (!(std::isfinite(value) && value >= 0.0))
-        throw InputError(std::string(quantity), value, "a finite number of at least 0");
-}
-
-void require_open_unit(std::string_view quantity, double value) {
-    if (!(value > 0.0 && value < 1.0))
-        throw InputError(std::string(quantity), value, "between 0 and 1, both excluded");
+void detail::fail_guard(std::string_view quantity, double value, std::string_view allowed) {
+    throw InputError(std::string(quantity), value, std::string(allowed));
 }
 
 void require_greater(std::string_view quantity, double value, double lower, std::string_view allowed) {

@@ -7,11 +7,13 @@
 #include <chrono>
 #include <cmath>
 #include <exception>
+#include <limits>
 #include <mutex>
 #include <random>
 #include <thread>
 
 #include "wickgrid/errors.hpp"
+#include "wickgrid/geometry.hpp"
 #include "wickgrid/permeability.hpp"
 #include "wickgrid/studies.hpp"
 
@@ -27,6 +29,44 @@ struct Combination {
     CellSpec cell;
     double eval_spacing_m;
 };
+
+// The closed form's degree depends on the spacing only through the influence diameter De, so one
+// search in De serves every pattern of a product: it runs for the pattern with the smallest De/s
+// factor over spacings that cover every pattern's De range, and each pattern reads its own limit
+// off the root (monotone in De: below its De range infeasible, above it at the maximum).
+struct SharedSearch {
+    CellSpec cell;                   // the product's cell, in the pattern with the smallest factor
+    SpacingBounds bounds;            // in that pattern's spacings, covering every member's De range
+    std::vector<std::size_t> rows;   // the design rows it serves
+};
+
+std::vector<SharedSearch> shared_searches(const std::vector<Combination>& combos, const DesignResult& design,
+                                          const SpacingBounds& bounds) {
+    std::vector<SharedSearch> out;
+    for (std::size_t k = 0; k < combos.size(); ++k) {
+        auto same = std::find_if(out.begin(), out.end(), [&](const SharedSearch& g) {
+            return design.rows[g.rows.front()].drain == design.rows[k].drain;
+        });
+        if (same == out.end()) same = out.insert(out.end(), SharedSearch{combos[k].cell, bounds, {}});
+        same->rows.push_back(k);
+        if (influence_diameter_factor(combos[k].cell.pattern) < influence_diameter_factor(same->cell.pattern))
+            same->cell = combos[k].cell;
+    }
+    for (auto& g : out) {
+        double largest = 0.0;
+        for (const std::size_t k : g.rows) largest = std::max(largest, influence_diameter_factor(combos[k].cell.pattern));
+        g.bounds.max_m = bounds.max_m * largest / influence_diameter_factor(g.cell.pattern);
+    }
+    return out;
+}
+
+// A pattern's limit (0: infeasible) from the shared search's result.
+double member_limit(const SpacingLimit& shared, Pattern shared_pattern, Pattern pattern, const SpacingBounds& bounds) {
+    if (!shared.feasible) return 0.0;
+    const double s = shared.spacing_m * influence_diameter_factor(shared_pattern) / influence_diameter_factor(pattern);
+    if (s < bounds.min_m) return 0.0;
+    return std::min(s, bounds.max_m);
+}
 
 // Applies one sampled value to a unit-cell specification (the per-sample fast form of with_input;
 // `product` is the cell's unsampled specification).
@@ -54,19 +94,35 @@ void apply(CellSpec& cell, const CellSpec& product, const Site& base, StudyInput
 }  // namespace
 
 namespace {
-// Counts the sorted limits into equal bins over the feasible ones (limit > 0).
-void histogram(const std::vector<double>& sorted, MonteCarloRow& row) {
-    const auto first = std::upper_bound(sorted.begin(), sorted.end(), 0.0);
-    row.infeasible_samples = static_cast<std::size_t>(first - sorted.begin());
-    if (first == sorted.end()) return;
-    row.histogram_low_m = *first;
-    const double span = sorted.back() - *first;
+// Counts the limits into equal bins over the feasible ones (limit > 0): linear passes, no sort.
+void histogram(const std::vector<double>& limits, MonteCarloRow& row) {
+    double low = std::numeric_limits<double>::infinity(), high = 0.0;
+    std::size_t feasible = 0;
+    for (const double x : limits)
+        if (x > 0.0) {
+            ++feasible;
+            low = std::min(low, x);
+            high = std::max(high, x);
+        }
+    row.infeasible_samples = limits.size() - feasible;
+    if (feasible == 0) return;
+    row.histogram_low_m = low;
+    const double span = high - low;
     row.histogram_bin_m = span > 0.0 ? span / static_cast<double>(monte_carlo_histogram_bins) : 0.0;
     row.histogram_counts.assign(span > 0.0 ? monte_carlo_histogram_bins : 1, 0);
-    for (auto it = first; it != sorted.end(); ++it) {
-        const auto bin = span > 0.0 ? static_cast<std::size_t>((*it - row.histogram_low_m) / row.histogram_bin_m) : 0;
+    for (const double x : limits) {
+        if (!(x > 0.0)) continue;
+        const auto bin = span > 0.0 ? static_cast<std::size_t>((x - low) / row.histogram_bin_m) : 0;
         ++row.histogram_counts[std::min(bin, row.histogram_counts.size() - 1)];
     }
+}
+
+// The k-th smallest limit (0-based): the value a full sort would put at index k, selected within
+// [first, end), which must already hold exactly the values a sort would put there.
+double order_statistic(std::vector<double>& limits, std::size_t first, std::size_t k) {
+    const auto at = [&](std::size_t i) { return limits.begin() + static_cast<std::ptrdiff_t>(i); };
+    std::nth_element(at(first), at(k), limits.end());
+    return limits[k];
 }
 }  // namespace
 
@@ -133,6 +189,7 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
     // Samples are seeded per chunk, so results do not depend on the thread count; a search on cell
     // models costs a millisecond or more, so those run in small chunks to keep both cores busy.
     const std::size_t chunk = fast ? chunk_size : 16;
+    const std::vector<SharedSearch> shared = fast ? shared_searches(combos, base_result, bounds) : std::vector<SharedSearch>{};
     std::vector<std::vector<double>> limits(combos.size(), std::vector<double>(n, 0.0));
     // Samples the site's model could not evaluate (an input it refuses): counted, and taken as not
     // meeting the criterion.
@@ -181,13 +238,14 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
                         }
                         continue;
                     }
-                    for (std::size_t k = 0; k < combos.size(); ++k) {
-                        CellSpec cell = combos[k].cell;
+                    for (const SharedSearch& g : shared) {
+                        CellSpec cell = g.cell;
                         for (std::size_t j = 0; j < spec.inputs.size(); ++j)
-                            apply(cell, combos[k].cell, base, spec.inputs[j].input, u[j]);
-                        solver.reset(cell, bounds);
+                            apply(cell, g.cell, base, spec.inputs[j].input, u[j]);
+                        solver.reset(cell, g.bounds);
                         const SpacingLimit limit = solver.solve(target, base.criterion.deadline_s);
-                        limits[k][i] = limit.feasible ? limit.spacing_m : 0.0;
+                        for (const std::size_t k : g.rows)
+                            limits[k][i] = member_limit(limit, g.cell.pattern, combos[k].cell.pattern, bounds);
                     }
                 }
                 done += end - c * chunk;
@@ -214,34 +272,44 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
     result.threads = threads;
     const double alpha = 1.0 - spec.confidence;
     using boost::math::binomial_distribution;
-    for (std::size_t k = 0; k < combos.size(); ++k) {
+    auto statistics = [&](std::size_t k) {
         std::vector<double>& s = limits[k];
-        std::sort(s.begin(), s.end());
         MonteCarloRow row;
         row.drain = base_result.rows[k].drain;
         row.pattern = base_result.rows[k].pattern;
         row.spacing_m = combos[k].eval_spacing_m;
         row.unevaluated = static_cast<std::size_t>(std::count(unevaluated[k].begin(), unevaluated[k].end(), 1));
         // A sample meets the target at spacing x exactly when its own limit is at least x.
-        const auto first_ok = std::lower_bound(s.begin(), s.end(), row.spacing_m - 1e-12);
-        const auto successes = static_cast<double>(s.end() - first_ok);
+        const double threshold = row.spacing_m - 1e-12;
+        const auto successes = static_cast<double>(std::count_if(s.begin(), s.end(), [&](double x) { return x >= threshold; }));
         row.probability = successes / static_cast<double>(n);
         row.probability_low = binomial_distribution<>::find_lower_bound_on_p(
             static_cast<double>(n), successes, alpha / 2, binomial_distribution<>::clopper_pearson_exact_interval);
         row.probability_high = binomial_distribution<>::find_upper_bound_on_p(
             static_cast<double>(n), successes, alpha / 2, binomial_distribution<>::clopper_pearson_exact_interval);
-        row.feasible_fraction = static_cast<double>(s.end() - std::upper_bound(s.begin(), s.end(), 0.0)) / static_cast<double>(n);
-        // The largest x with P(limit >= x) >= reliability: the (1 − reliability) quantile.
-        const auto index = static_cast<std::size_t>(std::floor((1.0 - spec.reliability) * static_cast<double>(n)));
-        const double quantile = s[std::min(index, n - 1)];
+        histogram(s, row);
+        row.feasible_fraction = static_cast<double>(n - row.infeasible_samples) / static_cast<double>(n);
+        // The largest x with P(limit >= x) >= reliability: the (1 − reliability) quantile; the
+        // median is then selected among the limits on its side of it.
+        const auto index = std::min(static_cast<std::size_t>(std::floor((1.0 - spec.reliability) * static_cast<double>(n))), n - 1);
+        const double quantile = order_statistic(s, 0, index);
         if (quantile > 0.0) {
             row.reliability_spacing_m = quantile;
             row.reliability_at_maximum = quantile >= bounds.max_m;
         }
-        row.median_spacing_m = s[n / 2];
-        histogram(s, row);
-        result.rows.push_back(row);
-    }
+        row.median_spacing_m = n / 2 == index ? quantile : n / 2 > index ? order_statistic(s, index + 1, n / 2)
+                                                                          : order_statistic(s, 0, n / 2);
+        return row;
+    };
+    // The rows' statistics are independent: one thread each, up to the thread count.
+    result.rows.resize(combos.size());
+    std::atomic<std::size_t> next_row{0};
+    auto row_worker = [&] {
+        for (std::size_t k = next_row++; k < combos.size(); k = next_row++) result.rows[k] = statistics(k);
+    };
+    pool.clear();
+    for (unsigned t = 0; t < std::min<std::size_t>(threads, combos.size()); ++t) pool.emplace_back(row_worker);
+    for (auto& t : pool) t.join();
     return result;
 }
 
