@@ -92,6 +92,20 @@ static void BM_MonteCarloSampleOneCore(benchmark::State& state) {
 }
 BENCHMARK(BM_MonteCarloSampleOneCore)->Unit(benchmark::kMillisecond)->UseRealTime();
 
+// The staged case: three lifts (30-day ramps) and a surcharge removed before the 240-day deadline,
+// the same draws, one core; reported per sample × pattern.
+static void BM_MonteCarloStagedSample(benchmark::State& state) {
+    Site d = fixtures::typical_design(240.0);
+    const auto day = [](double x) { return units::days_to_seconds(x); };
+    d.loading = LoadHistory{{{0.0, day(30.0), 25.0}, {day(45.0), day(75.0), 25.0}, {day(90.0), day(120.0), 25.0}},
+                            Surcharge{day(125.0), day(140.0), day(200.0), 20.0}, std::nullopt};
+    const DesignResult base = run_design(d);
+    const MonteCarloSpec spec = typical_monte_carlo(d, 20000, 1);
+    for (auto _ : state) benchmark::DoNotOptimize(monte_carlo(d, base, spec));
+    state.SetItemsProcessed(static_cast<std::int64_t>(state.iterations() * spec.samples * base.rows.size()));
+}
+BENCHMARK(BM_MonteCarloStagedSample)->Unit(benchmark::kMillisecond)->UseRealTime();
+
 // The numerical unit cell: 40 × 80 cells (plus the drain conduit) marched to U = 0.99.
 static void BM_NumericalTo99(benchmark::State& state) {
     const NumericalCellSpec spec = numerical_spec(fixtures::typical_cell());

@@ -4,6 +4,7 @@
 #include <random>
 
 #include "cell_fixture.hpp"
+#include "wickgrid/cell_model.hpp"
 #include "wickgrid/combine.hpp"
 #include "wickgrid/search.hpp"
 
@@ -133,4 +134,68 @@ TEST(FastPaths, DepthRuleAgainstReferenceAtExtremes) {
             EXPECT_NEAR(fast.degree(th), reference.degree(th), 1e-13) << ratio << " " << th;
             EXPECT_LE(fast.nodes(), reference.nodes());
         }
+}
+
+TEST(FastPaths, StagedSearchAgreesWithTheCellModels) {
+    // StagedSpacingSolver (fixed Gauss–Legendre nodes per ramp, Newton in ln De) against the cell
+    // models' search (adaptive Gauss–Kronrod ramps, TOMS 748 to 1e-7 m): random clays, three lifts
+    // with and without a surcharge removed before or after the deadline.
+    RandomCells random;
+    double worst_degree = 0.0;
+    int interior = 0;
+    for (int i = 0; i < 60; ++i) {
+        const CellSpec cell = random.next();
+        Site site = fixtures::typical_design(random.uniform(120.0, 500.0));
+        site.ground.thickness_m = site.installation.drain_length_m = cell.clay.thickness_m;
+        site.ground.cv_m2_per_s = cell.clay.cv_m2_per_s;
+        site.ground.ch_m2_per_s = cell.clay.ch_m2_per_s;
+        site.ground.drainage = cell.clay.drainage;
+        site.installation.outlets = cell.drain.outlets;
+        site.installation.smear_permeability_ratio = cell.drain.smear_permeability_ratio;
+        site.products[0].discharge_capacity_m3_per_s = cell.drain.discharge_capacity_m3_per_s;
+        site.criterion = {DegreeTarget{i % 10 == 0 ? 0.999 : random.uniform(0.6, 0.97)}, site.criterion.deadline_s};
+        LoadHistory loads;
+        double t = 0.0;
+        for (int k = 0; k < 3; ++k) {
+            const double start = t + units::days_to_seconds(random.uniform(0.0, 30.0));
+            // A step, short ramps, and now and then a ramp over most of the time to the deadline.
+            const double ramp_days = k == 1 ? 0.0 : i % 5 == 0 && k == 2 ? random.uniform(80.0, 110.0) : random.uniform(1.0, 40.0);
+            const double end = start + units::days_to_seconds(ramp_days);
+            loads.stages.push_back({start, end, random.uniform(10.0, 40.0)});
+            t = end;
+        }
+        if (i % 3 != 0) {
+            const double start = t + units::days_to_seconds(random.uniform(0.0, 20.0));
+            const double end = start + units::days_to_seconds(random.uniform(5.0, 30.0));
+            loads.surcharge = Surcharge{start, end, end + units::days_to_seconds(random.uniform(20.0, 300.0)),
+                                        random.uniform(10.0, 40.0)};
+        }
+        site.loading = loads;
+        for (const Pattern pattern : site.range.patterns) {
+            SCOPED_TRACE("site " + std::to_string(i) + " " + std::string(to_string(pattern)));
+            const auto fast = spacing_limit(site, site.products[0], pattern);
+            const auto reference = spacing_limit_reference(site, site.products[0], pattern);
+            ASSERT_EQ(fast.feasible, reference.feasible);
+            ASSERT_EQ(fast.at_maximum, reference.at_maximum);
+            if (!fast.feasible || fast.at_maximum) continue;
+            ++interior;
+            EXPECT_NEAR(fast.spacing_m, reference.spacing_m, 2 * defaults::spacing_tolerance_m);
+            // At the fast root the reference model meets the target to 1e-9 in degree, and the
+            // solver's own degree equals the model's near the root.
+            StagedSpacingSolver solver;
+            solver.reset(closed_form_cell(site, site.products[0], pattern, site.range.bounds.min_m), site.range.bounds,
+                         load_increments(ultimate_settlement_function(site), site.load_history()),
+                         site.criterion.deadline_s);
+            for (const double s : {fast.spacing_m, 0.97 * fast.spacing_m, 1.03 * fast.spacing_m}) {
+                if (s < site.range.bounds.min_m || s > site.range.bounds.max_m) continue;
+                const double model = make_cell_model(site, site.products[0], pattern, s)->degree(site.criterion.deadline_s);
+                worst_degree = std::max(worst_degree, std::fabs(solver.degree(s) - model));
+                if (s == fast.spacing_m) {
+                    EXPECT_NEAR(model, site.criterion.degree()->degree, 1e-9);
+                }
+            }
+        }
+    }
+    EXPECT_LT(worst_degree, 1e-9);
+    EXPECT_GT(interior, 40);  // most searches end inside the range, so the comparison has teeth
 }

@@ -119,11 +119,21 @@ struct MethodRefusal {
 std::optional<MethodRefusal> method_refusal(const Site& site);
 
 // The largest spacing within the site's range at which the criterion is met, for one product and
-// pattern. A method may supply a fast exact path (the closed form under one instantaneous load);
+// pattern. A method may supply a fast path (the closed form with a degree criterion: SpacingSolver
+// under one instantaneous load, StagedSpacingSolver under a load history with Hansbo's theory);
 // otherwise the criterion margin is solved on cell models: TOMS 748 for the degree (monotone in
 // spacing), a scan of the increment grid refined by bisection for the residual settlement (which
 // need not be monotone over a service period). Throws EvaluationError when a root finder hits its cap.
 SpacingLimit spacing_limit(const Site& site, const DrainProductSpec& product, Pattern pattern);
+
+// The same search on cell models only, never a method's fast path: the reference the fast paths
+// are tested against (to defaults::spacing_tolerance_m). Milliseconds per search.
+SpacingLimit spacing_limit_reference(const Site& site, const DrainProductSpec& product, Pattern pattern);
+
+// Whether the site's spacing searches take a fast path (the closed form with a degree criterion,
+// under a load history with Hansbo's theory): SpacingSolver / StagedSpacingSolver, microseconds
+// per search instead of milliseconds.
+bool has_fast_search(const Site& site);
 
 // How many spacing searches one study may run on this site (defaults.hpp: the fast path, the generic
 // closed-form search, the numerical cell), so that no accepted input runs for hours.

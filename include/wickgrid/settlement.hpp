@@ -68,6 +68,18 @@ double secant_mv_m2_per_kN(const SoilProfile& profile, std::size_t layer, double
 // cumulative load, each with the unit cell's step response (linear superposition). After the
 // surcharge is removed the settlement is held at its value at removal until the permanent-load
 // history catches up (rebound and secondary compression are ignored).
+// The superposed increments of a load history: each stage (and the surcharge) weighted by the
+// ultimate settlement it adds, ultimate(q) the ultimate settlement (m) under a total load q (kPa).
+// Throws InputError for an invalid history or a final settlement <= 0.
+struct LoadIncrements {
+    std::vector<ResponseIncrement> permanent;  // the permanent stages, by start
+    std::vector<ResponseIncrement> all;        // with the surcharge
+    std::optional<double> removal_s;           // surcharge removal
+    double final_m = 0.0;                      // ultimate settlement under the permanent load
+};
+LoadIncrements load_increments(const std::function<double(double load_kPa)>& ultimate, const LoadHistory& history);
+
+// Settlement at time t: Σ over `all` until removal, then max(all at removal, permanent at t).
 class SettlementHistory {
 public:
     // ultimate(q) gives the ultimate settlement for a total load q (kPa); for degree-only use pass

@@ -151,16 +151,25 @@ std::unique_ptr<CellModel> make_cell_model(const Site& site, const DrainProductS
 
 std::optional<MethodRefusal> method_refusal(const Site& site) { return row_of(site.method.method).refusal(site); }
 
+bool has_fast_search(const Site& site) {
+    return site.method.method == CellMethod::closed_form && site.criterion.degree() &&
+           (!site.loading || site.installation.theory == RadialTheory::hansbo_1981);
+}
+
 double max_spacing_searches(const Site& site) {
     if (site.method.method == CellMethod::numerical) return defaults::max_searches_numerical;
-    if (site.loading || !site.criterion.degree()) return defaults::max_searches_generic;
-    return defaults::max_searches_fast;
+    return has_fast_search(site) ? defaults::max_searches_fast : defaults::max_searches_generic;
 }
 
 SpacingLimit spacing_limit(const Site& site, const DrainProductSpec& product, Pattern pattern) {
     const MethodRow& row = row_of(site.method.method);
     if (row.fast_limit)
         if (auto fast = row.fast_limit(site, product, pattern)) return *fast;
+    return spacing_limit_reference(site, product, pattern);
+}
+
+SpacingLimit spacing_limit_reference(const Site& site, const DrainProductSpec& product, Pattern pattern) {
+    const MethodRow& row = row_of(site.method.method);
     const Criterion& criterion = site.criterion;
     const std::function<double(double)> margin_at =
         row.margin_function ? row.margin_function(site, product, pattern)

@@ -7,6 +7,7 @@
 
 #include "cell_model_methods.hpp"
 #include "wickgrid/errors.hpp"
+#include "wickgrid/search.hpp"
 
 namespace wickgrid::detail {
 
@@ -163,10 +164,14 @@ std::unique_ptr<CellModel> make_closed_form_model(const Site& site, const DrainP
 }
 
 std::optional<SpacingLimit> closed_form_fast_limit(const Site& site, const DrainProductSpec& product, Pattern pattern) {
-    const auto* degree = site.criterion.degree();
-    if (site.loading || !degree) return std::nullopt;
-    return largest_spacing(closed_form_cell(site, product, pattern, site.range.bounds.min_m), degree->degree,
-                           site.criterion.deadline_s, site.range.bounds);
+    if (!has_fast_search(site)) return std::nullopt;
+    const double target = site.criterion.degree()->degree;
+    const CellSpec cell = closed_form_cell(site, product, pattern, site.range.bounds.min_m);
+    if (!site.loading) return largest_spacing(cell, target, site.criterion.deadline_s, site.range.bounds);
+    StagedSpacingSolver solver;
+    solver.reset(cell, site.range.bounds, load_increments(ultimate_settlement_function(site), site.load_history()),
+                 site.criterion.deadline_s);
+    return solver.solve(target);
 }
 
 }  // namespace wickgrid::detail

@@ -9,6 +9,7 @@
 #include "wickgrid/defaults.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/search.hpp"
+#include "search_newton.hpp"
 
 namespace wickgrid {
 
@@ -158,7 +159,7 @@ double SpacingSolver::first_guess(double log_g_target, double deadline_s) const 
     return std::clamp(y, logs_.log_de_min, logs_.log_de_max);
 }
 
-SpacingSolver::LogStep SpacingSolver::log_step(double log_de, double eight_ch_t, double log_g_target) const {
+detail::LogStep SpacingSolver::log_step(double log_de, double eight_ch_t, double log_g_target) const {
     // y = ln De. Each node's exponent x = 8·ch·t/(De²·m), m = μ(De) + g and dμ/dy = 1 (Hansbo), so
     // dx/dy = −x(2 + 1/m). h(y) = ln(−ln R) − ln(−ln R*) with R = Σ w·e^(−x) is nearly linear in y,
     // which is why Newton settles in two or three steps from the first guess.
@@ -187,48 +188,15 @@ SpacingLimit SpacingSolver::solve_newton(double target_degree, double uv, double
     }
     const double log_g_target = std::log(-std::log((1.0 - target_degree) / (1.0 - uv)));
     const double eight_ch_t = 8.0 * spec_.clay.ch_m2_per_s * deadline_s;
-    const double y_min = logs_.log_de_min, y_max = logs_.log_de_max;
-    double y = first_guess(log_g_target, deadline_s);
-    // Safeguarded Newton: [lo, hi] brackets the root once both ends are evaluated; a bound is
-    // evaluated only when a step points beyond it, and a step that leaves a known bracket bisects.
-    double lo = y_min, hi = y_max;
-    bool lo_known = false, hi_known = false, converged = false;
-    for (int iteration = 0; iteration < defaults::root_iterations && !converged; ++iteration) {
-        const LogStep at = log_step(y, eight_ch_t, log_g_target);
-        // h >= 0 (or R so small that ln(−ln R) is +∞): the degree meets the target at this spacing.
-        const bool meets = at.h >= 0.0;
-        if (meets) {
-            if (y >= y_max) {
-                limit.feasible = limit.at_maximum = true;
-                limit.spacing_m = bounds_.max_m;
-                return limit;
-            }
-            lo = y;
-            lo_known = true;
-        } else {
-            if (y <= y_min) {
-                limit.degree_at_minimum = degree(bounds_.min_m, deadline_s);
-                return limit;
-            }
-            hi = y;
-            hi_known = true;
-        }
-        double next = std::isfinite(at.h) && at.slope < 0.0 ? y - at.h / at.slope : 0.5 * (lo + hi);
-        if (!(next > lo && next < hi)) {
-            if (next >= hi && !hi_known) next = y_max;
-            else if (next <= lo && !lo_known) next = y_min;
-            else next = 0.5 * (lo + hi);
-        }
-        // Newton's error after a step Δ is about |h''/2h'|·Δ² = Δ²/(2m(2m + 1)) for one node,
-        // at most Δ² for m >= 0.3: a Newton step below 1e-6 in ln De leaves an error near 1e-12,
-        // so it ends the search.
-        const bool newton = std::isfinite(at.h) && at.slope < 0.0 && next == y - at.h / at.slope;
-        converged = at.h == 0.0 || (newton && std::fabs(next - y) < 1e-6) || (lo_known && hi_known && hi - lo < 1e-13);
-        if (at.h != 0.0) y = next;
+    const auto root = detail::newton_in_log_de([&](double y) { return log_step(y, eight_ch_t, log_g_target); },
+                                               first_guess(log_g_target, deadline_s), logs_.log_de_min, logs_.log_de_max);
+    if (root.where == detail::LogRoot::Where::below_all) {
+        limit.degree_at_minimum = degree(bounds_.min_m, deadline_s);
+        return limit;
     }
-    if (!converged) require_converged("largest spacing", defaults::root_iterations, defaults::root_iterations);
     limit.feasible = true;
-    limit.spacing_m = std::clamp(std::exp(y) / factor_, bounds_.min_m, bounds_.max_m);
+    limit.at_maximum = root.where == detail::LogRoot::Where::above_all;
+    limit.spacing_m = limit.at_maximum ? bounds_.max_m : std::clamp(std::exp(root.y) / factor_, bounds_.min_m, bounds_.max_m);
     return limit;
 }
 

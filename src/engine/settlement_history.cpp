@@ -26,23 +26,33 @@ std::vector<ResponseIncrement> increments(std::vector<Event> events, const std::
 }
 }  // namespace
 
-SettlementHistory::SettlementHistory(std::function<double(double)> ultimate, const LoadHistory& history,
-                                     StepResponse response)
-    : response_(std::move(response)) {
+LoadIncrements load_increments(const std::function<double(double)>& ultimate, const LoadHistory& history) {
     validate_load_history(history);
+    LoadIncrements out;
     std::vector<Event> permanent;
     for (const auto& s : history.stages) permanent.push_back({s.start_s, s.end_s, s.pressure_kPa});
-    permanent_ = increments(permanent, ultimate);
-    final_m_ = ultimate(history.permanent_kPa()) - ultimate(0.0);
-    if (!(final_m_ > 0.0)) throw InputError("ultimate settlement (m)", final_m_, "greater than 0");
+    out.permanent = increments(permanent, ultimate);
+    out.final_m = ultimate(history.permanent_kPa()) - ultimate(0.0);
+    if (!(out.final_m > 0.0)) throw InputError("ultimate settlement (m)", out.final_m, "greater than 0");
     if (history.surcharge) {
         std::vector<Event> all = permanent;
         all.push_back({history.surcharge->start_s, history.surcharge->end_s, history.surcharge->pressure_kPa});
-        all_ = increments(all, ultimate);
-        removal_s_ = history.surcharge->removal_s;
+        out.all = increments(all, ultimate);
+        out.removal_s = history.surcharge->removal_s;
     } else {
-        all_ = permanent_;
+        out.all = out.permanent;
     }
+    return out;
+}
+
+SettlementHistory::SettlementHistory(std::function<double(double)> ultimate, const LoadHistory& history,
+                                     StepResponse response)
+    : response_(std::move(response)) {
+    LoadIncrements loads = load_increments(ultimate, history);
+    permanent_ = std::move(loads.permanent);
+    all_ = std::move(loads.all);
+    removal_s_ = loads.removal_s;
+    final_m_ = loads.final_m;
 }
 
 double SettlementHistory::permanent_m(double time_s) const { return superpose(response_, permanent_, time_s); }

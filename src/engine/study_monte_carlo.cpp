@@ -12,9 +12,11 @@
 #include <random>
 #include <thread>
 
+#include "wickgrid/cell_model.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/geometry.hpp"
 #include "wickgrid/permeability.hpp"
+#include "wickgrid/search.hpp"
 #include "wickgrid/studies.hpp"
 
 namespace wickgrid {
@@ -136,10 +138,15 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
                              format_value(std::floor(defaults::max_monte_carlo_values /
                                                      static_cast<double>(std::max<std::size_t>(1, base_result.rows.size())))) +
                              " samples for " + std::to_string(base_result.rows.size()) + " rows)");
-    // The closed form under one instantaneous load with a degree criterion samples through the exact
-    // fast search; every other site through its own cell models, within the study's search budget.
-    const bool fast = !base_input.loading && base_input.criterion.degree() &&
-                      base_input.method.method == CellMethod::closed_form;
+    // The closed form with a degree criterion samples through the fast searches (one instantaneous
+    // load, or a load history with Hansbo's theory); every other site through its own cell models,
+    // within the study's search budget.
+    const bool fast = has_fast_search(base_input);
+    // The superposed increments do not depend on the sampled inputs (compressibility is not sampled).
+    const std::optional<LoadIncrements> loads =
+        fast && base_input.loading
+            ? std::optional<LoadIncrements>(load_increments(ultimate_settlement_function(base_input), base_input.load_history()))
+            : std::nullopt;
     if (!fast && values > max_spacing_searches(base_input))
         throw InputError("Monte Carlo samples × design rows", values,
                          "at most " + format_value(max_spacing_searches(base_input)) +
@@ -193,7 +200,7 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
     std::vector<std::vector<double>> limits(combos.size(), std::vector<double>(n, 0.0));
     // Samples the site's model could not evaluate (an input it refuses): counted, and taken as not
     // meeting the criterion.
-    std::vector<std::vector<unsigned char>> unevaluated(combos.size(), std::vector<unsigned char>(fast ? 0 : n, 0));
+    std::vector<std::vector<unsigned char>> unevaluated(combos.size(), std::vector<unsigned char>(n, 0));
     const std::size_t chunks = (n + chunk - 1) / chunk;
     const unsigned threads = std::max(1u, std::min<unsigned>(spec.threads ? spec.threads : std::thread::hardware_concurrency(),
                                                              static_cast<unsigned>(chunks)));
@@ -205,6 +212,7 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
     auto worker = [&] {
         std::vector<double> u(spec.inputs.size());
         SpacingSolver solver;
+        StagedSpacingSolver staged;
         const boost::math::normal standard;
         try {
             for (std::size_t c = next_chunk++; c < chunks && !failed; c = next_chunk++) {
@@ -242,8 +250,22 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
                         CellSpec cell = g.cell;
                         for (std::size_t j = 0; j < spec.inputs.size(); ++j)
                             apply(cell, g.cell, base, spec.inputs[j].input, u[j]);
-                        solver.reset(cell, g.bounds);
-                        const SpacingLimit limit = solver.solve(target, base.criterion.deadline_s);
+                        SpacingLimit limit;
+                        try {
+                            if (loads) {
+                                staged.reset(cell, g.bounds, *loads, base.criterion.deadline_s);
+                                limit = staged.solve(target);
+                            } else {
+                                solver.reset(cell, g.bounds);
+                                limit = solver.solve(target, base.criterion.deadline_s);
+                            }
+                        } catch (const InputError&) {
+                            for (const std::size_t k : g.rows) unevaluated[k][i] = 1;
+                            continue;
+                        } catch (const EvaluationError&) {
+                            for (const std::size_t k : g.rows) unevaluated[k][i] = 1;
+                            continue;
+                        }
                         for (const std::size_t k : g.rows)
                             limits[k][i] = member_limit(limit, g.cell.pattern, combos[k].cell.pattern, bounds);
                     }
