@@ -252,3 +252,26 @@ TEST(MonteCarlo, BadDistributionsAreNamed) {
     EXPECT_NEAR(t.quantile(0.5), 1.0 + 0.6744897501960817, 1e-12);
     EXPECT_GE(t.quantile(1e-9), 1.0);
 }
+
+TEST(MonteCarlo, SamplesTheFastSearchRefusesAreCounted) {
+    // A discharge capacity so small that the well resistance is out of all proportion to the smear
+    // term is refused by the depth rule: such samples are counted as unevaluated and taken as not
+    // meeting the target, the others still searched; the same with one thread or two.
+    const Site base = typical_design();
+    const DesignResult result = run_design(base);
+    MonteCarloSpec spec;
+    spec.samples = 2000;
+    spec.inputs = {{StudyInput::discharge_capacity, {DistributionKind::uniform, 1e-13, 1.5e-11}}};
+    spec.threads = 1;
+    const auto one = monte_carlo(base, result, spec);
+    spec.threads = 2;
+    const auto two = monte_carlo(base, result, spec);
+    for (std::size_t k = 0; k < one.rows.size(); ++k) {
+        EXPECT_GT(one.rows[k].unevaluated, spec.samples / 4);
+        EXPECT_LT(one.rows[k].unevaluated, 3 * spec.samples / 4);
+        EXPECT_EQ(one.rows[k].unevaluated, two.rows[k].unevaluated);
+        EXPECT_LE(one.rows[k].probability, 1.0 - static_cast<double>(one.rows[k].unevaluated) / spec.samples);
+        EXPECT_EQ(one.rows[k].infeasible_samples, two.rows[k].infeasible_samples);
+        EXPECT_GE(one.rows[k].infeasible_samples, one.rows[k].unevaluated);
+    }
+}

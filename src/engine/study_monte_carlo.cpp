@@ -198,9 +198,9 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
     const std::size_t chunk = fast ? chunk_size : 16;
     const std::vector<SharedSearch> shared = fast ? shared_searches(combos, base_result, bounds) : std::vector<SharedSearch>{};
     std::vector<std::vector<double>> limits(combos.size(), std::vector<double>(n, 0.0));
-    // Samples the site's model could not evaluate (an input it refuses): counted, and taken as not
-    // meeting the criterion.
-    std::vector<std::vector<unsigned char>> unevaluated(combos.size(), std::vector<unsigned char>(n, 0));
+    // A sample the site's model could not evaluate (an input it refuses) is marked NaN: counted apart,
+    // then taken as not meeting the criterion (limit 0).
+    constexpr double unevaluated_mark = std::numeric_limits<double>::quiet_NaN();
     const std::size_t chunks = (n + chunk - 1) / chunk;
     const unsigned threads = std::max(1u, std::min<unsigned>(spec.threads ? spec.threads : std::thread::hardware_concurrency(),
                                                              static_cast<unsigned>(chunks)));
@@ -239,9 +239,9 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
                                 const SpacingLimit limit = spacing_limit(varied, varied.product(row.drain), row.pattern);
                                 limits[k][i] = limit.feasible ? limit.spacing_m : 0.0;
                             } catch (const InputError&) {
-                                unevaluated[k][i] = 1;
+                                limits[k][i] = unevaluated_mark;
                             } catch (const EvaluationError&) {
-                                unevaluated[k][i] = 1;
+                                limits[k][i] = unevaluated_mark;
                             }
                         }
                         continue;
@@ -260,10 +260,10 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
                                 limit = solver.solve(target, base.criterion.deadline_s);
                             }
                         } catch (const InputError&) {
-                            for (const std::size_t k : g.rows) unevaluated[k][i] = 1;
+                            for (const std::size_t k : g.rows) limits[k][i] = unevaluated_mark;
                             continue;
                         } catch (const EvaluationError&) {
-                            for (const std::size_t k : g.rows) unevaluated[k][i] = 1;
+                            for (const std::size_t k : g.rows) limits[k][i] = unevaluated_mark;
                             continue;
                         }
                         for (const std::size_t k : g.rows)
@@ -300,7 +300,11 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
         row.drain = base_result.rows[k].drain;
         row.pattern = base_result.rows[k].pattern;
         row.spacing_m = combos[k].eval_spacing_m;
-        row.unevaluated = static_cast<std::size_t>(std::count(unevaluated[k].begin(), unevaluated[k].end(), 1));
+        for (double& x : s)
+            if (std::isnan(x)) {
+                ++row.unevaluated;
+                x = 0.0;
+            }
         // A sample meets the target at spacing x exactly when its own limit is at least x.
         const double threshold = row.spacing_m - 1e-12;
         const auto successes = static_cast<double>(std::count_if(s.begin(), s.end(), [&](double x) { return x >= threshold; }));
