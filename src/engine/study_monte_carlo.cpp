@@ -8,6 +8,8 @@
 #include <cmath>
 #include <exception>
 #include <limits>
+#include <memory>
+#include <span>
 #include <mutex>
 #include <random>
 #include <thread>
@@ -97,7 +99,7 @@ void apply(CellSpec& cell, const CellSpec& product, const Site& base, StudyInput
 
 namespace {
 // Counts the limits into equal bins over the feasible ones (limit > 0): linear passes, no sort.
-void histogram(const std::vector<double>& limits, MonteCarloRow& row) {
+void histogram(std::span<const double> limits, MonteCarloRow& row) {
     double low = std::numeric_limits<double>::infinity(), high = 0.0;
     std::size_t feasible = 0;
     for (const double x : limits)
@@ -121,7 +123,7 @@ void histogram(const std::vector<double>& limits, MonteCarloRow& row) {
 
 // The k-th smallest limit (0-based): the value a full sort would put at index k, selected within
 // [first, end), which must already hold exactly the values a sort would put there.
-double order_statistic(std::vector<double>& limits, std::size_t first, std::size_t k) {
+double order_statistic(std::span<double> limits, std::size_t first, std::size_t k) {
     const auto at = [&](std::size_t i) { return limits.begin() + static_cast<std::ptrdiff_t>(i); };
     std::nth_element(at(first), at(k), limits.end());
     return limits[k];
@@ -197,7 +199,15 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
     // models costs a millisecond or more, so those run in small chunks to keep both cores busy.
     const std::size_t chunk = fast ? chunk_size : 16;
     const std::vector<SharedSearch> shared = fast ? shared_searches(combos, base_result, bounds) : std::vector<SharedSearch>{};
-    std::vector<std::vector<double>> limits(combos.size(), std::vector<double>(n, 0.0));
+    // Every sample's limit for every row is written by the workers, so the buffers are left
+    // uninitialised here: their pages are first touched by the workers in parallel rather than
+    // zeroed serially (a million samples are 8 MB per row).
+    std::vector<std::unique_ptr<double[]>> limit_rows;
+    std::vector<std::span<double>> limits;
+    for (std::size_t k = 0; k < combos.size(); ++k) {
+        limit_rows.emplace_back(new double[n]);
+        limits.emplace_back(limit_rows.back().get(), n);
+    }
     // A sample the site's model could not evaluate (an input it refuses) is marked NaN: counted apart,
     // then taken as not meeting the criterion (limit 0).
     constexpr double unevaluated_mark = std::numeric_limits<double>::quiet_NaN();
@@ -295,7 +305,7 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
     const double alpha = 1.0 - spec.confidence;
     using boost::math::binomial_distribution;
     auto statistics = [&](std::size_t k) {
-        std::vector<double>& s = limits[k];
+        const std::span<double> s = limits[k];
         MonteCarloRow row;
         row.drain = base_result.rows[k].drain;
         row.pattern = base_result.rows[k].pattern;
