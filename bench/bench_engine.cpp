@@ -81,28 +81,28 @@ static void BM_MonteCarloMillion(benchmark::State& state) {
 }
 BENCHMARK(BM_MonteCarloMillion)->Iterations(2)->Unit(benchmark::kSecond)->UseRealTime();
 
-// One sample × pattern on one core (draws, search, statistics): 100,000 samples × 2 patterns,
-// reported per sample × pattern.
-static void BM_MonteCarloSampleOneCore(benchmark::State& state) {
-    const Site d = fixtures::typical_design(180.0);
+// Monte Carlo of `d` on one core, reported per sample × pattern (draws, search, statistics).
+static void monte_carlo_per_sample(benchmark::State& state, const Site& d, std::size_t samples) {
     const DesignResult base = run_design(d);
-    const MonteCarloSpec spec = typical_monte_carlo(d, 100000, 1);
+    const MonteCarloSpec spec = typical_monte_carlo(d, samples, 1);
     for (auto _ : state) benchmark::DoNotOptimize(monte_carlo(d, base, spec));
     state.SetItemsProcessed(static_cast<std::int64_t>(state.iterations() * spec.samples * base.rows.size()));
 }
+
+// One instantaneous load: 100,000 samples × 2 patterns.
+static void BM_MonteCarloSampleOneCore(benchmark::State& state) {
+    monte_carlo_per_sample(state, fixtures::typical_design(180.0), 100000);
+}
 BENCHMARK(BM_MonteCarloSampleOneCore)->Unit(benchmark::kMillisecond)->UseRealTime();
 
-// The staged case: three lifts (30-day ramps) and a surcharge removed before the 240-day deadline,
-// the same draws, one core; reported per sample × pattern.
+// Three lifts (30-day ramps) and a surcharge removed before the 240-day deadline: 20,000 samples ×
+// 2 patterns.
 static void BM_MonteCarloStagedSample(benchmark::State& state) {
     Site d = fixtures::typical_design(240.0);
     const auto day = [](double x) { return units::days_to_seconds(x); };
     d.loading = LoadHistory{{{0.0, day(30.0), 25.0}, {day(45.0), day(75.0), 25.0}, {day(90.0), day(120.0), 25.0}},
                             Surcharge{day(125.0), day(140.0), day(200.0), 20.0}, std::nullopt};
-    const DesignResult base = run_design(d);
-    const MonteCarloSpec spec = typical_monte_carlo(d, 20000, 1);
-    for (auto _ : state) benchmark::DoNotOptimize(monte_carlo(d, base, spec));
-    state.SetItemsProcessed(static_cast<std::int64_t>(state.iterations() * spec.samples * base.rows.size()));
+    monte_carlo_per_sample(state, d, 20000);
 }
 BENCHMARK(BM_MonteCarloStagedSample)->Unit(benchmark::kMillisecond)->UseRealTime();
 

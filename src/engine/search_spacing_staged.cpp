@@ -62,8 +62,12 @@ void StagedSpacingSolver::reset(const CellSpec& spec, const SpacingBounds& bound
     deadline_s_ = deadline_s;
     final_m_ = loads.final_m;
     after_removal_ = loads.removal_s && deadline_s > *loads.removal_s;
-    loaded_ = {};
-    permanent_ = {};
+    // Cleared, not replaced: the node storage is reused from sample to sample.
+    for (NodeSum* sum : {&loaded_, &permanent_}) {
+        sum->constant = 0.0;
+        sum->x_s.clear();
+        sum->coefficient.clear();
+    }
     add_increments(loaded_, loads.all, after_removal_ ? *loads.removal_s : deadline_s);
     if (after_removal_) add_increments(permanent_, loads.permanent, deadline_s);
     // The load-weighted age of the increments at the deadline: the instantaneous load that starts

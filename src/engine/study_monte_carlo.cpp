@@ -67,7 +67,9 @@ std::vector<SharedSearch> shared_searches(const std::vector<Combination>& combos
 // A pattern's limit (0: infeasible) from the shared search's result.
 double member_limit(const SpacingLimit& shared, Pattern shared_pattern, Pattern pattern, const SpacingBounds& bounds) {
     if (!shared.feasible) return 0.0;
-    const double s = shared.spacing_m * influence_diameter_factor(shared_pattern) / influence_diameter_factor(pattern);
+    const double s = pattern == shared_pattern
+                         ? shared.spacing_m
+                         : shared.spacing_m * influence_diameter_factor(shared_pattern) / influence_diameter_factor(pattern);
     if (s < bounds.min_m) return 0.0;
     return std::min(s, bounds.max_m);
 }
