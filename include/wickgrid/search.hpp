@@ -92,7 +92,8 @@ private:
 // once per reset; a trial spacing then costs the exponentials of nodes × depth nodes. The nodes stay
 // accurate (FastPaths tests: within 1e-9 of the adaptive reference) wherever the degree is near a
 // target below 1, i.e. near the root; far from it only the sign is used.
-// Not thread-safe across threads for one object (use one per thread); no allocation once warm.
+// reset() mutates (one object per sampling thread); the const members may run concurrently. No
+// allocation once warm.
 class StagedSpacingSolver {
 public:
     // Throws InputError for an invalid cell, bounds, a deadline <= 0, or a radial theory other than
@@ -103,16 +104,12 @@ public:
     SpacingLimit solve(double target_degree) const;
 
 private:
-    struct Value {
-        double degree;
-        double slope;  // d degree / d ln De
-    };
     struct NodeSum {  // c − Σ coefficient·R(x) (m): settlement of one superposition at one time
         double constant = 0.0;
         std::vector<double> x_s, coefficient;
     };
     void add_increments(NodeSum& sum, const std::vector<ResponseIncrement>& increments, double time_s);
-    Value value(double log_de) const;
+    double degree_at(double log_de) const;
     detail::LogStep log_step(const NodeSum& sum, double log_de, double target_m) const;
     double sum_at(const NodeSum& sum, double log_de, double& slope) const;
     double first_guess(double target_degree) const;  // ln De
@@ -120,7 +117,7 @@ private:
     SpacingSolver cell_;
     NodeSum loaded_, permanent_;
     bool after_removal_ = false;  // the deadline follows the surcharge's removal: max of the two
-    double final_m_ = 1.0, deadline_s_ = 0.0, equivalent_age_s_ = 0.0;
+    double final_m_ = 1.0, equivalent_age_s_ = 0.0;
 };
 
 }  // namespace wickgrid

@@ -59,7 +59,6 @@ void StagedSpacingSolver::reset(const CellSpec& spec, const SpacingBounds& bound
                          "Hansbo (1981) for the staged fast search (other theories search on cell models)");
     require_positive("ultimate settlement (m)", loads.final_m);
     cell_.reset(spec, bounds);
-    deadline_s_ = deadline_s;
     final_m_ = loads.final_m;
     after_removal_ = loads.removal_s && deadline_s > *loads.removal_s;
     // Cleared, not replaced: the node storage is reused from sample to sample.
@@ -103,15 +102,11 @@ double StagedSpacingSolver::sum_at(const NodeSum& sum, double log_de, double& sl
     return settled;
 }
 
-StagedSpacingSolver::Value StagedSpacingSolver::value(double log_de) const {
+double StagedSpacingSolver::degree_at(double log_de) const {
     double slope = 0.0;
     double settled = sum_at(loaded_, log_de, slope);
-    if (after_removal_) {
-        double slope_permanent = 0.0;
-        const double permanent = sum_at(permanent_, log_de, slope_permanent);
-        if (permanent > settled) settled = permanent, slope = slope_permanent;
-    }
-    return {settled / final_m_, slope / final_m_};
+    if (after_removal_) settled = std::max(settled, sum_at(permanent_, log_de, slope));
+    return settled / final_m_;
 }
 
 detail::LogStep StagedSpacingSolver::log_step(const NodeSum& sum, double log_de, double target_m) const {
@@ -129,7 +124,7 @@ detail::LogStep StagedSpacingSolver::log_step(const NodeSum& sum, double log_de,
 }
 
 double StagedSpacingSolver::degree(double spacing_m) const {
-    return value(std::log(cell_.factor_ * spacing_m)).degree;
+    return degree_at(std::log(cell_.factor_ * spacing_m));
 }
 
 double StagedSpacingSolver::first_guess(double target_degree) const {
@@ -155,7 +150,7 @@ SpacingLimit StagedSpacingSolver::solve(double target_degree) const {
     const auto root = detail::newton_in_log_de(step, first_guess(target_degree), logs.log_de_min, logs.log_de_max);
     SpacingLimit limit;
     if (root.where == detail::LogRoot::Where::below_all) {
-        limit.degree_at_minimum = value(logs.log_de_min).degree;
+        limit.degree_at_minimum = degree_at(logs.log_de_min);
         return limit;
     }
     limit.feasible = true;
