@@ -54,7 +54,8 @@ TEST_P(EveryScenario, EveryCommandRunsAndWritesWholeOutputs) {
     const CommandRun verify = run("verify " + file + " --json --radial-cells 12 --vertical-cells 24 --points 6");
     EXPECT_EQ(verify.exit_code, 0) << verify.err;
     EXPECT_EQ(json::parse(verify.out)["rows"].size(), doc["designs"].size());
-    const CommandRun sweep = run("sweep " + file + " --json --samples 200");
+    // Few samples: the numerical scenarios search a cell model per sample (about 0.1 s each).
+    const CommandRun sweep = run("sweep " + file + " --json --samples 20");
     EXPECT_TRUE(sweep.exit_code == 0 || sweep.exit_code == 5) << sweep.err;  // 5: a study the site cannot sample
     if (sweep.exit_code == 0) {
         EXPECT_EQ(json::parse(sweep.out)["target"], doc["target"]);
