@@ -3,7 +3,9 @@
 // malformed areas refused by name.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
+#include <limits>
 #include <numbers>
 
 #include "wickgrid/errors.hpp"
@@ -18,6 +20,34 @@ Ring rotated(Ring ring, double angle_deg) {
     const double a = angle_deg * std::numbers::pi / 180.0;
     for (auto& p : ring) p = {p.x_m * std::cos(a) - p.y_m * std::sin(a), p.x_m * std::sin(a) + p.y_m * std::cos(a)};
     return ring;
+}
+
+// Plane geometry written out here, independently of the Boost.Geometry the layout uses.
+double distance_to_segment(Point p, Point a, Point b) {
+    const double t = std::clamp(((p.x_m - a.x_m) * (b.x_m - a.x_m) + (p.y_m - a.y_m) * (b.y_m - a.y_m)) /
+                                    ((b.x_m - a.x_m) * (b.x_m - a.x_m) + (b.y_m - a.y_m) * (b.y_m - a.y_m)),
+                                0.0, 1.0);
+    return std::hypot(p.x_m - a.x_m - t * (b.x_m - a.x_m), p.y_m - a.y_m - t * (b.y_m - a.y_m));
+}
+
+double distance_to_ring(Point p, const Ring& ring) {
+    double nearest = std::numeric_limits<double>::infinity();
+    for (std::size_t i = 0; i < ring.size(); ++i)
+        nearest = std::min(nearest, distance_to_segment(p, ring[i], ring[(i + 1) % ring.size()]));
+    return nearest;
+}
+
+// Even–odd rule: a ray to +x crosses the ring an odd number of times from inside.
+bool inside_ring(Point p, const Ring& ring) {
+    bool inside = false;
+    for (std::size_t i = 0, j = ring.size() - 1; i < ring.size(); j = i++) {
+        const Point& a = ring[i];
+        const Point& b = ring[j];
+        if ((a.y_m > p.y_m) != (b.y_m > p.y_m) &&
+            p.x_m < a.x_m + (p.y_m - a.y_m) * (b.x_m - a.x_m) / (b.y_m - a.y_m))
+            inside = !inside;
+    }
+    return inside;
 }
 
 const LengthRule full_drains{10.0, 10.0, {}};
@@ -122,18 +152,31 @@ TEST(Layout, EveryDrainKeepsTheEdgeOffset) {
     const double offset = 1.3;
     const Layout l = lay_out(a, {}, {Pattern::triangular, 1.1, 17.0, std::nullopt, offset}, full_drains, no_cap);
     ASSERT_GT(l.drains.size(), 500u);
-    auto distance_to_segment = [](Point p, Point a, Point b) {
-        const double t = std::clamp(((p.x_m - a.x_m) * (b.x_m - a.x_m) + (p.y_m - a.y_m) * (b.y_m - a.y_m)) /
-                                        ((b.x_m - a.x_m) * (b.x_m - a.x_m) + (b.y_m - a.y_m) * (b.y_m - a.y_m)),
-                                    0.0, 1.0);
-        return std::hypot(p.x_m - a.x_m - t * (b.x_m - a.x_m), p.y_m - a.y_m - t * (b.y_m - a.y_m));
-    };
     for (const auto& d : l.drains) {
-        double nearest = 1e9;
-        for (const Ring* ring : {&a.parts[0].outer, &a.parts[0].holes[0]})
-            for (std::size_t i = 0; i < ring->size(); ++i)
-                nearest = std::min(nearest, distance_to_segment({d.x_m, d.y_m}, (*ring)[i], (*ring)[(i + 1) % ring->size()]));
+        const double nearest = std::min(distance_to_ring({d.x_m, d.y_m}, a.parts[0].outer),
+                                        distance_to_ring({d.x_m, d.y_m}, a.parts[0].holes[0]));
         EXPECT_GE(nearest, offset - 1e-6);
+    }
+}
+
+// Fuzz finding: a thin valid area with a tiny hole near its edge, on a projected grid. Growing the
+// region with Boost's buffer failed an assertion on it (in the sanitizer tree, where assertions are on).
+// Every drain lies in the area (or within the boundary tolerance of an edge), none in the hole.
+TEST(Layout, ThinAreasWithTinyHolesKeepEveryDrainInside) {
+    const Area a{{{{{512080.782502, 2485020.0}, {512071.7, 2485018.5}, {512041.0, 2485012.5}, {511999.8, 2484960.7}},
+                   {{{512040.4, 2485010.0}, {512039.739639, 2485010.0}, {512039.862, 2485009.935}, {512039.9, 2485009.9},
+                     {512040.6, 2485010.0}}}}}};
+    ASSERT_FALSE(area_problem(a).has_value());
+    for (const Pattern pattern : {Pattern::triangular, Pattern::square}) {
+        const Layout l = lay_out(a, {}, {pattern, 0.5, std::nullopt, std::nullopt, 0.0}, full_drains, no_cap);
+        ASSERT_GT(l.drains.size(), 100u);
+        for (const auto& d : l.drains) {
+            const Point p{d.x_m, d.y_m};
+            const Ring& outer = a.parts[0].outer;
+            const Ring& hole = a.parts[0].holes[0];
+            EXPECT_TRUE(inside_ring(p, outer) || distance_to_ring(p, outer) <= 2e-6) << d.x_m << ", " << d.y_m;
+            EXPECT_TRUE(!inside_ring(p, hole) || distance_to_ring(p, hole) <= 2e-6) << d.x_m << ", " << d.y_m;
+        }
     }
 }
 

@@ -159,15 +159,6 @@ BMulti to_lattice_frame(const BMulti& region, double angle_rad, Point origin) {
     return out;
 }
 
-// The region grown by the boundary tolerance, so that a row lying along an edge crosses it.
-BMulti grown(const BMulti& region) {
-    BMulti out;
-    bg::buffer(region, out, bg::strategy::buffer::distance_symmetric<double>(boundary_tolerance_m),
-               bg::strategy::buffer::side_straight(), bg::strategy::buffer::join_miter(),
-               bg::strategy::buffer::end_flat(), bg::strategy::buffer::point_circle(8));
-    return out;
-}
-
 [[noreturn]] void too_many(std::size_t max_drains) {
     throw EvaluationError("drain layout", "more than " + std::to_string(max_drains) +
                                               " drains at this spacing; lay out a smaller area or a wider spacing");
@@ -184,31 +175,47 @@ std::pair<long long, long long> index_range(double first, double last, std::size
     return {static_cast<long long>(lo), static_cast<long long>(hi)};
 }
 
+// The spans of one row inside the region, in ascending order of their start. The row is cut at v
+// and at v ± the boundary tolerance, so that a row lying along an edge, just outside it after
+// rounding, still meets it, and each span reaches the tolerance beyond its ends, so that a drain on
+// an edge across the row is kept too. Every point of these spans lies within about the tolerance
+// of the region.
+// (Growing the region by a buffer did the same, but Boost's buffer asserts on some valid thin
+// polygons.)
+std::vector<std::pair<double, double>> row_spans(const BMulti& region, double u_low, double u_high, double v) {
+    std::vector<std::pair<double, double>> spans;
+    for (const double at : {v - boundary_tolerance_m, v, v + boundary_tolerance_m}) {
+        const BLine line{{u_low, at}, {u_high, at}};
+        BMultiLine pieces;
+        bg::intersection(line, region, pieces);
+        for (const auto& piece : pieces) {
+            if (piece.empty()) continue;
+            double a = piece.front().x();
+            double b = a;
+            for (const auto& p : piece) {
+                a = std::min(a, p.x());
+                b = std::max(b, p.x());
+            }
+            spans.emplace_back(a - boundary_tolerance_m, b + boundary_tolerance_m);
+        }
+    }
+    std::sort(spans.begin(), spans.end());
+    return spans;
+}
+
 // The lattice points of one row inside the region, as u positions in ascending order; at most
 // `room` of them.
 void row_points(const BMulti& region, double u_low, double u_high, double v, double shift_m, double spacing_m,
                 std::size_t room, std::size_t max_drains, std::vector<double>& us) {
-    const BLine line{{u_low, v}, {u_high, v}};
-    BMultiLine pieces;
-    bg::intersection(line, region, pieces);
-    std::vector<std::pair<double, double>> spans;
-    for (const auto& piece : pieces) {
-        if (piece.empty()) continue;
-        double a = piece.front().x();
-        double b = a;
-        for (const auto& p : piece) {
-            a = std::min(a, p.x());
-            b = std::max(b, p.x());
-        }
-        spans.emplace_back(a, b);
-    }
-    std::sort(spans.begin(), spans.end());
     double last = -std::numeric_limits<double>::infinity();
-    for (const auto& [a, b] : spans) {
-        const auto [k0, k1] = index_range((a - shift_m) / spacing_m, (b - shift_m) / spacing_m, room - us.size(), max_drains);
+    for (const auto& [a, b] : row_spans(region, u_low, u_high, v)) {
+        // Overlapping spans (the three cuts, or pieces that share an end) give each point once.
+        const double from = std::max(a, last);
+        if (b < from) continue;
+        const auto [k0, k1] = index_range((from - shift_m) / spacing_m, (b - shift_m) / spacing_m, room - us.size(), max_drains);
         for (long long k = k0; k <= k1; ++k) {
             const double u = shift_m + static_cast<double>(k) * spacing_m;
-            if (u <= last) continue;  // spans that share an end give the point once
+            if (u <= last) continue;
             us.push_back(u);
             last = u;
         }
@@ -312,10 +319,12 @@ Layout lay_out(const Area& area, const Area& exclusions, const LatticeSpec& spec
     // Rows are cut by the region in the lattice's frame; the edge offset is then kept drain by drain
     // against the region's edges (exactly the points at least the offset inside).
     const BMulti local = to_lattice_frame(region, angle_rad, origin);
-    const BMulti rows_region = grown(local);
     const EdgeIndex edges = edge_index(local);
     bg::model::box<BPoint> box;
-    bg::envelope(rows_region, box);
+    bg::envelope(local, box);
+    // The rows reach the tolerance beyond the region (see row_spans).
+    box.min_corner().y(box.min_corner().y() - boundary_tolerance_m);
+    box.max_corner().y(box.max_corner().y() + boundary_tolerance_m);
     const double pitch = row_pitch_m(spec.pattern, spec.spacing_m);
     // A row holds at least one drain or none; rows beyond the cap cannot all be empty in a valid area
     // (a far origin or a tiny spacing is caught here, before any index overflows).
@@ -330,7 +339,7 @@ Layout lay_out(const Area& area, const Area& exclusions, const LatticeSpec& spec
         const double shift = spec.pattern == Pattern::triangular && odd ? spec.spacing_m / 2.0 : 0.0;
         const double v = static_cast<double>(j) * pitch;
         us.clear();
-        row_points(rows_region, u_low, u_high, v, shift, spec.spacing_m, max_drains - out.drains.size() + 1, max_drains, us);
+        row_points(local, u_low, u_high, v, shift, spec.spacing_m, max_drains - out.drains.size() + 1, max_drains, us);
         std::erase_if(us, [&](double u) { return !clear_of_edges(edges, BPoint{u, v}, spec.edge_offset_m); });
         if (us.empty()) continue;
         if (out.drains.size() + us.size() > max_drains) too_many(max_drains);
