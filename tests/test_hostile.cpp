@@ -115,7 +115,7 @@ TEST(Hostile, CommandLineCases) {
          "more than the limit"},
         {"a folder for a file", "check " + source("configs"), 2, "is a folder"},
         {"an unknown command", "desing " + demo, 2, "unknown command 'desing'; did you mean 'design'?"},
-        {"an escape code as a command", "\"$(printf '\\033[31mx')\"", 2, "unknown command '?[31mx'"},
+        {"an escape code as a command", "\"$(printf '\\033[31mx')\"", 2, "unknown command '\\x1b[31mx'"},
     };
     for (const auto& c : cases) {
         const CommandRun r = run(c.args);
@@ -198,4 +198,88 @@ TEST(Hostile, NamesCannotBreakAnOutputFormat) {
     const std::string csv = slurp(out / "design.csv");
     EXPECT_NE(csv.find("\"band|<script>x</script>, \"\"A\"\"\","), std::string::npos) << csv;
     fs::remove_all(file.parent_path());
+}
+
+// Set-out files and readings from other hands (issue: hostile input on the new readers, defects 1, 2
+// and 11): each refused at its file, line and column with exit 2, or, for a path, shown escaped.
+TEST(Hostile, DataFilesAreRefusedAtTheirCell) {
+    const std::string staged = source("configs/staged-surcharge.yaml");
+    const std::string cell = " --drain band-100x4 --pattern square --spacing 1.5";
+    const std::string layout = "layout " + source("demo/scenario.yaml") + " --area " + source("demo/zone-c-area.geojson") +
+                               " --drain band-100x4 --pattern triangular --spacing 1.5 --base-depths ";
+    const std::string monitor = "monitor " + staged + cell + " --readings ";
+    struct Case {
+        const char* what;
+        std::string text;     // the data file
+        std::string command;  // the file's path is appended
+        std::string place;    // file:line:column, after the path
+        std::string message;
+    };
+    const std::string boreholes = "x_m,y_m,base_depth_m\n512038,2485005,13.2\n";
+    const std::vector<Case> cases{
+        {"a base depth of 1e45 m", boreholes + "512225,2485037,1e45\n", layout, ":3:", "base_depth_m"},
+        {"a base depth of 1e308 m", boreholes + "512225,2485037,1e308\n", layout, ":3:", "at most 1000"},
+        {"a borehole at 1e200 m", boreholes + "1e200,2485037,14\n", layout, ":3:1", "±10⁹ m"},
+        {"a borehole at -1e155 m", boreholes + "512225,-1e155,14\n", layout, ":3:", "y_m"},
+        {"a plate name in cp1252", "plate,day,settlement_mm\nSP\xe9,7,12\n", monitor, ":2:3", "not valid UTF-8"},
+        {"a plate name with an escape code", "plate,day,settlement_mm\n\"SP\x1b[31m\",7,12\n", monitor, ":2:1",
+         "control character"},
+        {"a plate name with a NUL", std::string("plate,day,settlement_mm\nSP", 26) + '\0' + "1,7,12\n", monitor, ":2:1",
+         "control character"},
+        {"a piezometer name in cp1252", "piezometer,day,depth_m,excess_pore_pressure_kPa\nPZ\xe9,7,4,6\n",
+         monitor + source("configs/staged-surcharge-readings.csv") + " --piezometers ", ":2:3", "not valid UTF-8"},
+    };
+    for (const auto& c : cases) {
+        const fs::path dir = scratch();
+        const fs::path data = dir / "data.csv";
+        std::ofstream(data, std::ios::binary) << c.text;
+        const fs::path out = dir / "out";
+        const CommandRun r = run(c.command + data.string() + " --out " + out.string());
+        EXPECT_EQ(r.exit_code, 2) << c.what << "\n" << r.err;
+        EXPECT_NE(r.err.find(data.string() + c.place), std::string::npos) << c.what << "\n" << r.err;
+        EXPECT_NE(r.err.find(c.message), std::string::npos) << c.what << "\n" << r.err;
+        EXPECT_EQ(r.err.find('\x1b'), std::string::npos) << c.what;
+        EXPECT_FALSE(fs::exists(out)) << c.what << ": nothing is written";
+        fs::remove_all(dir);
+    }
+}
+
+TEST(Hostile, SetOutFilesHoldOnlyNumbersAtTheLimits) {
+    // Boreholes at the largest depth and coordinates allowed: every number written whole.
+    const fs::path dir = scratch();
+    std::ofstream(dir / "b.csv") << "x_m,y_m,base_depth_m\n512038,2485005,1000\n-1e9,1e9,999.5\n";
+    const CommandRun r = run("layout " + source("demo/scenario.yaml") + " --area " + source("demo/zone-c-area.geojson") +
+                             " --drain band-100x4 --pattern triangular --spacing 1.5 --base-depths " +
+                             (dir / "b.csv").string() + " --out " + (dir / "out").string());
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    for (const char* name : {"layout.csv", "layout.geojson", "layout.json"}) {
+        const std::string text = slurp(dir / "out" / name);
+        EXPECT_EQ(text.find('\0'), std::string::npos) << name;
+        for (const char c : text) EXPECT_TRUE(c == '\n' || static_cast<unsigned char>(c) >= 0x20) << name;
+    }
+    EXPECT_TRUE(json::parse(slurp(dir / "out" / "layout.geojson")).contains("features"));
+    fs::remove_all(dir);
+}
+
+TEST(Hostile, PathsThatAreNotUtf8AreShownEscaped) {
+    const fs::path dir = scratch() / "caf\xe9";
+    fs::create_directories(dir);
+    fs::copy_file(source("configs/staged-surcharge.yaml"), dir / "site\xe9.yaml");
+    fs::copy_file(source("configs/staged-surcharge-readings.csv"), dir / "plates\xe9.csv");
+    const std::string scenario = (dir / "site\xe9.yaml").string();
+    const std::string cell = " --drain band-100x4 --pattern square --spacing 1.5";
+    const CommandRun check = run("check '" + scenario + "'");
+    EXPECT_EQ(check.exit_code, 0) << check.err;
+    EXPECT_NE(check.out.find("caf\\xe9/site\\xe9.yaml: valid scenario"), std::string::npos) << check.out;
+    const CommandRun design = run("design '" + scenario + "' --json");
+    ASSERT_EQ(design.exit_code, 0) << design.err;
+    EXPECT_EQ(json::parse(design.out)["scenario"], (dir.parent_path() / "caf\\xe9" / "site\\xe9.yaml").string());
+    const CommandRun monitor =
+        run("monitor '" + scenario + "'" + cell + " --readings '" + (dir / "plates\xe9.csv").string() + "' --json");
+    ASSERT_EQ(monitor.exit_code, 0) << monitor.err;
+    EXPECT_NE(monitor.out.find("plates\\\\xe9.csv"), std::string::npos);
+    const CommandRun missing = run("check '" + (dir / "gone\xe9.yaml").string() + "'");
+    EXPECT_EQ(missing.exit_code, 2);
+    EXPECT_NE(missing.err.find("gone\\xe9.yaml"), std::string::npos) << missing.err;
+    fs::remove_all(dir.parent_path());
 }

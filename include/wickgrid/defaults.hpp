@@ -1,6 +1,8 @@
 #pragma once
 // Every default of the program in one place: the scenario reader, the command line, the engine and
 // the writers take them from here.
+#include <cstddef>
+
 namespace wickgrid::defaults {
 
 // Search range.
@@ -73,6 +75,13 @@ inline constexpr double max_searches_generic = 2e4;
 inline constexpr double max_searches_numerical = 500;
 // Drains one layout may lay (about 10 km² at 1 m spacing; each drain costs ~100 bytes of output).
 inline constexpr std::size_t max_layout_drains = 20000000;
+// Projected coordinates in metres stay within a few times the Earth's circumference; beyond ±10⁹ m a
+// coordinate (area vertex or borehole) is no place on a projected grid.
+inline constexpr double max_coordinate_m = 1e9;
+// A borehole's depth from the top of the clay to its base, metres. Band drains are installed to
+// some tens of metres (common practice); no soft deposit treated with drains is a kilometre deep, so
+// a larger depth is a unit or typing error, refused at its line.
+inline constexpr double max_base_depth_m = 1000.0;
 
 // Layout.
 inline constexpr double layout_edge_offset_m = 0.0;  // drains may stand on the treatment area's edge

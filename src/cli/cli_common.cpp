@@ -13,6 +13,7 @@
 #include "commands.hpp"
 #include "report/atomic_file.hpp"
 #include "scenario/suggest.hpp"
+#include "scenario/text_encoding.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/names.hpp"
 
@@ -104,12 +105,16 @@ scenario::Scenario load_scenario_warned(const std::string& file) {
 }
 
 std::string terminal_safe(const std::string& text) {
+    // Line by line: control characters and bytes that are not UTF-8 (a Latin-1 path) escaped.
     std::string out;
-    for (const char c : text) {
-        const auto u = static_cast<unsigned char>(c);
-        out += (u < 0x20 && c != '\n') || u == 0x7F ? '?' : c;
+    std::size_t start = 0;
+    for (;;) {
+        const std::size_t end = text.find('\n', start);
+        out += scenario::display_path(text.substr(start, end == std::string::npos ? std::string::npos : end - start));
+        if (end == std::string::npos) return out;
+        out += '\n';
+        start = end + 1;
     }
-    return out;
 }
 
 void report_error(const std::string& text) { std::fprintf(stderr, "wickgrid: error: %s\n", terminal_safe(text).c_str()); }
@@ -183,7 +188,7 @@ int run_each(const std::vector<std::string>& files, BatchFormat format, const st
             while (!buffer.empty() && buffer.back() == '\n') buffer.pop_back();
             outputs.push_back(buffer);
         } else {
-            outputs.push_back("== " + files[i] + " ==\n" + buffer);
+            outputs.push_back("== " + scenario::display_path(files[i]) + " ==\n" + buffer);
         }
     }
     std::string all;
@@ -202,7 +207,8 @@ void write_outputs(const std::string& dir, const std::vector<std::string>& input
         // Identity, not name: a link or another spelling of an input's path is the input too.
         for (const auto& input_file : input_files)
             if (fs::exists(path, ec) && fs::equivalent(path, fs::path(input_file), ec))
-                throw report::OutputError("refusing to overwrite the input file " + input_file + " with " + path.string());
+                throw report::OutputError("refusing to overwrite the input file " + scenario::display_path(input_file) +
+                                          " with " + scenario::display_path(path.string()));
     }
     report::write_files_atomically(dir, files);
 }

@@ -1,5 +1,6 @@
 // wickgrid check FILE...: validate scenarios without designing.
 #include "commands.hpp"
+#include "scenario/text_encoding.hpp"
 
 namespace wickgrid::cli {
 
@@ -10,7 +11,7 @@ Runner add_check(CLI::App& app) {
     return [files] {
         return run_each(*files, {false, false}, [](const BatchItem& item) {
             const auto s = load_scenario_warned(item.file);
-            item.print(item.file + ": valid scenario '" + s.title + "': " + std::to_string(s.site.products.size()) +
+            item.print(scenario::display_path(item.file) + ": valid scenario '" + s.title + "': " + std::to_string(s.site.products.size()) +
                        " drain product(s) × " + std::to_string(s.site.range.patterns.size()) + " pattern(s), method " +
                        std::string(to_string(s.site.method.method)) + "\n");
             return static_cast<int>(ok);

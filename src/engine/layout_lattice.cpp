@@ -13,6 +13,7 @@
 #include <limits>
 #include <numbers>
 
+#include "wickgrid/defaults.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/layout.hpp"
 
@@ -31,8 +32,7 @@ using BSegment = bg::model::segment<BPoint>;
 // A drain this close outside an edge counts as on it: rounding in the rotation must not decide
 // whether a drain on the boundary is laid.
 constexpr double boundary_tolerance_m = 1e-6;
-// Projected coordinates in metres stay within a few times the Earth's circumference.
-constexpr double max_coordinate_m = 1e9;
+using defaults::max_coordinate_m;
 
 void append_ring(const Ring& ring, BPolygon::ring_type& out) {
     for (const auto& p : ring) out.emplace_back(p.x_m, p.y_m);

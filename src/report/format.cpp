@@ -1,15 +1,23 @@
 #include "report/format.hpp"
 
 #include <algorithm>
+#include <charconv>
 #include <cstdio>
 #include <sstream>
+
+#include "wickgrid/errors.hpp"
 
 namespace wickgrid::report {
 
 std::string fixed(double value, int decimals) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
-    std::string text = buffer;
+    // Room for any finite double at up to 16 decimals: a large value is written whole, never cut
+    // at a buffer's end.
+    char buffer[340];
+    const auto r = decimals >= 0 && decimals <= 16
+                       ? std::to_chars(buffer, buffer + sizeof buffer, value, std::chars_format::fixed, decimals)
+                       : std::to_chars_result{buffer, std::errc::value_too_large};
+    if (r.ec != std::errc()) return format_value(value);
+    std::string text(buffer, r.ptr);
     // A value that rounds to zero is shown as 0, not -0.
     if (text[0] == '-' && text.find_first_not_of("-0.") == std::string::npos) text.erase(0, 1);
     return text;

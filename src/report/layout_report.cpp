@@ -11,6 +11,7 @@
 #include "results/bibliography.hpp"
 #include "results/design_record.hpp"
 #include "svg_chart.hpp"
+#include "wickgrid/errors.hpp"
 #include "wickgrid/version.hpp"
 
 namespace wickgrid::report {
@@ -19,9 +20,15 @@ namespace {
 using nlohmann::json;
 
 // Appends a fixed-point number without a locale or a temporary string (100,000 drains per file).
+// The buffer holds any finite double at up to 8 decimals (309 integer digits); a value that is not
+// finite, or a failed conversion, is an error, never bytes of the buffer (files go to contractors).
 void append_fixed(std::string& out, double value, int decimals) {
-    char buffer[48];
+    char buffer[330];
+    if (!std::isfinite(value) || decimals < 0 || decimals > 8)
+        throw EvaluationError("a set-out file", "a coordinate or length is " + format_value(value) + ", not a finite number");
     const auto result = std::to_chars(buffer, buffer + sizeof buffer, value, std::chars_format::fixed, decimals);
+    if (result.ec != std::errc())
+        throw EvaluationError("a set-out file", "the number " + format_value(value) + " could not be written");
     std::string_view text(buffer, static_cast<std::size_t>(result.ptr - buffer));
     if (text.front() == '-' && text.find_first_not_of("-0.") == std::string_view::npos) text.remove_prefix(1);
     out.append(text);

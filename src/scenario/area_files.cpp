@@ -12,6 +12,9 @@
 #include <variant>
 
 #include "csv_table.hpp"
+#include "text_encoding.hpp"
+#include "wickgrid/defaults.hpp"
+#include "wickgrid/errors.hpp"
 
 namespace wickgrid::scenario {
 
@@ -373,6 +376,7 @@ void check_area(const AreaFile& f, const RingPlaces& places) {
 }  // namespace
 
 AreaFile parse_area(const std::string& text, const std::string& file, bool projected_confirmed) {
+    require_utf8(text, file, "area file");
     const auto first = text.find_first_not_of(" \t\r\n");
     AreaFile out;
     RingPlaces places;
@@ -393,8 +397,24 @@ AreaFile parse_area(const std::string& text, const std::string& file, bool proje
 }
 
 AreaFile read_area_file(const std::string& path, bool projected_confirmed) {
-    return parse_area(read_input_file(path, "area file"), path, projected_confirmed);
+    return parse_area(read_input_file(path, "area file"), display_path(path), projected_confirmed);
 }
+
+namespace {
+std::string base_depth_allowed() {
+    return "a depth in metres greater than 0 and at most " + format_value(defaults::max_base_depth_m) +
+           " (from the top of the clay to its base)";
+}
+
+// A borehole coordinate within the bound every projected grid in metres keeps (as the area's).
+double borehole_coordinate(const CsvTable& t, const CsvCell& cell, const std::string& column) {
+    const std::string allowed = "a coordinate in metres of a projected system, within ±10⁹ m";
+    const double v = csv_number(t, cell, column, allowed);
+    if (std::abs(v) > defaults::max_coordinate_m)
+        throw ScenarioError(t.file, cell.mark, column, "'" + cell.text + "' is not allowed: " + allowed);
+    return v;
+}
+}  // namespace
 
 std::vector<layout::BaseDepthPoint> parse_base_depths(const std::string& text, const std::string& file) {
     const CsvTable t = parse_csv(text, file);
@@ -405,11 +425,10 @@ std::vector<layout::BaseDepthPoint> parse_base_depths(const std::string& text, c
     std::vector<layout::BaseDepthPoint> out;
     std::map<std::pair<double, double>, std::pair<double, int>> at;  // position → depth, line
     for (const auto& row : t.rows) {
-        const layout::BaseDepthPoint p{csv_number(t, row[cx], "x_m", "a coordinate in metres"),
-                                       csv_number(t, row[cy], "y_m", "a coordinate in metres"),
-                                       csv_number(t, row[cd], "base_depth_m", "a depth in metres greater than 0")};
-        if (p.depth_m <= 0.0)
-            throw ScenarioError(file, row[cd].mark, "base_depth_m", "'" + row[cd].text + "' must be a depth in metres greater than 0");
+        const layout::BaseDepthPoint p{borehole_coordinate(t, row[cx], "x_m"), borehole_coordinate(t, row[cy], "y_m"),
+                                       csv_number(t, row[cd], "base_depth_m", base_depth_allowed())};
+        if (!(p.depth_m > 0.0 && p.depth_m <= defaults::max_base_depth_m))
+            throw ScenarioError(file, row[cd].mark, "base_depth_m", "'" + row[cd].text + "' is not allowed: " + base_depth_allowed());
         const auto [it, fresh] = at.emplace(std::pair{p.x_m, p.y_m}, std::pair{p.depth_m, row.front().mark.line});
         if (!fresh && it->second.first != p.depth_m)
             throw ScenarioError(file, row.front().mark, "",
@@ -421,7 +440,7 @@ std::vector<layout::BaseDepthPoint> parse_base_depths(const std::string& text, c
 }
 
 std::vector<layout::BaseDepthPoint> read_base_depth_file(const std::string& path) {
-    return parse_base_depths(read_input_file(path, "base depth file"), path);
+    return parse_base_depths(read_input_file(path, "base depth file"), display_path(path));
 }
 
 }  // namespace wickgrid::scenario

@@ -8,6 +8,8 @@
 #include <set>
 #include <sstream>
 
+#include "text_encoding.hpp"
+
 namespace wickgrid::scenario {
 
 namespace {
@@ -96,6 +98,8 @@ std::size_t CsvTable::required_column(const std::string& name) const {
 }
 
 CsvTable parse_csv(const std::string& text, const std::string& file) {
+    // Names in the cells reach JSON, HTML and the terminal: refuse other encodings where they are.
+    require_utf8(text, file, "file");
     Reader r{text, file};
     if (text.rfind("\xEF\xBB\xBF", 0) == 0) r.pos = 3;
     CsvTable table;
@@ -123,15 +127,15 @@ CsvTable parse_csv(const std::string& text, const std::string& file) {
 
 std::string read_input_file(const std::string& path, const std::string& what) {
     std::error_code ec;
-    if (std::filesystem::is_directory(path, ec)) throw ScenarioError(path, {0, 0}, "", "is a folder, not a " + what);
+    if (std::filesystem::is_directory(path, ec)) throw ScenarioError(display_path(path), {0, 0}, "", "is a folder, not a " + what);
     std::ifstream in(path, std::ios::binary);
-    if (!in) throw ScenarioError(path, {0, 0}, "", "cannot open the " + what);
+    if (!in) throw ScenarioError(display_path(path), {0, 0}, "", "cannot open the " + what);
     std::ostringstream text;
     text << in.rdbuf();
     return text.str();
 }
 
-CsvTable read_csv_file(const std::string& path) { return parse_csv(read_input_file(path, "CSV file"), path); }
+CsvTable read_csv_file(const std::string& path) { return parse_csv(read_input_file(path, "CSV file"), display_path(path)); }
 
 double csv_number(const CsvTable& table, const CsvCell& cell, const std::string& column, const std::string& allowed) {
     double value = 0.0;

@@ -5,6 +5,7 @@
 #include <map>
 
 #include "csv_table.hpp"
+#include "text_encoding.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/units.hpp"
 
@@ -21,6 +22,18 @@ void refuse_other_units(const CsvTable& t) {
             throw ScenarioError(t.file, t.header[*c].mark, "",
                                 std::string("the column '") + other +
                                     "' is not read: give settlements in millimetres as 'settlement_mm'");
+}
+
+// A name that will be printed on the terminal and written to CSV, JSON and HTML: no control
+// characters (ESC could rewrite the terminal, CR or NUL break a row).
+void require_printable_name(const CsvTable& t, const CsvCell& cell, const std::string& column) {
+    const std::size_t at = first_control_char(cell.text);
+    if (at == std::string::npos) return;
+    static constexpr char digits[] = "0123456789abcdef";
+    const auto b = static_cast<unsigned char>(cell.text[at]);
+    throw ScenarioError(t.file, cell.mark, column,
+                        std::string("the name holds a control character (byte 0x") + digits[b >> 4] + digits[b & 15] +
+                            "); use printable characters");
 }
 
 void gap_warnings(const ReadingsFile& f, std::vector<std::string>& out) {
@@ -57,6 +70,7 @@ ReadingsFile parse_readings(const std::string& text, const std::string& file) {
     for (const auto& row : t.rows) {
         const std::string& plate = row[cp].text;
         if (plate.empty()) throw ScenarioError(file, row[cp].mark, "plate", "a reading without a plate name");
+        require_printable_name(t, row[cp], "plate");
         const double day = csv_number(t, row[cd], "day", "a day of at least 0 from the start of loading");
         if (day < 0.0)
             throw ScenarioError(file, row[cd].mark, "day", "'" + row[cd].text + "' is before the start of loading (day 0)");
@@ -110,6 +124,7 @@ std::vector<PiezometerRecord> parse_piezometers(const std::string& text, const s
     for (const auto& row : t.rows) {
         const std::string& name = row[cn].text;
         if (name.empty()) throw ScenarioError(file, row[cn].mark, "piezometer", "a reading without a piezometer name");
+        require_printable_name(t, row[cn], "piezometer");
         const double day = csv_number(t, row[cd], "day", "a day of at least 0 from the start of loading");
         if (day < 0.0)
             throw ScenarioError(file, row[cd].mark, "day", "'" + row[cd].text + "' is before the start of loading (day 0)");
@@ -147,11 +162,11 @@ std::vector<PiezometerRecord> parse_piezometers(const std::string& text, const s
 }
 
 std::vector<PiezometerRecord> read_piezometer_file(const std::string& path) {
-    return parse_piezometers(read_input_file(path, "piezometer file"), path);
+    return parse_piezometers(read_input_file(path, "piezometer file"), display_path(path));
 }
 
 ReadingsFile read_readings_file(const std::string& path) {
-    return parse_readings(read_input_file(path, "readings file"), path);
+    return parse_readings(read_input_file(path, "readings file"), display_path(path));
 }
 
 }  // namespace wickgrid::scenario

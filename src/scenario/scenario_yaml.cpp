@@ -11,6 +11,7 @@
 #include "file_digest.hpp"
 #include "plausibility.hpp"
 #include "suggest.hpp"
+#include "text_encoding.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/permeability.hpp"
 #include "wickgrid/cell_model.hpp"
@@ -979,30 +980,6 @@ const DrainEntry& Scenario::drain(const std::string& name) const {
 }
 
 namespace {
-// Offset of the first byte that is not well-formed UTF-8 (RFC 3629), or npos.
-std::size_t first_bad_utf8(const std::string& text) {
-    const auto* p = reinterpret_cast<const unsigned char*>(text.data());
-    const std::size_t n = text.size();
-    for (std::size_t i = 0; i < n;) {
-        const unsigned char c = p[i];
-        std::size_t len = 0;
-        unsigned int min = 0, code = 0;
-        if (c < 0x80) len = 1;
-        else if ((c & 0xE0) == 0xC0) len = 2, min = 0x80, code = c & 0x1F;
-        else if ((c & 0xF0) == 0xE0) len = 3, min = 0x800, code = c & 0x0F;
-        else if ((c & 0xF8) == 0xF0) len = 4, min = 0x10000, code = c & 0x07;
-        else return i;
-        if (i + len > n) return i;
-        for (std::size_t k = 1; k < len; ++k) {
-            if ((p[i + k] & 0xC0) != 0x80) return i;
-            code = (code << 6) | (p[i + k] & 0x3F);
-        }
-        if (len > 1 && (code < min || code > 0x10FFFF || (code >= 0xD800 && code <= 0xDFFF))) return i;
-        i += len;
-    }
-    return std::string::npos;
-}
-
 // The line where a second YAML document starts, if any: a '---' line after content, or content
 // after a '...' line (comments and blank lines are not content).
 std::optional<int> second_document_line(const std::string& text) {
@@ -1031,26 +1008,11 @@ std::optional<int> second_document_line(const std::string& text) {
     return std::nullopt;
 }
 
-// Line and column (in characters) of a byte offset.
-Mark mark_at(const std::string& text, std::size_t offset) {
-    Mark m{1, 1};
-    for (std::size_t i = 0; i < offset; ++i) {
-        const auto c = static_cast<unsigned char>(text[i]);
-        if (c == '\n') m.line++, m.column = 1;
-        else if ((c & 0xC0) != 0x80) m.column++;
-    }
-    return m;
-}
 }  // namespace
 
 Scenario parse_scenario(const std::string& text, const std::string& file_label) {
     // Text must be UTF-8: names and titles reach JSON, HTML, SVG and the terminal.
-    if (const std::size_t bad = first_bad_utf8(text); bad != std::string::npos)
-        throw ScenarioError(file_label, mark_at(text, bad), "",
-                            "the file is not valid UTF-8 here (byte 0x" +
-                                std::string(1, "0123456789abcdef"[static_cast<unsigned char>(text[bad]) >> 4]) +
-                                std::string(1, "0123456789abcdef"[static_cast<unsigned char>(text[bad]) & 15]) +
-                                "); save it as UTF-8");
+    require_utf8(text, file_label, "file");
     // A second document would be silently ignored by YAML::Load. (yaml-cpp's LoadAll is not used:
     // it loops for ever on some inputs, "," among them.) At column 1 a '---' or '...' can only be a
     // document marker, so a line scan finds the second document exactly.
@@ -1074,14 +1036,16 @@ Scenario parse_scenario(const std::string& text, const std::string& file_label) 
 }
 
 Scenario load_scenario(const std::string& path) {
+    // The path is shown (messages, JSON, headings) with any byte that is not UTF-8 escaped.
+    const std::string label = display_path(path);
     std::error_code ec;
     if (std::filesystem::is_directory(path, ec))
-        throw ScenarioError(path, {0, 0}, "", "is a folder, not a scenario file");
+        throw ScenarioError(label, {0, 0}, "", "is a folder, not a scenario file");
     std::ifstream in(path, std::ios::binary);
-    if (!in) throw ScenarioError(path, {0, 0}, "", "cannot open the scenario file");
+    if (!in) throw ScenarioError(label, {0, 0}, "", "cannot open the scenario file");
     std::ostringstream text;
     text << in.rdbuf();
-    return parse_scenario(text.str(), path);
+    return parse_scenario(text.str(), label);
 }
 
 }  // namespace wickgrid::scenario
