@@ -303,6 +303,7 @@ TEST(Cli, BatchOfThreeScenariosGivesThreeFoldersAndASummary) {
         EXPECT_TRUE(fs::exists(out / folder / "design.json")) << folder;
     const auto summary = json::parse(slurp(out / "summary.json"));
     ASSERT_EQ(summary.size(), 3u);
+    for (const auto& row : summary) EXPECT_EQ(row.at("cautions").size(), 4u);
     // Each summary row is its scenario's own recommended design.
     const auto single = json::parse(run("design " + source("configs/staged-surcharge.yaml") + " --json").out);
     for (const auto& d : single["designs"])

@@ -220,5 +220,40 @@ TEST(LayoutCommand, BadInputsExitWithTheirCodes) {
     EXPECT_EQ(slurp(dir / "layout.csv"), slurp(source("demo/zone-c-boreholes.csv")));
 }
 
+
+// `layout` checks the spacing laid against the design of the same scenario, product and pattern
+// (the row `design` shows) and states U at the deadline for the spacing laid.
+TEST(LayoutCommand, ChecksTheSpacingAgainstTheDesign) {
+    const std::string demo = source("demo/scenario.yaml");
+    const auto design = run("design " + demo + " --json");
+    ASSERT_EQ(design.exit_code, 0) << design.err;
+    const auto d = nlohmann::json::parse(design.out);
+    nlohmann::json row;
+    for (const auto& r : d.at("designs"))
+        if (r.at("drain") == "band-100x4" && r.at("pattern") == "triangular") row = r;
+    ASSERT_FALSE(row.is_null());
+    const std::string area = " --area " + source("demo/zone-c-area.geojson") + " --drain band-100x4 --pattern triangular";
+    const auto within = run("layout " + demo + area + " --spacing " + row.at("spacing_m").dump() + " --json");
+    ASSERT_EQ(within.exit_code, 0) << within.err;
+    const auto w = nlohmann::json::parse(within.out).at("design_check");
+    EXPECT_TRUE(w.at("within_limit").get<bool>());
+    EXPECT_DOUBLE_EQ(w.at("spacing_limit_m").get<double>(), row.at("spacing_limit_m").get<double>());
+    EXPECT_DOUBLE_EQ(w.at("degree_at_deadline").get<double>(), row.at("degree").get<double>());
+    EXPECT_TRUE(w.at("deepest_borehole_base_m").is_null());
+    // Wider than the limit, over boreholes deeper than the designed clay: both named.
+    const auto wide = run("layout " + demo + area + " --spacing 2.5 --base-depths " + source("demo/zone-c-boreholes.csv") +
+                          " --json");
+    ASSERT_EQ(wide.exit_code, 0) << wide.err;
+    const auto doc = nlohmann::json::parse(wide.out);
+    EXPECT_FALSE(doc.at("design_check").at("within_limit").get<bool>());
+    EXPECT_LT(doc.at("design_check").at("degree_at_deadline").get<double>(), 0.9);
+    EXPECT_DOUBLE_EQ(doc.at("design_check").at("deepest_borehole_base_m").get<double>(), 15.1);  // BH-C2
+    std::string warnings;
+    for (const auto& x : doc.at("warnings")) warnings += x.get<std::string>() + "\n";
+    EXPECT_NE(warnings.find("exceeds the design's limit"), std::string::npos) << warnings;
+    EXPECT_NE(warnings.find("1.10 m deeper than the 14.00 m designed"), std::string::npos) << warnings;
+    EXPECT_NE(wide.err.find("exceeds the design's limit"), std::string::npos) << wide.err;
+}
+
 }  // namespace
 }  // namespace wickgrid::scenario

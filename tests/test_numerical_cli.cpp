@@ -65,6 +65,28 @@ TEST(NumericalMethod, VerifyReportsDifferencesAndWarns) {
     EXPECT_NE(strict.out.find("WARNING"), std::string::npos);
 }
 
+// On a surcharged job `verify` names the cause of each difference by when it happens: after the
+// removal (the design holds settlement, the reference swells) or while loading; and gives the largest
+// difference up to the removal, where the two models compare like with like.
+TEST(NumericalMethod, VerifyNamesTheCauseByTheLoadHistory) {
+    const CommandRun r = run("verify " + source("configs/staged-surcharge.yaml") + " --json --radial-cells 16 --vertical-cells 24");
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const json doc = json::parse(r.out);
+    for (const auto& row : doc["rows"]) {
+        EXPECT_DOUBLE_EQ(row["unloading_day"].get<double>(), 250.0);  // the surcharge's removal_day
+        EXPECT_LE(row["max_difference_while_loading"].get<double>(), row["max_difference"].get<double>());
+        const bool after = row["at_day"].get<double>() > 250.0;
+        EXPECT_EQ(row["cause"].get<std::string>().find(after ? "after the unloading on day 250" : "while loading"), 0u)
+            << row["cause"] << " at day " << row["at_day"];
+    }
+    const CommandRun demo = run("verify " + source("demo/scenario.yaml") + " --json --radial-cells 10 --vertical-cells 20");
+    ASSERT_EQ(demo.exit_code, 0) << demo.err;
+    for (const auto& row : json::parse(demo.out)["rows"]) {
+        EXPECT_TRUE(row["unloading_day"].is_null());
+        EXPECT_DOUBLE_EQ(row["max_difference_while_loading"].get<double>(), row["max_difference"].get<double>());
+    }
+}
+
 TEST(NumericalMethod, ScenarioErrorsNameTheMethod) {
     const std::string demo = slurp(source("demo/scenario.yaml"));
     struct Row {

@@ -9,6 +9,7 @@
 #include "cli_helpers.hpp"
 #include "scenario/scenario.hpp"
 #include "wickgrid/cell_model.hpp"
+#include "wickgrid/design.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/stages.hpp"
 #include "wickgrid/units.hpp"
@@ -152,7 +153,46 @@ TEST(StagesSite, SecondaryCompressionByHand) {
             EXPECT_GT(e.mark().line, 0) << e.what();
         }
     }
-    // The surcharge that also offsets secondary compression is larger, and reaches primary plus the offset.
+}
+
+// Secondary compression after a surcharge, by hand from Bjerrum's (1967) time lines (secondary.hpp):
+// one layer 10 m thick, γ = 16 kN/m³, water at the top, so σ′v0 = (16 − 9.81)·5 = 30.95 kPa at
+// mid-layer; 60 kPa permanent; Cc = 0.6, Cr = 0.06, Cα = 0.03, so the ageing exponent is
+// (0.6 − 0.06)/0.03 = 18 and 0.12 m of creep per log cycle. With U the cell's degree at removal
+// (relative to the permanent load), OCR = (30.95 + 60·U)/90.95 and te = tr·OCR^18; creep from t1 to
+// t2 after removal is 0.12·log10((te + t2 − tr)/(te + t1 − tr)).
+namespace {
+const std::string permanent_stage = "    - {start_day: 0, pressure_kPa: 60}\n";
+}  // namespace
+
+TEST(StagesSite, SecondaryCompressionAfterASurchargeByHand) {
+    std::string text = creeping(", c_alpha: 0.03", "service_days: 7300, ");
+    text.replace(text.find(permanent_stage), permanent_stage.size(),
+                 "    - {start_day: 0, pressure_kPa: 60}\n  surcharge: {start_day: 0, pressure_kPa: 80, removal_day: 150}\n");
+    const auto s = scenario::parse_scenario(text, "c.yaml");
+    const auto model = make_cell_model(s.site, s.site.products.front(), Pattern::triangular, 1.2);
+    const double tr = units::days_to_seconds(150.0), t = units::days_to_seconds(200.0), period = units::days_to_seconds(7300.0);
+    const double u = model->degree(tr);
+    ASSERT_GT(u, 1.0) << "the surcharge must over-compress for the check to mean anything";
+    const double sigma0 = (16.0 - units::gamma_w_kN_per_m3) * 5.0;
+    const double ocr = (sigma0 + 60.0 * u) / (sigma0 + 60.0);
+    const double te = tr * std::pow(ocr, 18.0);
+    const double by_hand = 0.12 * std::log10((te + t + period - tr) / (te + t - tr));
+    const auto parts = model->residual_parts(t, period);
+    EXPECT_NEAR(parts.secondary_m, by_hand, 1e-9);
+    EXPECT_NEAR(parts.total_m(), model->residual_m(t, period), 1e-12);
+    // Less creep than without the surcharge's over-consolidation (the plain law from tp).
+    const auto tp = model->end_of_primary_s();
+    ASSERT_TRUE(tp.has_value());
+    EXPECT_LT(parts.secondary_m, 0.12 * std::log10((t + period) / t));
+    // The design row shows the same split, and the parts add up to the residual.
+    const auto row = design_row(s.site, s.site.products.front(), Pattern::triangular);
+    ASSERT_TRUE(row.residual_primary_m && row.residual_secondary_m && row.residual_settlement_m);
+    EXPECT_NEAR(*row.residual_primary_m + *row.residual_secondary_m, *row.residual_settlement_m, 1e-12);
+}
+
+// A surcharge sized by --offset-secondary meets the residual limit in the design's own model.
+TEST(StagesCommand, SurchargeSizedForCreepMeetsTheResidualLimit) {
     const auto file = write_case(creeping(", c_alpha: 0.03", "service_days: 7300, "));
     const std::string args = "surcharge " + file.string() + " --drain d --pattern triangular --spacing 2.0 --removal-day 150 --json";
     const auto primary_only = run(args), offset = run(args + " --offset-secondary");
@@ -161,8 +201,26 @@ TEST(StagesSite, SecondaryCompressionByHand) {
     const auto a = nlohmann::json::parse(primary_only.out), b = nlohmann::json::parse(offset.out);
     EXPECT_GT(b["secondary_offset_mm"].get<double>(), 0.0);
     EXPECT_GT(b["surcharge_kPa"].get<double>(), a["surcharge_kPa"].get<double>());
-    EXPECT_NEAR(b["settlement_at_removal_mm"].get<double>(),
-                b["final_settlement_mm"].get<double>() + b["secondary_offset_mm"].get<double>(), 1e-3);
+    EXPECT_NEAR(b["residual_settlement_mm"].get<double>(), 100.0, 1.0);
+    EXPECT_NEAR(b["residual_primary_mm"].get<double>() + b["residual_secondary_mm"].get<double>(),
+                b["residual_settlement_mm"].get<double>(), 1e-6);
+    // The sized surcharge in the scenario: the design's cell at that spacing meets the limit within 1 mm.
+    std::string text = creeping(", c_alpha: 0.03", "service_days: 7300, ");
+    text.replace(text.find(permanent_stage), permanent_stage.size(),
+                 "    - {start_day: 0, pressure_kPa: 60}\n  surcharge: {start_day: 0, removal_day: 150, pressure_kPa: " +
+                     std::to_string(b["surcharge_kPa"].get<double>()) + "}\n");
+    const auto s = scenario::parse_scenario(text, "c.yaml");
+    const auto model = make_cell_model(s.site, s.site.products.front(), Pattern::triangular, 2.0);
+    const double residual_mm = 1000.0 * model->residual_m(units::days_to_seconds(200.0), units::days_to_seconds(7300.0));
+    EXPECT_NEAR(residual_mm, 100.0, 1.0);
+    // Without a residual criterion there is no limit to size for: a named usage error.
+    std::string degree = creeping(", c_alpha: 0.03", "");
+    degree.replace(degree.find("residual_settlement_mm: 100, "), 29, "degree: 0.9, ");
+    const auto refused = run("surcharge " + write_case(degree).string() +
+                             " --drain d --pattern triangular --spacing 2.0 --removal-day 150 --offset-secondary");
+    EXPECT_EQ(refused.exit_code, 2) << refused.err;
+    EXPECT_NE(refused.err.find("--offset-secondary"), std::string::npos) << refused.err;
+    EXPECT_NE(refused.err.find("target.residual_settlement_mm"), std::string::npos) << refused.err;
 }
 
 TEST(StagesCommand, JsonKeepsTheContractAndTheChartAgreesWithTheTable) {
@@ -170,7 +228,9 @@ TEST(StagesCommand, JsonKeepsTheContractAndTheChartAgreesWithTheTable) {
     ASSERT_LE(r.exit_code, 1) << r.err;
     const auto doc = nlohmann::json::parse(r.out);
     EXPECT_DOUBLE_EQ(doc.at("target_factor_of_safety").get<double>(), 1.3);
-    ASSERT_EQ(doc.at("stages").size(), 4u);
+    // Four lifts and the finished-level top-up, checked as a stage of its own.
+    ASSERT_EQ(doc.at("stages").size(), 5u);
+    EXPECT_EQ(doc.at("fill_to_finish").at("top_up_stage").get<int>(), 5);
     for (const auto& st : doc.at("stages")) {
         for (const char* key : {"stage", "start_day", "height_m", "factor_of_safety", "earliest_next_start_day"})
             EXPECT_TRUE(st.contains(key)) << key;
@@ -194,13 +254,67 @@ TEST(StagesCommand, PlanStartsEachStageAtTheEarliestDayAndMeetsTheTarget) {
     ASSERT_EQ(r.exit_code, 0) << r.err << r.out;
     const auto doc = nlohmann::json::parse(r.out);
     const auto& st = doc.at("stages");
-    ASSERT_EQ(st.size(), 4u);
+    ASSERT_EQ(st.size(), 5u);
     EXPECT_TRUE(doc.at("planned").get<bool>());
     for (std::size_t i = 0; i < st.size(); ++i) {
         EXPECT_GE(st[i].at("factor_of_safety").get<double>(), 1.3);
         if (i > 0) {
             EXPECT_DOUBLE_EQ(st[i].at("start_day").get<double>(), st[i - 1].at("earliest_next_start_day").get<double>());
         }
+    }
+}
+
+// The plan of the works: the top-up that `stages` places is the load `design` consolidates and
+// settles under (one plan, resolved with the scenario).
+TEST(StagesCommand, TheTopUpIsWhatDesignConsolidates) {
+    const auto st = run("stages " + source(staged) + " --json"), de = run("design " + source(staged) + " --json");
+    ASSERT_LE(st.exit_code, 1) << st.err;
+    ASSERT_EQ(de.exit_code, 0) << de.err;
+    const auto s = nlohmann::json::parse(st.out), d = nlohmann::json::parse(de.out);
+    const auto& finish = s.at("fill_to_finish");
+    const double gamma = 19.0;  // the config's fill unit weight
+    // The fill standing after the top-up is the whole load of the plan, as a height (load / γ) ...
+    EXPECT_NEAR(s.at("stages").back().at("height_m").get<double>() * gamma, finish.at("load_kPa").get<double>(), 1e-9);
+    // ... the thickness placed is finished level plus settlement ...
+    EXPECT_NEAR(finish.at("scheduled_height_m").get<double>() + finish.at("top_up_height_m").get<double>(),
+                finish.at("placed_height_m").get<double>(), 1e-9);
+    EXPECT_GT(finish.at("top_up_height_m").get<double>(), 0.0);
+    // ... and design's final settlement under the plan's permanent load is the settlement the fill
+    // to finish was solved for (its root tolerance, 1e-6 m).
+    for (const auto& row : d.at("designs"))
+        EXPECT_NEAR(row.at("ultimate_settlement_mm").get<double>(), 1000.0 * finish.at("final_settlement_m").get<double>(),
+                    1e-3);
+}
+
+// A top-up after the surcharge is removed goes on at the removal day, after the surcharge's check.
+TEST(StagesCommand, TopUpAfterSurchargeRemovalFollowsTheRemoval) {
+    std::string text = edited_copy(staged, "    - {start_day: 150, end_day: 160, height_m: 1.0}\n",
+                                   "    - {start_day: 150, end_day: 160, height_m: 1.0}\n"
+                                   "  surcharge: {start_day: 170, end_day: 175, height_m: 1.0, removal_day: 300}\n");
+    text = text.replace(text.find("finished_height_m: 5.0"), 22, "finished_height_m: 5.0\n  top_up: after_surcharge_removal");
+    const auto s = scenario::parse_scenario(text, "case.yaml");
+    ASSERT_TRUE(s.top_up && s.top_up->stage);
+    const LoadStage& top = s.site.loading->stages[*s.top_up->stage];
+    EXPECT_DOUBLE_EQ(units::seconds_to_days(top.start_s), 300.0);
+    const auto file = write_case(text);
+    const auto r = run("stages " + file.string() + " --json");
+    ASSERT_LE(r.exit_code, 1) << r.err;
+    const auto doc = nlohmann::json::parse(r.out);
+    const auto& st = doc.at("stages");
+    ASSERT_EQ(st.size(), 6u);
+    EXPECT_TRUE(st[4].at("surcharge").get<bool>());
+    EXPECT_FALSE(st[5].at("surcharge").get<bool>());
+    EXPECT_DOUBLE_EQ(st[5].at("start_day").get<double>(), 300.0);
+    // The surcharge is off when the top-up is checked: the fill standing is the permanent load.
+    EXPECT_NEAR(st[5].at("height_m").get<double>() * 19.0, doc.at("fill_to_finish").at("load_kPa").get<double>(), 1e-9);
+    // Without a surcharge the rule is refused at its key.
+    std::string bad = edited_copy(staged, "finished_height_m: 5.0", "finished_height_m: 5.0\n  top_up: after_surcharge_removal");
+    try {
+        scenario::parse_scenario(bad, "case.yaml");
+        ADD_FAILURE() << "accepted";
+    } catch (const scenario::ScenarioError& e) {
+        EXPECT_EQ(e.key_path(), "embankment.top_up") << e.what();
+        EXPECT_GT(e.mark().line, 0);
     }
 }
 
@@ -248,4 +362,27 @@ TEST(StagesCommand, BadInputIsNamedAndLocated) {
     EXPECT_EQ(missing.exit_code, 2);
     EXPECT_NE(missing.err.find("clay.layers[1]"), std::string::npos) << missing.err;
     EXPECT_NE(missing.err.find(":12:"), std::string::npos) << missing.err;  // the layer's line
+}
+
+// `monitor` counts creep as `design` does: readings made from the design's own cell give back the
+// design's residual, primary and secondary, at the deadline.
+TEST(StagesCommand, MonitorForecastCountsCreepAsDesignDoes) {
+    const std::string text = creeping(", c_alpha: 0.03", "service_days: 7300, ");
+    const auto s = scenario::parse_scenario(text, "c.yaml");
+    const auto model = make_cell_model(s.site, s.site.products.front(), Pattern::triangular, 2.0);
+    const double day = units::days_to_seconds(1.0);
+    std::string csv = "plate,day,settlement_mm\n";
+    for (int d = 5; d <= 150; d += 5) csv += "SP1," + std::to_string(d) + "," + std::to_string(1000.0 * *model->settlement_m(d * day)) + "\n";
+    const fs::path file = write_case(text);
+    std::ofstream(file.parent_path() / "plates.csv") << csv;
+    const auto r = run("monitor " + file.string() + " --readings " + (file.parent_path() / "plates.csv").string() +
+                       " --drain d --pattern triangular --spacing 2.0 --json");
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const auto doc = nlohmann::json::parse(r.out);
+    const auto& f = doc.at("plates").at(0).at("forecast");
+    const auto parts = model->residual_parts(s.site.criterion.deadline_s, units::days_to_seconds(7300.0));
+    EXPECT_GT(parts.secondary_m, 0.01);
+    EXPECT_NEAR(f.at("residual_secondary_mm").get<double>(), 1000.0 * parts.secondary_m, 0.5);
+    EXPECT_NEAR(f.at("residual_primary_mm").get<double>(), 1000.0 * parts.primary_m, 1.0);
+    EXPECT_NEAR(f.at("residual_at_deadline_mm").get<double>(), 1000.0 * parts.total_m(), 1.5);
 }

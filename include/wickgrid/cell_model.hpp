@@ -10,6 +10,7 @@
 #include <string_view>
 #include <vector>
 
+#include "wickgrid/secondary.hpp"
 #include "wickgrid/site.hpp"
 
 namespace wickgrid {
@@ -71,14 +72,25 @@ public:
     // Settlement (m) at a time: U × final settlement; nullopt without a settlement model.
     std::optional<double> settlement_m(double time_s) const;
     // Settlement still to come after time_s: until time_s + period, or to the end (period absent):
-    // primary, plus secondary compression over the period where the site gives Cα. Throws
-    // InputError without a settlement model, or with secondary compression and no period (it does
-    // not end).
-    double residual_m(double time_s, std::optional<double> period_s) const;
+    // primary, plus secondary compression over the period where the site gives Cα (secondary.hpp:
+    // reduced after a surcharge is removed). Throws InputError without a settlement model, or with
+    // secondary compression and no period (it does not end).
+    struct Residual {
+        double primary_m = 0.0;
+        double secondary_m = 0.0;
+        double total_m() const { return primary_m + secondary_m; }
+    };
+    Residual residual_parts(double time_s, std::optional<double> period_s) const;
+    double residual_m(double time_s, std::optional<double> period_s) const { return residual_parts(time_s, period_s).total_m(); }
     // Secondary compression (m) from the end of primary (the time U reaches
-    // defaults::end_of_primary_degree) to time_s: Σ Cα/(1 + e0)·H·log10(t/tp); 0 before tp, without
-    // Cα, or when tp is beyond the search horizon. Cost: one time-to-degree root.
+    // defaults::end_of_primary_degree) to time_s, by the site's creep model (secondary.hpp); 0
+    // before tp, without Cα, or when tp is beyond the search horizon. Cost: one time-to-degree root
+    // (and one degree at the surcharge removal).
     double secondary_m(double time_s) const;
+    // Secondary compression (m) between two times (from ≤ to), same model.
+    double secondary_between_m(double from_s, double to_s) const;
+    // The creep model (nullopt without Cα).
+    const std::optional<SecondaryModel>& secondary_model() const noexcept { return secondary_; }
     // The end of primary consolidation (s); nullopt when not reached within the search horizon.
     std::optional<double> end_of_primary_s() const { return time_to_degree_s(defaults::end_of_primary_degree); }
     // How far the criterion is met at the deadline: >= 0 when met (degree − target, or limit − residual).
@@ -88,16 +100,19 @@ public:
 
 protected:
     CellModel(const CellFigures& figures, std::optional<double> final_m,
-              std::optional<double> secondary_per_cycle_m = std::nullopt)
-        : figures_(figures), final_m_(final_m), secondary_per_cycle_m_(secondary_per_cycle_m) {}
+              std::optional<SecondaryModel> secondary = std::nullopt)
+        : figures_(figures), final_m_(final_m), secondary_(std::move(secondary)) {}
 
 private:
-    // Secondary compression between two times given the end of primary tp (0 without tp or Cα).
-    double secondary_between(double from_s, double to_s, std::optional<double> tp) const;
+    // Secondary compression between two times given the end of primary tp (0 without tp or Cα) and
+    // the degree at the surcharge removal.
+    double secondary_between(double from_s, double to_s, std::optional<double> tp, double u_removal) const;
+    // The degree at the surcharge removal (1 without a removal): sets the over-consolidation left.
+    double degree_at_removal() const;
 
     CellFigures figures_;
     std::optional<double> final_m_;
-    std::optional<double> secondary_per_cycle_m_;  // Σ Cα/(1 + e0)·H, m per log cycle
+    std::optional<SecondaryModel> secondary_;
 };
 
 // The cell model of the site's method for one product × pattern × spacing. Throws InputError for

@@ -31,6 +31,8 @@ struct DesignRow {
     std::optional<double> ultimate_settlement_m;
     std::optional<double> settlement_at_deadline_m;
     std::optional<double> residual_settlement_m;  // after the deadline, over the service period if any
+    std::optional<double> residual_primary_m;     // its primary part
+    std::optional<double> residual_secondary_m;   // its secondary part (secondary.hpp)
     // Primary settlement still to come after the service period (residual criterion with a period).
     std::optional<double> settlement_after_service_m;
     std::vector<std::string> warnings;

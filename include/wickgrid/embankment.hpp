@@ -24,6 +24,11 @@ struct Berm {
     double height_m = 0.0;
 };
 
+// When the finished-level top-up goes on (stages.hpp: fill to a finished level): as a lift of its own
+// right after the last scheduled lift, or once the surcharge is removed (it then takes the
+// surcharge's place on the section). Either way at the last lift's rate of placing.
+enum class TopUpRule { with_last_lift, after_surcharge_removal };
+
 struct EmbankmentSection {
     double crest_width_m = 0.0;             // >= 0 (0: a pointed crest)
     double side_slope_h_per_v = 0.0;        // >= 0 (0: vertical sides)
@@ -34,6 +39,7 @@ struct EmbankmentSection {
     // The fill surface's design level above the original ground once primary settlement is over
     // (optional; stages.hpp: fill to a finished level).
     std::optional<double> finished_height_m;
+    TopUpRule top_up = TopUpRule::with_last_lift;
     // The section's full fill height (its crest level above the original ground); absent: the
     // permanent stages' total (site.hpp: final_fill_height_m). A surcharge rises above it with the
     // same slopes.

@@ -81,7 +81,11 @@ struct Forecast {
     double degree_now = 0.0;
     double settlement_now_m = 0.0;
     std::optional<double> criterion_met_s;       // first time the criterion holds (absent: not in 100 years)
-    std::optional<double> residual_at_deadline_m;  // S × (degree still to come after the deadline)
+    // Still to come after the deadline: S × (degree to come) plus, over a service period, the site's
+    // secondary compression by the same model as `design` (secondary.hpp); and its two parts.
+    std::optional<double> residual_at_deadline_m;
+    std::optional<double> residual_primary_at_deadline_m;
+    std::optional<double> residual_secondary_at_deadline_m;
     std::optional<double> surcharge_removal_s;   // first time U ≥ 1 before the planned removal
 };
 Forecast forecast(const CellModel& model, double final_settlement_m, const Site& site, double now_s);

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "wickgrid/design.hpp"
+#include "wickgrid/embankment.hpp"
 #include "wickgrid/studies.hpp"
 
 namespace wickgrid {
@@ -67,6 +68,9 @@ inline constexpr std::array study_input_labels{
     Named<StudyInput>{StudyInput::discharge_capacity_factor, "factor on each product's qw"},
     Named<StudyInput>{StudyInput::ch_factor, "factor on the ch of every clay layer"},
     Named<StudyInput>{StudyInput::cv_factor, "factor on the cv of every clay layer"}};
+
+inline constexpr std::array top_up_names{Named<TopUpRule>{TopUpRule::with_last_lift, "with_last_lift"},
+                                          Named<TopUpRule>{TopUpRule::after_surcharge_removal, "after_surcharge_removal"}};
 
 inline constexpr std::array distribution_names{Named<DistributionKind>{DistributionKind::normal, "normal"},
                                                Named<DistributionKind>{DistributionKind::lognormal, "lognormal"},

@@ -2,11 +2,11 @@
 // Surcharge design by the classic preloading criterion: at removal, the settlement under the
 // permanent load plus surcharge equals the final primary settlement under the permanent load
 // alone (Johnson 1970, from memory as the usual reference). Rebound on removal is ignored. With
-// offset_secondary_service_s, the surcharge also offsets secondary compression: the settlement at
-// removal equals the final primary settlement plus the secondary compression under the permanent
-// load from the end of primary to removal + service period (the extension of the same criterion
-// that Johnson 1970 discusses; common practice), so that the settlement left after removal over
-// the service life is compensated in advance.
+// offset_secondary, the surcharge is sized instead against the site's residual criterion by the
+// very model `design` evaluates: the primary settlement still to come after the deadline plus the
+// secondary compression over the service period, reduced by the over-consolidation the surcharge
+// leaves (secondary.hpp, Bjerrum 1967), equals the limit; so a design of the sized surcharge meets
+// the criterion it was sized for.
 #include "wickgrid/cell_model.hpp"
 
 namespace wickgrid {
@@ -19,7 +19,10 @@ struct SurchargeResult {
     double final_m = 0.0;                  // final primary settlement under the permanent load
     double settlement_at_removal_m = 0.0;  // under permanent + surcharge, at removal
     bool needed = true;                    // false: the permanent load alone reaches final by removal
-    double secondary_offset_m = 0.0;       // secondary compression offset (0 unless asked)
+    // With offset_secondary: the secondary compression over the service period that the surcharge
+    // removes (without it − with it), and the residual at the deadline with it, split.
+    double secondary_offset_m = 0.0;
+    std::optional<CellModel::Residual> residual;
 };
 
 // One drain product × pattern × spacing on a site; every settlement comes from the site's cell model
@@ -29,11 +32,14 @@ struct SurchargeCell {
     const DrainProductSpec& product;
     Pattern pattern;
     double spacing_m;
-    std::optional<double> offset_secondary_service_s = std::nullopt;  // service period after removal (s)
+    // Size against the site's residual criterion (deadline, service period, limit), secondary
+    // compression included; the site must give one.
+    bool offset_secondary = false;
 };
 
 // The surcharge pressure for removal at timing.removal_s (timing.pressure_kPa is ignored). Throws
-// InputError without a settlement model, EvaluationError when no surcharge below 5000 kPa does it.
+// InputError without a settlement model (or, offsetting secondary compression, without a residual
+// criterion with a service period), EvaluationError when no surcharge below 5000 kPa does it.
 SurchargeResult surcharge_for_removal(const SurchargeCell& cell, const Surcharge& timing);
 
 // The removal time for the surcharge given in timing (timing.removal_s is ignored). Throws

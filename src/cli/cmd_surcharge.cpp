@@ -47,32 +47,36 @@ Runner add_surcharge(CLI::App& app) {
     cmd->add_option("--max-height", o->max_height_m, "Warn when the surcharge fill exceeds this height (m)")
         ->check(positive_number());
     cmd->add_flag("--offset-secondary", o->offset_secondary,
-                  "Also offset the secondary compression (layers' c_alpha) up to the end of the service life after removal");
+                  "Size the surcharge against the residual limit (target.residual_settlement_mm), primary plus the "
+                  "secondary compression (c_alpha) over the service period, reduced by the surcharge's over-consolidation");
     cmd->add_option("--service-days", o->service_days,
-                    "Service life after removal for --offset-secondary (default: target.service_days)")
+                    "Service period after the deadline for --offset-secondary (default: target.service_days)")
         ->check(positive_number());
     cmd->add_flag("--json", o->json, "JSON on stdout");
     return [o] {
         return run_each(o->files, {o->json, false}, [&](const BatchItem& item) {
             const std::string& file = item.file;
             const auto s = load_scenario_warned(file);
-            const Site& site = s.site;
+            Site site = s.site;
             if (!site.loading) s.fail_at("loading", "surcharge design needs a 'loading' block with the permanent stages");
             if (!site.has_settlement())
                 s.fail_at("clay", "surcharge design needs a settlement model: 'clay.layers' or 'clay.mv_m2_per_kN'");
             const Pattern pattern = pattern_option(o->pattern);
             model_from_options(s, o->drain, pattern, o->spacing_m);  // the spacing, checked against --spacing
-            SurchargeCell cell{site, site.product(s.drain(o->drain).name), pattern, o->spacing_m};
             if (o->service_days && !o->offset_secondary)
                 throw UsageError("--service-days", "goes with --offset-secondary only");
             if (o->offset_secondary) {
                 if (!secondary_per_cycle_m(site))
                     throw UsageError("--offset-secondary", "needs 'c_alpha' or 'c_alpha_over_cc' in at least one clay layer");
-                const auto* residual = site.criterion.residual();
-                if (o->service_days) cell.offset_secondary_service_s = units::days_to_seconds(*o->service_days);
-                else if (residual && residual->service_s) cell.offset_secondary_service_s = residual->service_s;
-                else throw UsageError("--offset-secondary", "needs --service-days or 'target.service_days' (the service life)");
+                auto* residual = std::get_if<ResidualSettlementLimit>(&site.criterion.rule);
+                if (!residual)
+                    throw UsageError("--offset-secondary", "needs 'target.residual_settlement_mm' (the limit the surcharge "
+                                                           "is sized for, counted from the deadline)");
+                if (o->service_days) residual->service_s = units::days_to_seconds(*o->service_days);
+                if (!residual->service_s)
+                    throw UsageError("--offset-secondary", "needs --service-days or 'target.service_days' (the service period)");
             }
+            SurchargeCell cell{site, site.product(s.drain(o->drain).name), pattern, o->spacing_m, o->offset_secondary};
             const auto& drain = s.drain(o->drain);
             Surcharge timing;
             if (site.loading->surcharge) {
@@ -111,6 +115,9 @@ Runner add_surcharge(CLI::App& app) {
                          {"method", std::string(to_string(site.method.method))},
                          {"offset_secondary", o->offset_secondary},
                          {"secondary_offset_mm", result.secondary_offset_m * 1000.0},
+                         {"residual_primary_mm", result.residual ? json(result.residual->primary_m * 1000.0) : json(nullptr)},
+                         {"residual_secondary_mm", result.residual ? json(result.residual->secondary_m * 1000.0) : json(nullptr)},
+                         {"residual_settlement_mm", result.residual ? json(result.residual->total_m() * 1000.0) : json(nullptr)},
                          {"ignores", o->offset_secondary ? json::array({ignores[1], ignores[2]})
                                                          : json::array({ignores[0], ignores[1], ignores[2]})},
                          {"cautions", results::cautions()}};
@@ -121,22 +128,33 @@ Runner add_surcharge(CLI::App& app) {
             out << s.title << "\ndrain " << drain.name << ", " << o->pattern << " pattern at " << report::fixed(o->spacing_m, 2)
                 << " m\n\n";
             if (!result.needed)
-                out << "No surcharge is needed: the permanent load alone reaches its final primary settlement ("
-                    << report::fixed(result.final_m * 1000.0, 0) << " mm"
-                    << (o->offset_secondary ? " plus the secondary offset of " + report::fixed(result.secondary_offset_m * 1000.0, 0) + " mm"
-                                            : std::string())
-                    << ") by day " << report::fixed(units::seconds_to_days(result.removal_s), 0) << ".\n";
+                out << (o->offset_secondary
+                            ? std::string("No surcharge is needed: the permanent load alone meets the residual limit.\n")
+                            : "No surcharge is needed: the permanent load alone reaches its final primary settlement (" +
+                                  report::fixed(result.final_m * 1000.0, 0) + " mm) by day " +
+                                  report::fixed(units::seconds_to_days(result.removal_s), 0) + ".\n");
             else
                 out << "Surcharge " << report::fixed(result.pressure_kPa, 1) << " kPa"
                     << (height ? " (" + report::fixed(*height, 2) + " m of fill)" : std::string()) << ", placed from day "
                     << report::fixed(units::seconds_to_days(result.start_s), 0) << " to day "
                     << report::fixed(units::seconds_to_days(result.end_s), 0) << ", removed at day "
                     << report::fixed(units::seconds_to_days(result.removal_s), 1) << ": settlement at removal "
-                    << report::fixed(result.settlement_at_removal_m * 1000.0, 0) << " mm = final primary settlement under the permanent load"
-                    << (o->offset_secondary ? " (" + report::fixed(result.final_m * 1000.0, 0) + " mm) plus the secondary compression to the end of the service life (" +
-                                                  report::fixed(result.secondary_offset_m * 1000.0, 0) + " mm)"
-                                            : std::string())
+                    << report::fixed(result.settlement_at_removal_m * 1000.0, 0) << " mm"
+                    << (o->offset_secondary ? std::string(" (final primary under the permanent load ") +
+                                                  report::fixed(result.final_m * 1000.0, 0) + " mm)"
+                                            : std::string(" = final primary settlement under the permanent load"))
                     << ".\n";
+            if (result.residual) {
+                const auto* r = site.criterion.residual();
+                out << "Residual after day " << report::fixed(units::seconds_to_days(site.criterion.deadline_s), 0)
+                    << " over " << report::fixed(units::seconds_to_days(*r->service_s), 0) << " days: "
+                    << report::fixed(result.residual->total_m() * 1000.0, 0) << " mm (primary "
+                    << report::fixed(result.residual->primary_m * 1000.0, 0) << " mm, secondary "
+                    << report::fixed(result.residual->secondary_m * 1000.0, 0) << " mm) against the limit of "
+                    << report::fixed(r->limit_m * 1000.0, 0) << " mm; the surcharge removes "
+                    << report::fixed(result.secondary_offset_m * 1000.0, 0)
+                    << " mm of secondary compression (the over-consolidation it leaves, Bjerrum 1967).\n";
+            }
             if (exceeds) out << "WARNING: the surcharge height exceeds the limit of " << report::fixed(*limit, 2) << " m.\n";
             if (o->offset_secondary) out << "The method ignores " << ignores[1] << " and " << ignores[2] << ".\n";
             else out << "The method ignores " << ignores[0] << ", " << ignores[1] << " and " << ignores[2] << ".\n";

@@ -62,30 +62,32 @@ std::optional<double> CellModel::settlement_m(double time_s) const {
     return *final_m_ * degree(time_s);
 }
 
-double CellModel::residual_m(double time_s, std::optional<double> period_s) const {
+CellModel::Residual CellModel::residual_parts(double time_s, std::optional<double> period_s) const {
     if (!final_m_) throw InputError("residual settlement", time_s, "asked of a site with a settlement model");
     if (period_s) {
         const auto u = combined({time_s, time_s + *period_s});
-        const double secondary =
-            secondary_per_cycle_m_ ? secondary_between(time_s, time_s + *period_s, end_of_primary_s()) : 0.0;
-        return *final_m_ * (u[1] - u[0]) + secondary;
+        return {*final_m_ * (u[1] - u[0]), secondary_between_m(time_s, time_s + *period_s)};
     }
-    if (secondary_per_cycle_m_)
-        throw InputError("service period (days)", 0.0, "given with secondary compression (it does not end)");
-    return *final_m_ * (eventual_degree() - degree(time_s));
+    if (secondary_)
+        throw InputError("service period (days)", time_s, "given with secondary compression (it does not end)");
+    return {*final_m_ * (eventual_degree() - degree(time_s)), 0.0};
 }
 
-double CellModel::secondary_between(double from_s, double to_s, std::optional<double> tp) const {
-    if (!secondary_per_cycle_m_ || !tp) return 0.0;
-    const auto cycles = [&](double t) { return t > *tp ? std::log10(t / *tp) : 0.0; };
-    return *secondary_per_cycle_m_ * (cycles(to_s) - cycles(from_s));
+double CellModel::degree_at_removal() const {
+    return secondary_ && secondary_->removal_s ? degree(*secondary_->removal_s) : 1.0;
 }
 
-double CellModel::secondary_m(double time_s) const {
-    if (!secondary_per_cycle_m_) return 0.0;
-    const auto tp = end_of_primary_s();
-    return tp && time_s > *tp ? *secondary_per_cycle_m_ * std::log10(time_s / *tp) : 0.0;
+double CellModel::secondary_between(double from_s, double to_s, std::optional<double> tp, double u_removal) const {
+    if (!secondary_ || !tp) return 0.0;
+    return wickgrid::secondary_between_m(*secondary_, from_s, to_s, tp, u_removal);
 }
+
+double CellModel::secondary_between_m(double from_s, double to_s) const {
+    if (!secondary_) return 0.0;
+    return secondary_between(from_s, to_s, end_of_primary_s(), degree_at_removal());
+}
+
+double CellModel::secondary_m(double time_s) const { return secondary_between_m(0.0, time_s); }
 
 double CellModel::margin(const Criterion& criterion) const {
     if (const auto* d = criterion.degree()) return degree(criterion.deadline_s) - d->degree;
@@ -107,10 +109,11 @@ std::optional<double> CellModel::time_criterion_met_s(const Criterion& criterion
     const auto u = combined(all);
     auto at = [&](double t) { return u[static_cast<std::size_t>(std::lower_bound(all.begin(), all.end(), t) - all.begin())]; };
     const double final_m = *final_settlement_m();
-    const std::optional<double> tp = secondary_per_cycle_m_ ? end_of_primary_s() : std::nullopt;
+    const std::optional<double> tp = secondary_ ? end_of_primary_s() : std::nullopt;
+    const double u_removal = degree_at_removal();
     for (std::size_t i = 0; i < times.size(); ++i) {
         const double end = r->service_s ? at(times[i] + *r->service_s) : eventual_degree();
-        const double secondary = r->service_s ? secondary_between(times[i], times[i] + *r->service_s, tp) : 0.0;
+        const double secondary = r->service_s ? secondary_between(times[i], times[i] + *r->service_s, tp, u_removal) : 0.0;
         if (final_m * (end - at(times[i])) + secondary <= r->limit_m)
             return bisect_time(met, i ? times[i - 1] : 0.0, times[i]);
     }

@@ -31,7 +31,7 @@ public:
         : CellModel(figures_of(cell), std::nullopt), cell_(std::move(cell)) {}
 
     ClosedFormModel(const Site& site, UnitCell cell, std::optional<double> final_m)
-        : CellModel(figures_of(cell), final_m, secondary_per_cycle_m(site)), cell_(std::move(cell)) {
+        : CellModel(figures_of(cell), final_m, wickgrid::secondary_model(site)), cell_(std::move(cell)) {
         const auto ultimate = ultimate_settlement_function(site);
         const LoadHistory loads = site.load_history();
         const UnitCell* c = &cell_;

@@ -32,7 +32,7 @@ std::optional<LayeredCell> vertical_of(NumericalCellSpec spec, RadialTheory theo
 class LayeredModel final : public CellModel {
 public:
     LayeredModel(const NumericalCellSpec& spec, RadialTheory theory, int terms, LayeredCell cell,
-                 std::optional<double> final_m, std::optional<double> secondary)
+                 std::optional<double> final_m, std::optional<SecondaryModel> secondary)
         : CellModel(figures_of(spec, cell), final_m, secondary), spec_(spec), theory_(theory), terms_(terms), cell_(std::move(cell)) {}
 
     // Uv needs the series without a drain: built here, when degrees are asked, so that the searches
@@ -92,7 +92,7 @@ std::function<double(double)> layered_margin_function(const Site& site, const Dr
     const RadialTheory theory = site.installation.theory;
     const int terms = site.method.series_terms;
     const Criterion criterion = site.criterion;
-    const std::optional<double> secondary = secondary_per_cycle_m(site);
+    const std::optional<SecondaryModel> secondary = wickgrid::secondary_model(site);
     // With a settlement model and fill the final settlement does not depend on spacing either.
     const bool settles = site.has_settlement();
     const bool fill = settles && site.loading->permanent_kPa() > 0.0;
@@ -115,7 +115,7 @@ std::unique_ptr<CellModel> make_layered_model(const Site& site, const DrainProdu
     const int terms = site.method.series_terms;
     LayeredCell cell(spec, theory, terms);
     const auto final_m = final_settlement(site, ultimate_settlement_function(site), cell);
-    return std::make_unique<LayeredModel>(spec, theory, terms, std::move(cell), final_m, secondary_per_cycle_m(site));
+    return std::make_unique<LayeredModel>(spec, theory, terms, std::move(cell), final_m, wickgrid::secondary_model(site));
 }
 
 }  // namespace wickgrid::detail

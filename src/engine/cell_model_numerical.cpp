@@ -75,7 +75,7 @@ class NumericalModel final : public CellModel {
 public:
     NumericalModel(const Site& site, const NumericalCellSpec& spec, double spacing_m,
                    std::optional<double> final_m)
-        : CellModel(figures_of(site, spec, spacing_m), final_m, secondary_per_cycle_m(site)),
+        : CellModel(figures_of(site, spec, spacing_m), final_m, wickgrid::secondary_model(site)),
           cell_(spec, site.method.mesh),
           vertical_(without_drain(spec), site.method.mesh) {}
 

@@ -37,7 +37,13 @@ void settlement_columns(const Site& site, const CellModel& model, DesignRow& row
     const std::optional<double> period = residual ? residual->service_s : std::nullopt;
     row.ultimate_settlement_m = final_m;
     row.settlement_at_deadline_m = model.settlement_m(deadline);
-    row.residual_settlement_m = model.residual_m(deadline, period);
+    // Without a period and with Cα the residual does not end: shown only where it is defined.
+    if (period || !model.secondary_model()) {
+        const auto parts = model.residual_parts(deadline, period);
+        row.residual_settlement_m = parts.total_m();
+        row.residual_primary_m = parts.primary_m;
+        row.residual_secondary_m = parts.secondary_m;
+    }
     if (!residual || !residual->service_s) return;
     const double end = deadline + *residual->service_s;
     row.settlement_after_service_m = *final_m * (model.eventual_degree() - model.degree(end));

@@ -126,18 +126,24 @@ Forecast forecast(const CellModel& model, double final_settlement_m, const Site&
     f.settlement_now_m = final_settlement_m * f.degree_now;
     const Criterion& c = site.criterion;
     const double horizon = units::days_to_seconds(defaults::search_horizon_years * units::days_per_year);
-    auto residual_degree = [&](double t) {
+    // Primary with the fitted S; secondary compression over a service period, as `design` counts it
+    // (without a period it does not end and is not added).
+    auto residual = [&](double t) -> std::pair<double, double> {
         if (const auto* r = c.residual(); r && r->service_s) {
             const auto u = model.combined({t, t + *r->service_s});
-            return u[1] - u[0];
+            return {final_settlement_m * (u[1] - u[0]), model.secondary_between_m(t, t + *r->service_s)};
         }
-        return model.eventual_degree() - model.degree(t);
+        return {final_settlement_m * (model.eventual_degree() - model.degree(t)), 0.0};
     };
-    f.residual_at_deadline_m = final_settlement_m * residual_degree(c.deadline_s);
+    const auto [primary, secondary] = residual(c.deadline_s);
+    f.residual_primary_at_deadline_m = primary;
+    f.residual_secondary_at_deadline_m = secondary;
+    f.residual_at_deadline_m = primary + secondary;
     if (const auto* d = c.degree()) f.criterion_met_s = model.time_to_degree_s(d->degree);
     else
         f.criterion_met_s = first_time(0.0, horizon, 400, [&](double t) {
-            return final_settlement_m * residual_degree(t) <= c.residual()->limit_m;
+            const auto [p, s] = residual(t);
+            return p + s <= c.residual()->limit_m;
         });
     if (site.loading && site.loading->surcharge) {
         const auto& s = *site.loading->surcharge;

@@ -20,15 +20,23 @@ struct Placement {
     double removal_gap_s;  // surcharge: removal − end
 };
 
+// The stages in order of placing: the permanent stages by start, the surcharge after those that
+// start before its removal, and a stage that starts once it is off (a top-up after removal) after it.
 std::vector<Placement> placements(const LoadHistory& h) {
     std::vector<Placement> out;
     for (const LoadStage& s : h.stages) out.push_back({s.start_s, s.end_s, s.pressure_kPa, false, 0.0});
     std::stable_sort(out.begin(), out.end(), [](const Placement& a, const Placement& b) { return a.start_s < b.start_s; });
-    if (h.surcharge)
-        out.push_back({h.surcharge->start_s, h.surcharge->end_s, h.surcharge->pressure_kPa, true,
-                       h.surcharge->removal_s - h.surcharge->end_s});
+    if (h.surcharge) {
+        const auto after = std::find_if(out.begin(), out.end(), [&](const Placement& p) { return p.start_s >= h.surcharge->removal_s; });
+        out.insert(after, {h.surcharge->start_s, h.surcharge->end_s, h.surcharge->pressure_kPa, true,
+                           h.surcharge->removal_s - h.surcharge->end_s});
+    }
     return out;
 }
+
+// When the next stage may start at the earliest: after this one is placed, or, after the
+// surcharge, once it is removed.
+double next_from_s(const Placement& p) { return p.surcharge ? p.end_s + p.removal_gap_s : p.end_s; }
 
 LoadHistory history_of(const std::vector<Placement>& placed) {
     LoadHistory h;
@@ -108,7 +116,6 @@ StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern
     out.target_factor_of_safety = section.target_factor_of_safety;
     out.planned = plan;
     std::vector<Placement> placed;
-    double height = 0.0;
     for (std::size_t i = 0; i < all.size(); ++i) {
         Placement p = all[i];
         if (plan && i > 0) {
@@ -119,13 +126,14 @@ StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern
             p.end_s = p.start_s + duration;
         }
         placed.push_back(p);
-        height += p.pressure_kPa / section.fill_unit_weight_kN_per_m3;
+        // The fill standing once it is placed (a surcharge removed before it no longer counts).
+        const double height = history_of(placed).applied_at_kPa(p.end_s) / section.fill_unit_weight_kN_per_m3;
         const StageState st = state_at(site, product, pattern, spacing_m, history_of(placed), p.end_s);
         StageCheck check{static_cast<int>(i + 1), p.surcharge, p.start_s, p.end_s, height, st.factor_of_safety,
                          st.critical, st.settlement_m, std::nullopt, true};
         if (i + 1 < all.size()) {
-            check.earliest_next_start_s = earliest_start(site, product, pattern, spacing_m, placed, all[i + 1], p.end_s,
-                                                         section.target_factor_of_safety);
+            check.earliest_next_start_s = earliest_start(site, product, pattern, spacing_m, placed, all[i + 1],
+                                                         next_from_s(p), section.target_factor_of_safety);
             check.next_reachable = check.earliest_next_start_s.has_value();
         }
         out.stages.push_back(check);

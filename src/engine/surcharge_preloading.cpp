@@ -28,16 +28,28 @@ double loaded_settlement(const SurchargeCell& c, const Surcharge& sur, double t)
 
 void check(const SurchargeCell& c, const Surcharge& timing) {
     if (!c.site.has_settlement())
-        throw InputError("settlement model", 0.0, "a loading with clay layers or mv, for surcharge design");
+        throw InputError("settlement model", timing.pressure_kPa, "a loading with clay layers or mv, for surcharge design");
     require_non_negative("surcharge start (s)", timing.start_s);
     require_at_least("surcharge end (s)", timing.end_s, timing.start_s, "at least the surcharge start");
+    if (c.offset_secondary) {
+        const auto* r = c.site.criterion.residual();
+        if (!r || !r->service_s)
+            throw InputError("target.service_days", 0.0,
+                             "given with target.residual_settlement_mm: offsetting secondary compression sizes the "
+                             "surcharge against the residual limit over the service period");
+    }
 }
 
-// What the settlement at removal time t must reach: the final primary settlement, plus the
-// secondary compression to t + service when asked.
-double target_at(const SurchargeCell& c, const CellModel& permanent, double t) {
-    const double primary = *permanent.final_settlement_m();
-    return c.offset_secondary_service_s ? primary + permanent.secondary_m(t + *c.offset_secondary_service_s) : primary;
+// Offsetting secondary compression: the design's criterion margin (limit − residual, primary and
+// secondary) with the surcharge in the plan; it grows with the surcharge.
+double residual_margin(const SurchargeCell& c, const Surcharge& sur) { return model_with(c, sur)->margin(c.site.criterion); }
+
+// The residual split and the creep the surcharge removes, for the result.
+void describe_residual(const SurchargeCell& c, const Surcharge& sur, const CellModel& permanent, SurchargeResult& out) {
+    const auto* r = c.site.criterion.residual();
+    const double t = c.site.criterion.deadline_s;
+    out.residual = model_with(c, sur)->residual_parts(t, r->service_s);
+    out.secondary_offset_m = permanent.residual_parts(t, r->service_s).secondary_m - out.residual->secondary_m;
 }
 
 template <class F>
@@ -52,20 +64,27 @@ double root(const char* what, F&& f, double lo, double hi) {
 SurchargeResult surcharge_for_removal(const SurchargeCell& c, const Surcharge& timing) {
     check(c, timing);
     require_greater("surcharge removal (s)", timing.removal_s, timing.end_s, "after the surcharge is complete");
-    SurchargeResult out{0.0, timing.start_s, timing.end_s, timing.removal_s, 0.0, 0.0, true};
+    SurchargeResult out{0.0, timing.start_s, timing.end_s, timing.removal_s, 0.0, 0.0, true, 0.0, std::nullopt};
     const auto permanent = model_with(c, std::nullopt);
     out.final_m = *permanent->final_settlement_m();
-    const double target = target_at(c, *permanent, timing.removal_s);
-    out.secondary_offset_m = target - out.final_m;
-    auto gap = [&](double q) {
+    const double target = out.final_m;
+    const auto with_pressure = [&](double q) {
         Surcharge s = timing;
         s.pressure_kPa = q;
-        return loaded_settlement(c, s, timing.removal_s) - target;
+        return s;
+    };
+    auto gap = [&](double q) {
+        if (c.offset_secondary) return residual_margin(c, with_pressure(q));
+        return loaded_settlement(c, with_pressure(q), timing.removal_s) - target;
     };
     const double without = *permanent->settlement_m(timing.removal_s);
-    if (without >= target) {
+    if (c.offset_secondary ? permanent->margin(c.site.criterion) >= 0.0 : without >= target) {
         out.needed = false;
         out.settlement_at_removal_m = without;
+        if (c.offset_secondary) {
+            const auto* r = c.site.criterion.residual();
+            out.residual = permanent->residual_parts(c.site.criterion.deadline_s, r->service_s);
+        }
         return out;
     }
     double hi = 10.0;
@@ -76,36 +95,53 @@ SurchargeResult surcharge_for_removal(const SurchargeCell& c, const Surcharge& t
                                   "no surcharge below 5000 kPa reaches the final settlement by then; remove it later");
     }
     out.pressure_kPa = root("surcharge pressure", gap, 1e-9, hi);
-    out.settlement_at_removal_m = target + gap(out.pressure_kPa);
+    out.settlement_at_removal_m = loaded_settlement(c, with_pressure(out.pressure_kPa), timing.removal_s);
+    if (c.offset_secondary) describe_residual(c, with_pressure(out.pressure_kPa), *permanent, out);
     return out;
 }
 
 SurchargeResult removal_for_surcharge(const SurchargeCell& c, const Surcharge& timing) {
     check(c, timing);
     require_positive("surcharge pressure (kPa)", timing.pressure_kPa);
-    SurchargeResult out{timing.pressure_kPa, timing.start_s, timing.end_s, timing.end_s, 0.0, 0.0, true};
+    SurchargeResult out{timing.pressure_kPa, timing.start_s, timing.end_s, timing.end_s, 0.0, 0.0, true, 0.0, std::nullopt};
     const auto permanent = model_with(c, std::nullopt);
     out.final_m = *permanent->final_settlement_m();
-    auto gap = [&](double t) { return loaded_settlement(c, timing, t) - target_at(c, *permanent, t); };
+    const auto removed_at = [&](double t) {
+        Surcharge s = timing;
+        s.removal_s = t;
+        return s;
+    };
+    auto gap = [&](double t) {
+        if (c.offset_secondary) return residual_margin(c, removed_at(t));
+        return loaded_settlement(c, timing, t) - out.final_m;
+    };
     const double earliest = std::max(timing.end_s, c.site.loading->end_of_construction_s());
-    if (gap(earliest) >= 0.0) {
-        out.removal_s = earliest;
-        out.secondary_offset_m = target_at(c, *permanent, earliest) - out.final_m;
-        out.settlement_at_removal_m = out.final_m + out.secondary_offset_m + gap(earliest);
+    if (c.offset_secondary && earliest >= c.site.criterion.deadline_s)
+        throw EvaluationError("removal day for a surcharge of " + format_value(timing.pressure_kPa) + " kPa",
+                              "the surcharge is not in place before the deadline, from which the residual is counted");
+    const auto finish = [&](double t) {
+        out.removal_s = t;
+        out.settlement_at_removal_m = loaded_settlement(c, timing, t);
+        if (c.offset_secondary) describe_residual(c, removed_at(t), *permanent, out);
         return out;
-    }
-    double hi = earliest + units::seconds_per_day;
+    };
+    if (gap(earliest) >= 0.0) return finish(earliest);
+    // Offsetting secondary compression, the surcharge must be off by the deadline (the residual is
+    // counted from it); otherwise the search runs to the horizon.
+    const double latest = c.offset_secondary ? c.site.criterion.deadline_s
+                                             : defaults::search_horizon_years * units::seconds_per_year;
+    double hi = std::min(latest, earliest + units::seconds_per_day);
     while (gap(hi) < 0.0) {
-        hi = earliest + 2.0 * (hi - earliest);
-        if (hi > defaults::search_horizon_years * units::seconds_per_year)
+        if (hi >= latest)
             throw EvaluationError("removal day for a surcharge of " + format_value(timing.pressure_kPa) + " kPa",
-                                  "the final settlement is not reached within " +
-                                      format_value(defaults::search_horizon_years) + " years; a larger surcharge is needed");
+                                  c.offset_secondary
+                                      ? "no removal by the deadline meets the residual limit; a larger surcharge is needed"
+                                      : "the final settlement is not reached within " +
+                                            format_value(defaults::search_horizon_years) +
+                                            " years; a larger surcharge is needed");
+        hi = std::min(latest, earliest + 2.0 * (hi - earliest));
     }
-    out.removal_s = root("surcharge removal day", gap, earliest, hi);
-    out.secondary_offset_m = target_at(c, *permanent, out.removal_s) - out.final_m;
-    out.settlement_at_removal_m = out.final_m + out.secondary_offset_m + gap(out.removal_s);
-    return out;
+    return finish(root("surcharge removal day", gap, earliest, hi));
 }
 
 }  // namespace wickgrid

@@ -62,6 +62,9 @@ std::vector<Column> all_design_columns(const Site& site) {
         {"settlement_at_deadline_mm", "s deadline", "mm", 0, 1.0, [](Row r) { return mm(r.settlement_at_deadline_m); },
          {}, "-"},
         {"residual_settlement_mm", "residual", "mm", 0, 1.0, [](Row r) { return mm(r.residual_settlement_m); }, {}, "-"},
+        {"residual_primary_mm", "res. primary", "mm", 0, 1.0, [](Row r) { return mm(r.residual_primary_m); }, {}, "-"},
+        {"residual_secondary_mm", "res. secondary", "mm", 0, 1.0, [](Row r) { return mm(r.residual_secondary_m); }, {},
+         "-"},
         {"settlement_after_service_mm", "after service", "mm", 0, 1.0,
          [](Row r) { return mm(r.settlement_after_service_m); }, {}, "-"},
     };
@@ -76,7 +79,8 @@ std::vector<Column> shown_design_columns(const results::DesignRecord& record) {
     for (auto& c : all_design_columns(record.site())) {
         if (c.key == "spacing_m" || c.key == "equivalent_diameter_m" || c.key == "smear_diameter_m" || c.key == "mu_smear")
             continue;
-        if ((c.key == "cost_per_hectare" || c.key.find("settlement") != std::string::npos) && !any(c)) continue;
+        const bool settlement = c.key.find("settlement") != std::string::npos || c.key.rfind("residual_", 0) == 0;
+        if ((c.key == "cost_per_hectare" || settlement) && !any(c)) continue;
         out.push_back(std::move(c));
     }
     return out;

@@ -129,6 +129,8 @@ json design_summary_row(const results::DesignRecord& record) {
     row["degree"] = best ? json(best->at_deadline.combined) : json(nullptr);
     row["time_to_target_days"] = best && best->time_to_target_s ? json(days(*best->time_to_target_s)) : json(nullptr);
     row["cost_per_hectare"] = best && best->cost_per_hectare ? json(*best->cost_per_hectare) : json(nullptr);
+    // A summary handed on alone still carries the cautions.
+    row["cautions"] = string_array(results::cautions());
     return row;
 }
 

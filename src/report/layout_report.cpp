@@ -69,6 +69,13 @@ std::vector<std::pair<std::string, std::string>> summary_rows(const results::Lay
         {"coordinate system", r.request.area.crs_name.value_or("not named in the area file")},
     };
     if (r.drain_cost) rows.emplace_back("drain cost (length × cost per m)", fixed(*r.drain_cost, 0));
+    const auto& c = r.design_check;
+    rows.emplace_back("design's spacing limit (m)",
+                      c.spacing_limit_m ? fixed(*c.spacing_limit_m, 3) + (c.limited_by_maximum ? " (range maximum)" : "")
+                                        : std::string("none in range"));
+    rows.emplace_back("laid spacing within the design's limit", c.within_limit ? "yes" : "NO");
+    rows.emplace_back("U at the deadline at the laid spacing (%)", fixed(100.0 * c.degree_at_deadline, 1));
+    if (c.residual_m) rows.emplace_back("residual settlement at the laid spacing (mm)", fixed(*c.residual_m * 1000.0, 0));
     return rows;
 }
 
@@ -145,6 +152,14 @@ json layout_json(const results::LayoutRecord& r) {
              {"drain_cost", r.drain_cost ? json(*r.drain_cost) : json(nullptr)},
              {"drains", std::move(drains)},
              {"warnings", string_list(r.warnings)},
+             {"design_check", {{"spacing_limit_m", r.design_check.spacing_limit_m ? json(*r.design_check.spacing_limit_m) : json(nullptr)},
+                               {"limited_by_max_spacing", r.design_check.limited_by_maximum},
+                               {"spacing_m", r.design_check.spacing_m},
+                               {"within_limit", r.design_check.within_limit},
+                               {"degree_at_deadline", r.design_check.degree_at_deadline},
+                               {"residual_settlement_mm", r.design_check.residual_m ? json(*r.design_check.residual_m * 1000.0) : json(nullptr)},
+                               {"designed_clay_thickness_m", r.design_check.designed_clay_m},
+                               {"deepest_borehole_base_m", r.design_check.deepest_base_m ? json(*r.design_check.deepest_base_m) : json(nullptr)}}},
              {"assumptions", string_list(r.assumptions)},
              {"cautions", string_list(results::cautions())}};
     add_title_block(out, *r.scenario);

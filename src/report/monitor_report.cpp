@@ -23,6 +23,10 @@ json forecast_json(const monitoring::Forecast& f, bool with_settlement) {
              {"surcharge_removal_day", f.surcharge_removal_s ? json(days(*f.surcharge_removal_s)) : json(nullptr)}};
     out["settlement_now_mm"] = with_settlement ? json(f.settlement_now_m * 1000.0) : json(nullptr);
     out["residual_at_deadline_mm"] = with_settlement && f.residual_at_deadline_m ? json(*f.residual_at_deadline_m * 1000.0) : json(nullptr);
+    out["residual_primary_mm"] =
+        with_settlement && f.residual_primary_at_deadline_m ? json(*f.residual_primary_at_deadline_m * 1000.0) : json(nullptr);
+    out["residual_secondary_mm"] =
+        with_settlement && f.residual_secondary_at_deadline_m ? json(*f.residual_secondary_at_deadline_m * 1000.0) : json(nullptr);
     return out;
 }
 

@@ -82,7 +82,12 @@ nlohmann::json stages_json(const scenario::Scenario& s, const results::StageReco
                                                 {"final_settlement_m", r.finish->final_settlement_m},
                                                 {"submerged_m", r.finish->submerged_m},
                                                 {"load_kPa", r.finish->load_kPa},
-                                                {"last_stage_placed_m", *r.last_stage_placed_m}}
+                                                {"scheduled_height_m", r.top_up->scheduled_height_m},
+                                                {"last_stage_placed_m", r.top_up->height_m},
+                                                {"top_up_height_m", r.top_up->height_m},
+                                                {"top_up_load_kPa", r.top_up->load_kPa},
+                                                {"top_up_rule", std::string(name_of(top_up_names, r.top_up->rule))},
+                                                {"top_up_stage", r.top_up->stage ? json(*r.top_up->stage + 1) : json(nullptr)}}
                                          : json(nullptr)},
              {"coordinates", "x across the section from its centre line, y up from the top of the clay (m)"},
              {"assumptions", r.assumptions},
@@ -90,6 +95,19 @@ nlohmann::json stages_json(const scenario::Scenario& s, const results::StageReco
     add_title_block(out, s);
     return out;
 }
+
+namespace {
+// What the planned top-up adds, in words.
+std::string top_up_words(const results::StageRecord& r) {
+    const auto& t = *r.top_up;
+    if (!t.stage) return "the stages already place " + fixed(t.scheduled_height_m, 2) + " m, so no top-up is planned";
+    return "the stages place " + fixed(t.scheduled_height_m, 2) + " m and a top-up lift (stage " +
+           std::to_string(*t.stage + 1) + ", " +
+           (t.rule == TopUpRule::with_last_lift ? "after the last lift" : "after the surcharge is removed") + ") places " +
+           fixed(t.height_m, 2) + " m (its load " + fixed(t.load_kPa, 1) +
+           " kPa: fill settled below the groundwater table weighs γ − γw, so the table's fill height, load / γ, is less)";
+}
+}  // namespace
 
 std::string stage_summary(const results::StageRecord& r) {
     std::ostringstream o;
@@ -101,7 +119,7 @@ std::string stage_summary(const results::StageRecord& r) {
         o << " To finish " << fixed(r.finish->finished_height_m, 2) << " m above the original ground after primary "
           << "settlement, " << fixed(r.finish->placed_height_m, 2) << " m of fill is placed in all (final settlement "
           << fixed(r.finish->final_settlement_m, 2) << " m, " << fixed(r.finish->submerged_m, 2)
-          << " m of it below the groundwater table); the last stage places " << fixed(*r.last_stage_placed_m, 2) << " m.";
+          << " m of it below the groundwater table); " << top_up_words(r) << ".";
     return o.str();
 }
 
@@ -121,8 +139,7 @@ std::string stages_table(const scenario::Scenario& s, const results::StageRecord
           << "place " << fixed(r.finish->placed_height_m, 2) << " m of fill in all (final settlement "
           << fixed(r.finish->final_settlement_m, 2) << " m, of which " << fixed(r.finish->submerged_m, 2)
           << " m below the groundwater table weighing γ − γw; load " << fixed(r.finish->load_kPa, 1)
-          << " kPa); the last stage places " << fixed(*r.last_stage_placed_m, 2)
-          << " m. Stages are checked at their scheduled heights.\n";
+          << " kPa); " << top_up_words(r) << ". The top-up is loaded, settled and checked as a stage of its own.\n";
     o << (results::stages_meet_target(r) ? "Every stage meets the target factor of safety.\n"
                                          : "WARNING: a stage does not meet the target factor of safety.\n");
     o << "\nAssumptions:\n";

@@ -242,16 +242,28 @@ std::vector<std::string> assumptions(const Site& site) {
     }
     else
         out.push_back("No settlement model: degrees only.");
-    if (secondary_per_cycle_m(site))
+    const bool creep = secondary_per_cycle_m(site).has_value();
+    if (creep) {
+        std::string layers;
+        const auto& p = *site.ground.profile;
+        for (std::size_t i = 0; i < p.layers.size(); ++i)
+            if (p.layers[i].c_alpha)
+                layers += (layers.empty() ? "" : ", ") + std::string("layer ") + std::to_string(i + 1) + " Cα " +
+                          fixed(*p.layers[i].c_alpha, 4);
         out.push_back("Secondary compression Σ Cα/(1 + e0)·H·log10(t/tp) from the end of primary tp (the time the unit "
                       "cell reaches an average degree of " + fixed(100.0 * defaults::end_of_primary_degree, 0) +
-                      " %), counted in the residual settlement; Cα is not reduced by the over-consolidation a surcharge "
-                      "leaves.");
+                      " %), counted in the residual settlement and shown apart from the primary part (" + layers + ").");
+        if (site.loading && site.loading->surcharge)
+            out.push_back("After the surcharge is removed, each layer creeps from the equivalent age tr·OCR^((Cc − Cr)/Cα) "
+                          "that the over-consolidation left by the surcharge gives it (Bjerrum 1967's time lines; OCR at "
+                          "mid-layer from the unit cell's degree at removal), not from the end of primary.");
+    }
     if (const auto* r = site.criterion.residual())
         out.push_back(r->service_s ? "Residual settlement counted over the " + fixed(days(*r->service_s), 0) +
                                          "-day service period after the deadline only."
                                    : "Residual settlement counted to the end of primary consolidation.");
-    out.push_back("Linear, small-strain consolidation with constant coefficients; no secondary compression or creep.");
+    out.push_back(creep ? "Linear, small-strain primary consolidation with constant coefficients; creep as stated above."
+                        : "Linear, small-strain consolidation with constant coefficients; no secondary compression or creep.");
     return out;
 }
 
@@ -351,6 +363,7 @@ std::vector<std::string> reference_keys(const DesignRecord& record) {
     if (record.studies.monte_carlo) add("clopper_pearson1934");
     if (site.embankment) add("osterberg1957");
     if (secondary_per_cycle_m(site)) add("mesri_godlewski1977");
+    if (secondary_per_cycle_m(site) && site.loading && site.loading->surcharge) add("bjerrum1967");
     if (record.stages) {
         for (const char* key : {"bishop1955", "ladd_foott1974", "whitman_bailey1967"}) add(key);
         for (const auto& layer : site.ground.profile->layers)

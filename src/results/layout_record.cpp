@@ -4,7 +4,10 @@
 #include <cmath>
 
 #include "report/format.hpp"
+#include "wickgrid/cell_model.hpp"
 #include "wickgrid/defaults.hpp"
+#include "wickgrid/design.hpp"
+#include "wickgrid/names.hpp"
 
 namespace wickgrid::results {
 
@@ -13,6 +16,8 @@ using report::fixed;
 
 // Drain lengths that depart from the design's by more than this are worth a second design check.
 constexpr double length_spread_to_warn = 0.10;
+// A borehole base deeper than the designed clay by more than this is named (survey precision).
+constexpr double length_tolerance_m = 0.01;
 
 std::vector<std::string> layout_assumptions(const LayoutRecord& r) {
     const auto& q = r.request;
@@ -38,8 +43,39 @@ std::vector<std::string> layout_assumptions(const LayoutRecord& r) {
     return out;
 }
 
+LayoutDesignCheck check_design(const scenario::Scenario& s, const DrainProductSpec& product, const LayoutRequest& q) {
+    const Site& site = s.site;
+    LayoutDesignCheck c;
+    const DesignRow row = design_row(site, product, q.pattern);
+    if (row.feasible) c.spacing_limit_m = row.spacing_limit_m;
+    c.limited_by_maximum = row.limited_by_maximum;
+    c.spacing_m = q.spacing_m;
+    // Within the limit up to the search tolerance; beyond the range's maximum the design says nothing.
+    c.within_limit = row.feasible && (row.limited_by_maximum ? q.spacing_m <= site.range.bounds.max_m
+                                                             : q.spacing_m <= row.spacing_limit_m + defaults::spacing_tolerance_m);
+    const auto model = make_cell_model(site, product, q.pattern, q.spacing_m);
+    c.degree_at_deadline = model->degree(site.criterion.deadline_s);
+    if (const auto* r = site.criterion.residual()) c.residual_m = model->residual_m(site.criterion.deadline_s, r->service_s);
+    c.designed_clay_m = site.ground.thickness_m;
+    for (const auto& b : q.base_points) c.deepest_base_m = std::max(c.deepest_base_m.value_or(0.0), b.depth_m);
+    return c;
+}
+
 std::vector<std::string> layout_warnings(const LayoutRecord& r) {
     std::vector<std::string> out;
+    const auto& c = r.design_check;
+    if (!c.within_limit)
+        out.push_back(c.spacing_limit_m
+                          ? "The laid spacing, " + fixed(c.spacing_m, 3) + " m, exceeds the design's limit for " + r.drain_name +
+                                " in a " + std::string(to_string(r.request.pattern)) + " pattern, " +
+                                fixed(*c.spacing_limit_m, 3) + " m: the criterion is not met at the deadline."
+                          : "No spacing in the scenario's range meets the criterion for " + r.drain_name + " in a " +
+                                std::string(to_string(r.request.pattern)) + " pattern; the laid spacing does not either.");
+    if (c.deepest_base_m && *c.deepest_base_m > c.designed_clay_m + length_tolerance_m)
+        out.push_back("The boreholes show the clay base down to " + fixed(*c.deepest_base_m, 2) + " m, " +
+                      fixed(*c.deepest_base_m - c.designed_clay_m, 2) + " m deeper than the " + fixed(c.designed_clay_m, 2) +
+                      " m designed: drain lengths and the degree at the deadline there differ from the design; design "
+                      "for the thickest clay.");
     const auto& l = r.layout;
     if (l.drains_outside_base_points > 0)
         out.push_back(std::to_string(l.drains_outside_base_points) + " of " + std::to_string(l.drains.size()) +
@@ -69,6 +105,7 @@ LayoutRecord layout_record(const scenario::Scenario& s, LayoutRequest request) {
     r.shortest_m = lo->length_m;
     r.longest_m = hi->length_m;
     if (product.cost_per_m) r.drain_cost = *product.cost_per_m * r.layout.total_length_m;
+    r.design_check = check_design(s, product, request);
     r.request = std::move(request);
     r.assumptions = layout_assumptions(r);
     r.warnings = s.input_warnings;

@@ -49,12 +49,10 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
         charted.loading = r.plan.schedule;
         charted.embankment->height_m = final_fill_height_m(site);
     }
-    if (r.section.finished_height_m) {
-        r.finish = fill_to_finish(site, r.section.fill_unit_weight_kN_per_m3, *r.section.finished_height_m);
-        const double scheduled = site.loading->permanent_kPa() / r.section.fill_unit_weight_kN_per_m3;
-        const auto last_stage = std::max_element(site.loading->stages.begin(), site.loading->stages.end(),
-                                                 [](const LoadStage& a, const LoadStage& b) { return a.start_s < b.start_s; });
-        r.last_stage_placed_m = last_stage->pressure_kPa / r.section.fill_unit_weight_kN_per_m3 + (r.finish->placed_height_m - scheduled);
+    // The top-up was planned once with the scenario (a lift of its own in the stages checked here).
+    if (s.top_up) {
+        r.finish = s.top_up->finish;
+        r.top_up = s.top_up;
     }
     double last = site.criterion.deadline_s;
     for (const StageCheck& c : r.plan.stages) last = std::max(last, c.end_s);

@@ -23,10 +23,10 @@ struct StageRecord {
     double clay_thickness_m = 0.0;
     std::vector<double> layer_bottoms_m;
     std::vector<std::string> assumptions;
-    // With embankment.finished_height_m: the fill to place in all, and the last permanent stage's
-    // placed height once it tops the fill up to that (the stages are checked at their scheduled heights).
+    // With embankment.finished_height_m: the fill to place in all, and the top-up lift the scenario
+    // planned for it (checked here as a stage of its own).
     std::optional<FillToFinish> finish;
-    std::optional<double> last_stage_placed_m;
+    std::optional<scenario::TopUpPlan> top_up;
 };
 
 // Whether the scenario can be checked stage by stage: an embankment, stages, and a strength in

@@ -9,6 +9,7 @@
 
 #include "wickgrid/design.hpp"
 #include "wickgrid/names.hpp"
+#include "wickgrid/stages.hpp"
 #include "wickgrid/studies.hpp"
 
 namespace wickgrid::scenario {
@@ -63,6 +64,18 @@ struct ProjectInfo {
     std::optional<std::string> date;
 };
 
+// The finished-level top-up as planned (embankment.finished_height_m): resolved once when the file is
+// read and placed in site.loading.stages as a lift of its own, so that every command consolidates,
+// settles and checks the fill that is placed.
+struct TopUpPlan {
+    TopUpRule rule = TopUpRule::with_last_lift;
+    FillToFinish finish;             // fill placed in all, final settlement, load
+    double scheduled_height_m = 0.0; // the file's permanent stages (their load / γ)
+    double height_m = 0.0;           // the top-up lift's thickness: placed − scheduled (0: none needed)
+    double load_kPa = 0.0;           // its load (γ·height less the buoyancy of fill settled under water)
+    std::optional<std::size_t> stage;  // its index in site.loading.stages; none when none is needed
+};
+
 struct Scenario {
     std::string file;
     std::string title;
@@ -72,6 +85,7 @@ struct Scenario {
     std::vector<DrainEntry> drains;  // as given, in the order of site.products
     std::optional<double> fill_unit_weight_kN_per_m3;
     std::optional<double> surcharge_max_height_m;
+    std::optional<TopUpPlan> top_up;
     std::optional<double> mandrel_width_m;  // as given (the site keeps the equivalent diameter)
     StudyRequests studies;
     // Values allowed but outside the usual ranges (plausibility.hpp), located; every command shows them.

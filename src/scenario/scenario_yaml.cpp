@@ -747,7 +747,8 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
     r.remember(path, node);
     r.expect_map(node, path);
     r.allow_keys(node, path, {"crest_width_m", "side_slope_h_per_v", "fill_unit_weight_kN_per_m3", "fill_friction_angle_deg",
-                              "fill_cohesion_kPa", "target_factor_of_safety", "finished_height_m", "berms", "height_m"});
+                              "fill_cohesion_kPa", "target_factor_of_safety", "finished_height_m", "berms", "height_m",
+                              "top_up"});
     EmbankmentSection e;
     e.crest_width_m = r.number(node, path, "crest_width_m", non_negative("m"));
     e.side_slope_h_per_v = r.number(node, path, "side_slope_h_per_v",
@@ -762,6 +763,10 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
                                     .value_or(defaults::target_factor_of_safety);
     e.finished_height_m = r.optional_number(node, path, "finished_height_m", positive("m"));
     e.height_m = r.optional_number(node, path, "height_m", positive("m"));
+    if (node["top_up"]) {
+        r.remember(path + ".top_up", node["top_up"]);
+        e.top_up = r.choice(node["top_up"], path + ".top_up", top_up_names);
+    }
     if (const YAML::Node berms = node["berms"]) {
         r.remember(path + ".berms", berms);
         if (!berms.IsSequence()) r.fail(berms, path + ".berms", "must be a list of berms ({width_m, height_m}), outwards from the crest");
@@ -905,6 +910,58 @@ void check_embankment(const Scenario& s) {
                       "height, " + format_value(*height) + " m (embankment.height_m, else the permanent stages' total)");
 }
 
+// The finished-level top-up, planned once: the fill that finishes at embankment.finished_height_m
+// after primary settlement (fill_to_finish), less what the stages place, goes on as a lift of its
+// own by the section's top_up rule, at the last lift's rate. Every command then loads, settles and
+// checks the fill that is placed. A schedule that already places more is kept, with a warning.
+std::vector<std::string> plan_top_up(Scenario& s) {
+    Site& site = s.site;
+    if (!site.embankment || !site.embankment->finished_height_m || !site.loading || site.loading->stages.empty()) return {};
+    const EmbankmentSection& e = *site.embankment;
+    const double gamma = e.fill_unit_weight_kN_per_m3;
+    TopUpPlan plan;
+    plan.rule = e.top_up;
+    try {
+        plan.finish = fill_to_finish(site, gamma, *e.finished_height_m);
+    } catch (const InputError& err) {
+        s.fail_at("embankment.finished_height_m", "fill to a finished level: " + err.quantity() + " must be " + err.allowed());
+    } catch (const EvaluationError& err) {
+        s.fail_at("embankment.finished_height_m", err.what());
+    }
+    LoadHistory& h = *site.loading;
+    const double scheduled_kPa = h.permanent_kPa();
+    plan.scheduled_height_m = scheduled_kPa / gamma;
+    const double top_kPa = plan.finish.load_kPa - scheduled_kPa;
+    std::vector<std::string> warnings;
+    if (!(top_kPa > 1e-9 * plan.finish.load_kPa)) {
+        if (-top_kPa > 0.01 * plan.finish.load_kPa)
+            warnings.push_back(s.file + ": embankment.finished_height_m: the stages place " +
+                               format_value(std::round(plan.scheduled_height_m * 100.0) / 100.0) + " m of fill, more than the " +
+                               format_value(std::round(plan.finish.load_kPa / gamma * 100.0) / 100.0) +
+                               " m (as load) that finishes at " + format_value(*e.finished_height_m) +
+                               " m after primary settlement; no top-up is planned and the surface ends higher");
+        s.top_up = plan;
+        return warnings;
+    }
+    // The thickness placed; its load is less where the settled fill stands below the groundwater table.
+    plan.height_m = plan.finish.placed_height_m - plan.scheduled_height_m;
+    plan.load_kPa = top_kPa;
+    const auto last = std::max_element(h.stages.begin(), h.stages.end(),
+                                       [](const LoadStage& a, const LoadStage& b) { return a.end_s < b.end_s; });
+    const double rate_s_per_kPa = (last->end_s - last->start_s) / last->pressure_kPa;
+    double start = last->end_s;
+    if (e.top_up == TopUpRule::after_surcharge_removal) {
+        if (!h.surcharge)
+            s.fail_at("embankment.top_up", "'after_surcharge_removal' needs 'loading.surcharge' (the surcharge whose removal "
+                                           "the top-up follows); use 'with_last_lift'");
+        start = std::max(start, h.surcharge->removal_s);
+    }
+    h.stages.push_back({start, start + rate_s_per_kPa * top_kPa, top_kPa});
+    plan.stage = h.stages.size() - 1;
+    s.top_up = plan;
+    return warnings;
+}
+
 void check_settlement_criterion(const Scenario& s) {
     const Site& site = s.site;
     if (!site.criterion.residual()) return;
@@ -950,9 +1007,11 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     read_patterns(r, root, s);
     read_spacing(r, root, s);
     check_physics(r, s);
+    auto top_up_warnings = plan_top_up(s);
     read_studies(r, root, s);
     read_uncertain(r, root, s);
     s.input_warnings = plausibility_warnings(s);
+    for (auto& w : top_up_warnings) s.input_warnings.push_back(std::move(w));
     return s;
 }
 
