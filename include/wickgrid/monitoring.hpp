@@ -60,15 +60,19 @@ struct HyperbolicFit {
 };
 HyperbolicFit hyperbolic(const std::vector<Reading>& readings, double start_s);
 
-// Direct fit of the site model to the whole record: s(t) = S·U(t; ch) under the site's load
-// history, least squares over ln ch (Brent's minimiser from Boost.Math, within a factor 100 of the
-// site's ch) with S solved exactly for each ch. The 95 % interval of ch from the Jacobian
-// (Student's t with n − 2 degrees of freedom). Throws EvaluationError with fewer than 4 readings or
-// a site without a clay-wide ch. Cost: about 60 model builds and evaluations of every reading time.
+// Direct fit of the site model to the whole record: s(t) = S·U(t; f·ch) under the site's load
+// history, through the site's own cell model (closed form, layered series or numerical cell, vacuum
+// included), least squares over ln f — f a factor on the clay's ch and on every layer's own ch —
+// (Brent's minimiser from Boost.Math, f within a factor 100 of 1) with S solved exactly for each f.
+// The 95 % interval of f from the Jacobian (Student's t with n − 2 degrees of freedom). Throws
+// EvaluationError with fewer than 4 readings. Cost: about 60 model builds and evaluations of every
+// reading time.
 struct DirectFit {
-    double ch_m2_per_s = 0.0;
+    double ch_factor = 1.0;                                      // f: hand it back to a re-design
+    std::optional<std::array<double, 2>> ch_factor_interval_95;  // absent when the record cannot bound it
+    std::optional<double> ch_m2_per_s;                           // f × the clay-wide ch, when the site has one
     double final_settlement_m = 0.0;  // S
-    std::optional<std::array<double, 2>> ch_interval_95;  // absent when the record cannot bound it
+    std::optional<std::array<double, 2>> ch_interval_95;  // f's interval × the clay-wide ch
     double rms_m = 0.0;
     std::size_t points = 0;
     bool at_search_bound = false;  // the optimum sits at a bound of the search: ch is not determined

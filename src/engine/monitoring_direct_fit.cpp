@@ -28,10 +28,10 @@ struct Trial {
 };
 
 Trial evaluate(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m,
-               const std::vector<double>& times, const std::vector<double>& observed, double ln_ch) {
+               const std::vector<double>& times, const std::vector<double>& observed, double ln_factor) {
     Trial t;
     try {
-        const Site trial_site = with_input(site, StudyInput::ch, std::exp(ln_ch));
+        const Site trial_site = with_input(site, StudyInput::ch_factor, std::exp(ln_factor));
         t.degrees = make_cell_model(trial_site, product, pattern, spacing_m)->combined(times);
     } catch (const InputError&) {
         return t;  // a ch the site cannot take (a bound of the physics): the worst fit
@@ -77,14 +77,12 @@ std::optional<double> first_time(double lo, double hi, int scan_points, Holds ho
 DirectFit fit_ch_and_settlement(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m,
                                 const std::vector<Reading>& readings) {
     if (readings.size() < 4) throw EvaluationError("direct fit", "fewer than 4 readings");
-    if (!site.ground.ch_m2_per_s) throw EvaluationError("direct fit", "the site has no clay-wide ch to fit");
     std::vector<double> times, observed;
     for (const auto& r : readings) {
         times.push_back(r.time_s);
         observed.push_back(r.settlement_m);
     }
-    const double ln_ch0 = std::log(*site.ground.ch_m2_per_s);
-    const double lo = ln_ch0 - std::log(ch_search_factor), hi = ln_ch0 + std::log(ch_search_factor);
+    const double lo = -std::log(ch_search_factor), hi = std::log(ch_search_factor);
     auto sse = [&](double x) { return evaluate(site, product, pattern, spacing_m, times, observed, x).sse; };
     std::uintmax_t iterations = defaults::root_iterations;
     const auto [x, best] = boost::math::tools::brent_find_minima(sse, lo, hi, brent_bits, iterations);
@@ -92,7 +90,8 @@ DirectFit fit_ch_and_settlement(const Site& site, const DrainProductSpec& produc
     const Trial at = evaluate(site, product, pattern, spacing_m, times, observed, x);
     if (at.sse == std::numeric_limits<double>::max()) throw EvaluationError("direct fit", "no ch in the search range gives a model");
     DirectFit fit;
-    fit.ch_m2_per_s = std::exp(x);
+    fit.ch_factor = std::exp(x);
+    if (site.ground.ch_m2_per_s) fit.ch_m2_per_s = fit.ch_factor * *site.ground.ch_m2_per_s;
     fit.final_settlement_m = at.final_m;
     fit.points = readings.size();
     fit.rms_m = std::sqrt(best / static_cast<double>(readings.size()));
@@ -115,7 +114,12 @@ DirectFit fit_ch_and_settlement(const Site& site, const DrainProductSpec& produc
     const double var_x = best / dof * c / det;
     const double t = boost::math::quantile(boost::math::complement(boost::math::students_t(dof), 0.025));
     const double half = t * std::sqrt(var_x);
-    if (std::isfinite(half)) fit.ch_interval_95 = std::array<double, 2>{std::exp(x - half), std::exp(x + half)};
+    if (std::isfinite(half)) {
+        fit.ch_factor_interval_95 = std::array<double, 2>{std::exp(x - half), std::exp(x + half)};
+        if (site.ground.ch_m2_per_s)
+            fit.ch_interval_95 = std::array<double, 2>{(*fit.ch_factor_interval_95)[0] * *site.ground.ch_m2_per_s,
+                                                       (*fit.ch_factor_interval_95)[1] * *site.ground.ch_m2_per_s};
+    }
     return fit;
 }
 

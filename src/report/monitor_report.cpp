@@ -55,7 +55,12 @@ json plate_json(const results::PlateAnalysis& a) {
                            {"points", a.hyperbolic->points}};
     else p["hyperbolic"] = nullptr;
     if (a.fit) {
-        p["fit"] = {{"ch_m2_per_year", per_year(a.fit->ch_m2_per_s)},
+        p["fit"] = {{"ch_m2_per_year", a.fit->ch_m2_per_s ? json(per_year(*a.fit->ch_m2_per_s)) : json(nullptr)},
+                    {"ch_factor", a.fit->ch_factor},
+                    {"ch_factor_interval",
+                     a.fit->ch_factor_interval_95
+                         ? json::array({(*a.fit->ch_factor_interval_95)[0], (*a.fit->ch_factor_interval_95)[1]})
+                         : json(nullptr)},
                     {"final_settlement_mm", a.fit->final_settlement_m * 1000.0},
                     {"rms_mm", a.fit->rms_m * 1000.0},
                     {"reliable", a.fit_reliable}};
@@ -111,7 +116,7 @@ json monitor_json(const results::MonitorRecord& r) {
              {"drain", r.drain},
              {"pattern", to_string(r.pattern)},
              {"spacing_m", r.spacing_m},
-             {"design_ch_m2_per_year", per_year(r.design_ch_m2_per_s)},
+             {"design_ch_m2_per_year", r.design_ch_m2_per_s ? json(per_year(*r.design_ch_m2_per_s)) : json(nullptr)},
              {"target", target_json(r.scenario->site)},
              {"plates", plates},
              {"warnings", list},
@@ -129,10 +134,10 @@ std::string monitor_table(const results::MonitorRecord& r) {
                         a.asaoka ? fixed(a.asaoka->final_settlement_m * 1000.0, 0) + (a.asaoka_reliable ? "" : "?") : "–",
                         a.asaoka_ch_m2_per_s ? fixed(per_year(*a.asaoka_ch_m2_per_s), 2) : "–",
                         a.hyperbolic ? fixed(a.hyperbolic->final_settlement_m * 1000.0, 0) : "–",
-                        a.fit ? fixed(per_year(a.fit->ch_m2_per_s), 2) + (a.fit_reliable ? "" : "?") : "–",
-                        a.fit && a.fit->ch_interval_95 ? fixed(per_year((*a.fit->ch_interval_95)[0]), 2) + "–" +
-                                                             fixed(per_year((*a.fit->ch_interval_95)[1]), 2)
-                                                       : "–",
+                        a.fit ? fixed(a.fit->ch_factor, 3) + (a.fit_reliable ? "" : "?") : "–",
+                        a.fit && a.fit->ch_factor_interval_95 ? fixed((*a.fit->ch_factor_interval_95)[0], 3) + "–" +
+                                                                    fixed((*a.fit->ch_factor_interval_95)[1], 3)
+                                                              : "–",
                         a.fit ? fixed(a.fit->final_settlement_m * 1000.0, 0) : "–",
                         f ? fixed(100.0 * f->degree_now, 1) : fixed(100.0 * a.design_forecast.degree_now, 1) + " (design)",
                         day_text(f ? f->criterion_met_s : a.design_forecast.criterion_met_s),
@@ -141,9 +146,11 @@ std::string monitor_table(const results::MonitorRecord& r) {
     }
     std::ostringstream o;
     o << "Monitoring back-analysis: " << r.scenario->title << "\n" << r.drain << ", " << to_string(r.pattern) << " at "
-      << fixed(r.spacing_m, 2) << " m; design ch " << fixed(per_year(r.design_ch_m2_per_s), 2) << " m²/year\n\n";
-    o << text_table({"plate", "readings", "last day", "Asaoka s∞ mm", "Asaoka ch m²/yr", "hyperbolic s∞ mm", "fit ch m²/yr",
-                     "ch 95 %", "fit s∞ mm", "U now %", "criterion day", "residual mm", "surcharge off day"},
+      << fixed(r.spacing_m, 2) << " m; design ch "
+      << (r.design_ch_m2_per_s ? fixed(per_year(*r.design_ch_m2_per_s), 2) + " m²/year" : std::string("per layer"))
+      << "; the fit's ch factor multiplies every layer's ch\n\n";
+    o << text_table({"plate", "readings", "last day", "Asaoka s∞ mm", "Asaoka ch m²/yr", "hyperbolic s∞ mm", "ch factor",
+                     "factor 95 %", "fit s∞ mm", "U now %", "criterion day", "residual mm", "surcharge off day"},
                     rows, 1);
     o << "\n'?' marks a value too uncertain to rely on (see the notes); without a reliable fit the forecast columns are "
          "the design's.\n";
@@ -162,12 +169,14 @@ std::string monitor_csv(const results::MonitorRecord& r) {
                         num(a.asaoka ? std::optional(a.asaoka->final_settlement_m * 1000.0) : std::nullopt),
                         num(a.asaoka_ch_m2_per_s ? std::optional(per_year(*a.asaoka_ch_m2_per_s)) : std::nullopt),
                         num(a.hyperbolic ? std::optional(a.hyperbolic->final_settlement_m * 1000.0) : std::nullopt),
-                        num(a.fit ? std::optional(per_year(a.fit->ch_m2_per_s)) : std::nullopt),
+                        num(a.fit && a.fit->ch_m2_per_s ? std::optional(per_year(*a.fit->ch_m2_per_s)) : std::nullopt),
+                        num(a.fit ? std::optional(a.fit->ch_factor) : std::nullopt),
                         num(a.fit ? std::optional(a.fit->final_settlement_m * 1000.0) : std::nullopt),
                         a.fit_reliable ? "yes" : "no"});
     }
     return csv_document({"plate", "readings", "last_reading_day", "asaoka_final_settlement_mm", "asaoka_ch_m2_per_year",
-                         "hyperbolic_final_settlement_mm", "fit_ch_m2_per_year", "fit_final_settlement_mm", "fit_reliable"},
+                         "hyperbolic_final_settlement_mm", "fit_ch_m2_per_year", "fit_ch_factor", "fit_final_settlement_mm",
+                         "fit_reliable"},
                         rows);
 }
 
@@ -271,7 +280,7 @@ std::string monitor_html(const results::MonitorRecord& r) {
       << print_page_css(s) << "</style>\n</head>\n<body>\n<h1>Monitoring back-analysis: " << escape_xml(s.title) << "</h1>\n"
       << title_block_html(s) << "<p>" << escape_xml(r.drain) << ", " << to_string(r.pattern) << " at " << fixed(r.spacing_m, 2)
       << " m; readings from " << escape_xml(r.readings_file) << ".</p>\n<h2>Plates</h2>\n<table>\n<tr><th class=\"text\">plate</th>"
-         "<th>readings</th><th>Asaoka s∞ (mm)</th><th>Asaoka ch (m²/year)</th><th>hyperbolic s∞ (mm)</th><th>fit ch (m²/year)</th>"
+         "<th>readings</th><th>Asaoka s∞ (mm)</th><th>Asaoka ch (m²/year)</th><th>hyperbolic s∞ (mm)</th><th>fit ch factor</th>"
          "<th>fit s∞ (mm)</th><th>U now (%)</th><th>criterion met (day)</th><th>surcharge off (day)</th></tr>\n";
     for (const auto& a : r.plates) {
         const auto& f = a.fitted_forecast ? *a.fitted_forecast : a.design_forecast;
@@ -279,7 +288,7 @@ std::string monitor_html(const results::MonitorRecord& r) {
           << (a.asaoka ? fixed(a.asaoka->final_settlement_m * 1000.0, 0) : "–") << "</td><td>"
           << (a.asaoka_ch_m2_per_s ? fixed(per_year(*a.asaoka_ch_m2_per_s), 2) : "–") << "</td><td>"
           << (a.hyperbolic ? fixed(a.hyperbolic->final_settlement_m * 1000.0, 0) : "–") << "</td><td>"
-          << (a.fit ? fixed(per_year(a.fit->ch_m2_per_s), 2) + (a.fit_reliable ? "" : " (not relied on)") : "–") << "</td><td>"
+          << (a.fit ? fixed(a.fit->ch_factor, 3) + (a.fit_reliable ? "" : " (not relied on)") : "–") << "</td><td>"
           << (a.fit ? fixed(a.fit->final_settlement_m * 1000.0, 0) : "–") << "</td><td>" << fixed(100.0 * f.degree_now, 1)
           << (a.fitted_forecast ? "" : " (design)") << "</td><td>" << escape_xml(day_text(f.criterion_met_s)) << "</td><td>"
           << escape_xml(day_text(f.surcharge_removal_s)) << "</td></tr>\n";

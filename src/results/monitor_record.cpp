@@ -62,7 +62,7 @@ void analyse_fit(PlateAnalysis& a, const std::vector<monitoring::Reading>& used,
         a.notes.push_back("Direct fit: " + e.reason());
         return;
     }
-    const auto& ci = a.fit->ch_interval_95;
+    const auto& ci = a.fit->ch_factor_interval_95;
     a.fit_reliable = !a.fit->at_search_bound && ci && (*ci)[1] / (*ci)[0] <= fit_max_interval_ratio;
     if (a.fit->at_search_bound)
         a.notes.push_back("Direct fit: ch sits at a bound of its search (a factor 100 from the design's): not determined");
@@ -83,7 +83,7 @@ MonitorRecord monitor_record(const scenario::Scenario& s, const std::string& dra
     r.pattern = pattern;
     r.spacing_m = spacing_m;
     r.readings_file = readings.file;
-    r.design_ch_m2_per_s = s.site.ground.ch_m2_per_s.value_or(0.0);
+    r.design_ch_m2_per_s = s.site.ground.ch_m2_per_s;
     r.warnings = readings.warnings;
     const auto design = make_cell_model(s.site, product, pattern, spacing_m);
     for (const auto& plate : readings.plates) {
@@ -119,7 +119,7 @@ MonitorRecord monitor_record(const scenario::Scenario& s, const std::string& dra
         if (a.design_final_m)
             for (const double u : design->combined(a.curve_times_s)) a.design_curve_m.push_back(*a.design_final_m * u);
         if (a.fit) {
-            const Site fitted = with_input(s.site, StudyInput::ch, a.fit->ch_m2_per_s);
+            const Site fitted = with_input(s.site, StudyInput::ch_factor, a.fit->ch_factor);
             const auto model = make_cell_model(fitted, product, pattern, spacing_m);
             for (const double u : model->combined(a.curve_times_s)) a.fitted_curve_m.push_back(a.fit->final_settlement_m * u);
             if (a.fit_reliable) a.fitted_forecast = monitoring::forecast(*model, a.fit->final_settlement_m, fitted, a.now_s);
@@ -135,8 +135,9 @@ MonitorRecord monitor_record(const scenario::Scenario& s, const std::string& dra
         "overestimate s∞ (Tan et al. give a correction, not applied here).",
         "Asaoka's and the hyperbolic s∞ are limits under the load acting over the window: with a surcharge on, above "
         "the final settlement under the permanent load (the direct fit's S).",
-        "Direct fit: s(t) = S·U(t; ch) of the design's cell model under the scenario's load history, least squares over "
-        "ln ch (Brent) with S exact; 95 % interval of ch from the Jacobian with Student's t.",
+        "Direct fit: s(t) = S·U(t; f·ch) of the design's cell model (any method, every layer's ch times f) under the "
+        "scenario's load history, least squares over ln f (Brent) with S exact; 95 % interval of f from the Jacobian "
+        "with Student's t.",
         "Relied on only when: Asaoka's standard error of s∞ is at most 10 % of it; the direct fit's ch is inside its "
         "search and its 95 % interval spans at most a factor 4. Otherwise the record is too short or too noisy and no "
         "back-analysed forecast is given.",

@@ -45,7 +45,7 @@ struct MonitorRecord {
     Pattern pattern = Pattern::triangular;
     double spacing_m = 0.0;
     std::string readings_file;
-    double design_ch_m2_per_s = 0.0;
+    std::optional<double> design_ch_m2_per_s;  // the clay-wide ch; none when each layer gives its own
     std::vector<PlateAnalysis> plates;
     std::vector<std::string> warnings;
     std::vector<std::string> assumptions;
