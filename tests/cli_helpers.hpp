@@ -25,6 +25,14 @@ inline std::string slurp(const fs::path& p) {
     return text.str();
 }
 
+// A written CSV file less its leading '#' trace block (report/trace.hpp); throws if the block is missing.
+inline std::string csv_body(const std::string& text) {
+    if (text.rfind("# ", 0) != 0) throw std::runtime_error("a written CSV file without its trace block");
+    std::size_t at = 0;
+    while (text.compare(at, 2, "# ") == 0) at = text.find('\n', at) + 1;
+    return text.substr(at);
+}
+
 inline fs::path scratch() {
     static int counter = 0;
     const fs::path dir = fs::temp_directory_path() /

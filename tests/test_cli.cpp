@@ -139,7 +139,7 @@ TEST(Cli, OutWritesWholeFilesEqualToStdout) {
     EXPECT_NE(md.find("## Cautions"), std::string::npos);
     EXPECT_NE(md.find("Hansbo (1981)"), std::string::npos);
     EXPECT_NE(md.find("Recommended: drain band-100x4 in a triangular pattern at 1.20 m"), std::string::npos);
-    const std::string csv = slurp(dir / "design.csv");
+    const std::string csv = csv_body(slurp(dir / "design.csv"));
     EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 5);
     EXPECT_EQ(csv.rfind("drain,pattern,feasible,rank,spacing_limit_m,spacing_m", 0), 0u);
     for (const auto& entry : fs::directory_iterator(dir))  // no temporary files left behind
@@ -311,7 +311,7 @@ TEST(Cli, BatchOfThreeScenariosGivesThreeFoldersAndASummary) {
             EXPECT_EQ(summary[1]["drain"], d["drain"]);
             EXPECT_EQ(summary[1]["spacing_m"], d["spacing_m"]);
         }
-    const std::string csv = slurp(out / "summary.csv");
+    const std::string csv = csv_body(slurp(out / "summary.csv"));
     EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 4);
     // JSON: one array; a file that fails is reported and the others still run, with the worst exit code.
     const CommandRun batch = run("design " + source("demo/scenario.yaml") + " /no/such/file.yaml --json");

@@ -174,15 +174,26 @@ TEST(LayoutCommand, OutputsAgreeWithEachOther) {
     // The demo's area: 27,925 m² (hand: shoelace on the outline less the 20 × 15 m hole).
     EXPECT_NEAR(j["area_m2"].get<double>(), 27925.0, 0.01);
 
-    const std::string csv = slurp(out / "layout.csv");
+    const std::string csv = csv_body(slurp(out / "layout.csv"));
     EXPECT_EQ(static_cast<std::size_t>(std::count(csv.begin(), csv.end(), '\n')), count + 1);
     const auto geo = nlohmann::json::parse(slurp(out / "layout.geojson"));
+    // Each file handed on carries its trace: the scenario's SHA-256, the version and the caution.
+    const std::string sha = j["scenario_sha256"].get<std::string>();
+    ASSERT_EQ(sha.size(), 64u);
+    EXPECT_EQ(geo["properties"]["scenario_sha256"], sha);
+    EXPECT_EQ(geo["properties"]["wickgrid_version"], j["wickgrid_version"]);
+    EXPECT_NE(geo["properties"]["caution"].get<std::string>().find("licensed practice govern"), std::string::npos);
+    const std::string raw_csv = slurp(out / "layout.csv");
+    EXPECT_NE(raw_csv.find("# scenario SHA-256: " + sha + "\n"), std::string::npos);
+    EXPECT_LT(raw_csv.find("# caution: "), raw_csv.find("id,x_m,y_m"));
     EXPECT_EQ(geo["features"].size(), count);
     EXPECT_EQ(geo["features"][0]["properties"]["id"], 1);
     EXPECT_EQ(geo["crs"]["properties"]["name"], "urn:ogc:def:crs:EPSG::32650");
     EXPECT_EQ(nlohmann::json::parse(slurp(out / "layout.json"))["count"], count);
     const std::string svg = slurp(out / "layout-plan.svg");
     EXPECT_NE(svg.find(">N</text>"), std::string::npos);  // the file names its system: a north arrow
+    EXPECT_NE(svg.find("<desc>"), std::string::npos);
+    EXPECT_NE(svg.find("scenario SHA-256: " + sha), std::string::npos);
     EXPECT_NE(slurp(out / "layout.html").find("Shepard, D. (1968)"), std::string::npos);
 }
 

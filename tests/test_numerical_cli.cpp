@@ -81,7 +81,8 @@ TEST(NumericalMethod, VerifyNamesTheCauseByTheLoadHistory) {
     }
     const CommandRun demo = run("verify " + source("demo/scenario.yaml") + " --json --radial-cells 10 --vertical-cells 20");
     ASSERT_EQ(demo.exit_code, 0) << demo.err;
-    for (const auto& row : json::parse(demo.out)["rows"]) {
+    const json demo_doc = json::parse(demo.out);  // held: a range-for over a temporary's member dangles
+    for (const auto& row : demo_doc["rows"]) {
         EXPECT_TRUE(row["unloading_day"].is_null());
         EXPECT_DOUBLE_EQ(row["max_difference_while_loading"].get<double>(), row["max_difference"].get<double>());
     }

@@ -6,6 +6,7 @@
 
 #include "scenario/scenario.hpp"
 #include "scenario/suggest.hpp"
+#include "wickgrid/design.hpp"
 #include "wickgrid/units.hpp"
 
 using namespace wickgrid;
@@ -178,3 +179,47 @@ TEST(Suggest, EditDistance) {
     EXPECT_EQ(closest("thicknes_m", {"thickness_m", "cv_m2_per_year"}).value(), "thickness_m");
     EXPECT_FALSE(closest("zzz", {"thickness_m"}).has_value());
 }
+
+namespace {
+// A calibration block scales every ch (and cv) as if the file gave the scaled values: the demo with
+// `calibration: {ch_factor: 1.3, cv_factor: 0.8}` designs as the demo with ch and cv so edited by hand.
+TEST(Calibration, ActsAsTheScaledCoefficients) {
+    const double ch = 4.0, cv = 1.2;  // the demo's clay (checked below)
+    const std::string ch_line = "ch_m2_per_year: 4.0", cv_line = "cv_m2_per_year: 1.2";
+    ASSERT_NE(demo_text().find(ch_line), std::string::npos);
+    ASSERT_NE(demo_text().find(cv_line), std::string::npos);
+    const auto calibrated = parse_scenario(demo_text() + "\ncalibration: {ch_factor: 1.3, cv_factor: 0.8, source: plates SP1-SP4}\n",
+                                           "calibrated.yaml");
+    std::string by_hand = demo_with(ch_line, "ch_m2_per_year: " + std::to_string(1.3 * ch));
+    by_hand.replace(by_hand.find(cv_line), cv_line.size(), "cv_m2_per_year: " + std::to_string(0.8 * cv));
+    const auto edited = parse_scenario(by_hand, "edited.yaml");
+    ASSERT_TRUE(calibrated.calibration);
+    EXPECT_EQ(calibrated.calibration->source, "plates SP1-SP4");
+    const DesignResult a = run_design(calibrated.site), b = run_design(edited.site);
+    ASSERT_EQ(a.rows.size(), b.rows.size());
+    for (std::size_t i = 0; i < a.rows.size(); ++i) {
+        EXPECT_NEAR(a.rows[i].spacing_limit_m, b.rows[i].spacing_limit_m, 1e-9);
+        EXPECT_NEAR(a.rows[i].at_deadline.combined, b.rows[i].at_deadline.combined, 1e-12);
+    }
+    const DesignResult plain = run_design(parse_scenario(demo_text(), "demo.yaml").site);
+    EXPECT_GT(a.rows[0].spacing_limit_m, plain.rows[0].spacing_limit_m + 0.01);  // a faster clay: wider drains
+}
+
+TEST(Calibration, BadBlocksAreNamed) {
+    struct Row {
+        std::string block, key, message;
+    };
+    for (const Row& row : {Row{"calibration: {}", "calibration", "give 'ch_factor'"},
+                           Row{"calibration: {ch_factor: 0}", "calibration.ch_factor", "0.02 to 50"},
+                           Row{"calibration: {ch_factor: 1.2, ch_factr: 1}", "calibration.ch_factr", "did you mean 'ch_factor'"},
+                           Row{"calibration: 1.3", "calibration", "must be"}}) {
+        try {
+            parse_scenario(demo_text() + "\n" + row.block + "\n", "case.yaml");
+            ADD_FAILURE() << row.block << " was accepted";
+        } catch (const ScenarioError& e) {
+            EXPECT_EQ(e.key_path(), row.key) << row.block;
+            EXPECT_NE(e.message().find(row.message), std::string::npos) << e.message();
+        }
+    }
+}
+}  // namespace

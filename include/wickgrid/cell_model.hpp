@@ -81,6 +81,9 @@ public:
         double total_m() const { return primary_m + secondary_m; }
     };
     Residual residual_parts(double time_s, std::optional<double> period_s) const;
+    // The same with the primary part scaled to a final settlement S (m, > 0; a back-analysed one, as
+    // `monitor` forecasts with): one computation for the design and the forecast.
+    Residual residual_parts(double time_s, std::optional<double> period_s, double final_settlement_m) const;
     double residual_m(double time_s, std::optional<double> period_s) const { return residual_parts(time_s, period_s).total_m(); }
     // Secondary compression (m) from the end of primary (the time U reaches
     // defaults::end_of_primary_degree) to time_s, by the site's creep model (secondary.hpp); 0

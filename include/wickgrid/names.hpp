@@ -108,6 +108,7 @@ std::string_view to_string(RadialTheory theory);
 std::string_view to_string(CellMethod method);
 std::string_view to_string(CriterionKind kind);
 std::string_view to_string(RankingBasis basis);
+std::string_view to_string(TopUpRule rule);
 
 // A study input as charts and printed tables call it.
 constexpr std::string_view study_input_label(StudyInput input) { return name_of(study_input_labels, input); }

@@ -18,7 +18,7 @@
 namespace wickgrid {
 
 struct StageCheck {
-    int stage = 0;                  // 1-based; the surcharge is the last
+    int stage = 0;                  // 1-based, as the load stages are numbered (the surcharge: the next number)
     bool surcharge = false;
     double start_s = 0.0;
     double end_s = 0.0;             // when its placement is complete (the moment it is checked)

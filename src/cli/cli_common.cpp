@@ -198,7 +198,8 @@ int run_each(const std::vector<std::string>& files, BatchFormat format, const st
 }
 
 void write_outputs(const std::string& dir, const std::vector<std::string>& input_files,
-                   const std::vector<std::pair<std::string, std::string>>& files) {
+                   const std::vector<std::pair<std::string, std::string>>& files,
+                   const std::vector<report::TraceField>& trace) {
     namespace fs = std::filesystem;
     report::ensure_directory(dir);
     for (const auto& [name, content] : files) {
@@ -210,7 +211,10 @@ void write_outputs(const std::string& dir, const std::vector<std::string>& input
                 throw report::OutputError("refusing to overwrite the input file " + scenario::display_path(input_file) +
                                           " with " + scenario::display_path(path.string()));
     }
-    report::write_files_atomically(dir, files);
+    std::vector<std::pair<std::string, std::string>> stamped;
+    stamped.reserve(files.size());
+    for (const auto& [name, content] : files) stamped.emplace_back(name, report::traced(name, content, trace));
+    report::write_files_atomically(dir, stamped);
 }
 
 }  // namespace wickgrid::cli

@@ -39,7 +39,8 @@ Runner add_design(CLI::App& app) {
             if (!o->out_dir.empty()) {
                 write_outputs(item.out_dir(o->out_dir), {file},
                               {{"design.json", json_text}, {"design.csv", report::design_csv(record)},
-                               {"design.md", report::design_markdown(record)}});
+                               {"design.md", report::design_markdown(record)}},
+                              report::trace_fields(s));
                 spdlog::info("wrote design.json, design.csv and design.md to {}", item.out_dir(o->out_dir));
             }
             summary.push_back(report::design_summary_row(record));
@@ -55,7 +56,8 @@ Runner add_design(CLI::App& app) {
         if (o->files.size() > 1 && !o->out_dir.empty()) {
             write_outputs(o->out_dir, o->files,
                           {{"summary.json", nlohmann::json(summary).dump(2) + "\n"},
-                           {"summary.csv", report::design_summary_csv(summary)}});
+                           {"summary.csv", report::design_summary_csv(summary)}},
+                          report::batch_trace_fields());
             spdlog::info("wrote summary.json and summary.csv ({} scenarios) to {}", summary.size(), o->out_dir);
         }
         return code;

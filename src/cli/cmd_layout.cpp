@@ -99,7 +99,8 @@ Runner add_layout(CLI::App& app) {
                                {"layout.csv", report::layout_csv(record)},
                                {"layout.geojson", report::layout_geojson(record)},
                                {"layout-plan.svg", report::layout_svg(record)},
-                               {"layout.html", report::layout_html(record)}});
+                               {"layout.html", report::layout_html(record)}},
+                              report::trace_fields(s));
                 spdlog::info("wrote layout.json, layout.csv, layout.geojson, layout-plan.svg and layout.html to {}", item.out_dir(o->out_dir));
             }
             if (o->json) item.print(json_text);

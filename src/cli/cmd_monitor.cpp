@@ -65,7 +65,8 @@ Runner add_monitor(CLI::App& app) {
                 write_outputs(item.out_dir(o->out_dir), inputs,
                               {{"monitor.json", json_text},
                                {"monitor.csv", report::monitor_csv(record)},
-                               {"monitor.html", report::monitor_html(record)}});
+                               {"monitor.html", report::monitor_html(record)}},
+                              report::trace_fields(s));
             if (o->json) item.print(json_text);
             else if (o->csv) item.print(report::monitor_csv(record));
             else item.print(report::monitor_table(record));

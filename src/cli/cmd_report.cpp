@@ -43,7 +43,7 @@ Runner add_report(CLI::App& app) {
             const auto bundle = report::build_report(record);
             std::vector<std::pair<std::string, std::string>> files{{"report.html", bundle.html}, {"report.md", bundle.markdown}};
             for (const auto& chart : bundle.charts) files.emplace_back(chart.file, chart.svg);
-            write_outputs(item.out_dir(o->out_dir), {file}, files);
+            write_outputs(item.out_dir(o->out_dir), {file}, files, report::trace_fields(s));
             item.print("wrote " + item.out_dir(o->out_dir) + "/report.html, report.md and " + std::to_string(bundle.charts.size()) + " chart(s)\n");
             return static_cast<int>(record.result.any_feasible() ? ok : no_feasible_design);
         });

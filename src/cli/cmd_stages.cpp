@@ -66,7 +66,7 @@ Runner add_stages(CLI::App& app) {
             if (!o->out_dir.empty()) {
                 std::vector<std::pair<std::string, std::string>> files;
                 for (const auto& chart : report::stage_charts(record)) files.emplace_back(chart.file, chart.svg);
-                write_outputs(item.out_dir(o->out_dir), {item.file}, files);
+                write_outputs(item.out_dir(o->out_dir), {item.file}, files, report::trace_fields(s));
             }
             if (o->json) item.print(report::stages_json(s, record).dump(2) + "\n");
             else item.print(report::stages_table(s, record));

@@ -104,7 +104,7 @@ Runner add_sweep(CLI::App& app) {
                 if (r.tornado) files.emplace_back("tornado.csv", report::tornado_csv(site, *r.tornado));
                 if (r.grid) files.emplace_back("grid.csv", report::grid_csv(*r.grid, r.grid_x, r.grid_y));
                 if (r.monte_carlo) files.emplace_back("monte_carlo.csv", report::monte_carlo_csv(*r.monte_carlo));
-                write_outputs(item.out_dir(o->out_dir), {file}, files);
+                write_outputs(item.out_dir(o->out_dir), {file}, files, report::trace_fields(s));
             }
             if (o->json) item.print(json_text);
             else if (o->csv) item.print(r.tornado ? report::tornado_csv(site, *r.tornado)

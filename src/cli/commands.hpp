@@ -8,6 +8,7 @@
 #include <stdexcept>
 #include <string>
 
+#include "report/trace.hpp"
 #include "scenario/scenario.hpp"
 #include "wickgrid/cell_model.hpp"
 
@@ -91,8 +92,10 @@ void print_stdout(const std::string& text);
 // The command name nearest to an unknown one, for "did you mean" (empty when nothing is near).
 std::string nearest_command(const std::string& word, const std::vector<std::string>& commands);
 
-// Writes files into an output folder whole or not at all, refusing to overwrite any input file.
+// Writes files into an output folder whole or not at all, refusing to overwrite any input file;
+// CSV, SVG and GeoJSON files are stamped with the trace (report/trace.hpp).
 void write_outputs(const std::string& dir, const std::vector<std::string>& input_files,
-                   const std::vector<std::pair<std::string, std::string>>& files);
+                   const std::vector<std::pair<std::string, std::string>>& files,
+                   const std::vector<report::TraceField>& trace);
 
 }  // namespace wickgrid::cli

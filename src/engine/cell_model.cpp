@@ -64,13 +64,17 @@ std::optional<double> CellModel::settlement_m(double time_s) const {
 
 CellModel::Residual CellModel::residual_parts(double time_s, std::optional<double> period_s) const {
     if (!final_m_) throw InputError("residual settlement", time_s, "asked of a site with a settlement model");
+    return residual_parts(time_s, period_s, *final_m_);
+}
+
+CellModel::Residual CellModel::residual_parts(double time_s, std::optional<double> period_s, double final_settlement_m) const {
     if (period_s) {
         const auto u = combined({time_s, time_s + *period_s});
-        return {*final_m_ * (u[1] - u[0]), secondary_between_m(time_s, time_s + *period_s)};
+        return {final_settlement_m * (u[1] - u[0]), secondary_between_m(time_s, time_s + *period_s)};
     }
     if (secondary_)
         throw InputError("service period (days)", time_s, "given with secondary compression (it does not end)");
-    return {*final_m_ * (eventual_degree() - degree(time_s)), 0.0};
+    return {final_settlement_m * (eventual_degree() - degree(time_s)), 0.0};
 }
 
 double CellModel::degree_at_removal() const {

@@ -133,11 +133,13 @@ Forecast forecast(const CellModel& model, double final_settlement_m, const Site&
     // Primary with the fitted S; secondary compression over a service period, as `design` counts it
     // (without a period it does not end and is not added).
     auto residual = [&](double t) -> std::pair<double, double> {
-        if (const auto* r = c.residual(); r && r->service_s) {
-            const auto u = model.combined({t, t + *r->service_s});
-            return {final_settlement_m * (u[1] - u[0]), model.secondary_between_m(t, t + *r->service_s)};
-        }
-        return {final_settlement_m * (model.eventual_degree() - model.degree(t)), 0.0};
+        const auto* r = c.residual();
+        const std::optional<double> period = r ? r->service_s : std::nullopt;
+        // Creep without a period does not end: the primary part alone, with no secondary counted.
+        if (!period && model.secondary_model())
+            return {final_settlement_m * (model.eventual_degree() - model.degree(t)), 0.0};
+        const auto parts = model.residual_parts(t, period, final_settlement_m);
+        return {parts.primary_m, parts.secondary_m};
     };
     const auto [primary, secondary] = residual(c.deadline_s);
     f.residual_primary_at_deadline_m = primary;

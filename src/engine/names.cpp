@@ -12,6 +12,7 @@ std::string_view to_string(RadialTheory theory) { return name_of(radial_theory_n
 std::string_view to_string(CellMethod method) { return name_of(cell_method_names, method); }
 std::string_view to_string(CriterionKind kind) { return name_of(criterion_names, kind); }
 std::string_view to_string(RankingBasis basis) { return name_of(ranking_names, basis); }
+std::string_view to_string(TopUpRule rule) { return name_of(top_up_names, rule); }
 std::string_view to_string(StudyInput input) { return name_of(study_input_names, input); }
 std::string_view to_string(DistributionKind kind) { return name_of(distribution_names, kind); }
 

@@ -116,8 +116,10 @@ StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern
     out.target_factor_of_safety = section.target_factor_of_safety;
     out.planned = plan;
     std::vector<Placement> placed;
+    int permanent = 0;  // stages are numbered as the scenario's load stages (the surcharge apart)
     for (std::size_t i = 0; i < all.size(); ++i) {
         Placement p = all[i];
+        if (!p.surcharge) ++permanent;
         if (plan && i > 0) {
             const StageCheck& before = out.stages.back();
             if (!before.earliest_next_start_s) break;  // the plan cannot go on: its check says why
@@ -129,7 +131,7 @@ StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern
         // The fill standing once it is placed (a surcharge removed before it no longer counts).
         const double height = history_of(placed).applied_at_kPa(p.end_s) / section.fill_unit_weight_kN_per_m3;
         const StageState st = state_at(site, product, pattern, spacing_m, history_of(placed), p.end_s);
-        StageCheck check{static_cast<int>(i + 1), p.surcharge, p.start_s, p.end_s, height, st.factor_of_safety,
+        StageCheck check{p.surcharge ? permanent + 1 : permanent, p.surcharge, p.start_s, p.end_s, height, st.factor_of_safety,
                          st.critical, st.settlement_m, std::nullopt, true};
         if (i + 1 < all.size()) {
             check.earliest_next_start_s = earliest_start(site, product, pattern, spacing_m, placed, all[i + 1],

@@ -2,6 +2,7 @@
 
 #include "results/bibliography.hpp"
 
+#include <cmath>
 #include <sstream>
 
 #include "report/columns.hpp"
@@ -59,6 +60,29 @@ json target_json(const Site& site) {
     return t;
 }
 
+// The plan of the works as every command loads it: each stage (the top-up marked), the surcharge,
+// and the fill height standing once each is placed (applied load / γ of the fill).
+json load_plan_json(const scenario::Scenario& s) {
+    const Site& site = s.site;
+    json plan = json::array();
+    if (!site.loading) return plan;
+    const auto& h = *site.loading;
+    const std::optional<double> gamma =
+        site.embankment ? std::optional(site.embankment->fill_unit_weight_kN_per_m3) : s.fill_unit_weight_kN_per_m3;
+    auto height = [&](double time_s) { return gamma ? json(h.applied_at_kPa(time_s) / *gamma) : json(nullptr); };
+    for (std::size_t i = 0; i < h.stages.size(); ++i) {
+        const auto& st = h.stages[i];
+        const bool top_up = s.top_up && s.top_up->stage == i;
+        plan.push_back({{"kind", top_up ? "top_up" : "stage"}, {"stage", i + 1}, {"start_day", days(st.start_s)},
+                        {"end_day", days(st.end_s)}, {"load_kPa", st.pressure_kPa}, {"removal_day", nullptr},
+                        {"height_m", height(st.end_s)}});
+    }
+    if (const auto& su = h.surcharge)
+        plan.push_back({{"kind", "surcharge"}, {"stage", nullptr}, {"start_day", days(su->start_s)}, {"end_day", days(su->end_s)},
+                        {"load_kPa", su->pressure_kPa}, {"removal_day", days(su->removal_s)}, {"height_m", height(su->end_s)}});
+    return plan;
+}
+
 json design_json(const results::DesignRecord& record) {
     const Site& site = record.site();
     const auto columns = all_design_columns(site);
@@ -103,6 +127,11 @@ json design_json(const results::DesignRecord& record) {
                              {"local_degree", r.local_degree ? json(*r.local_degree) : json(nullptr)},
                              {"final_settlement_mm", r.final_m * 1000.0}, {"settlement_at_deadline_mm", r.at_deadline_m * 1000.0}});
     out["sublayers"] = sublayers;
+    out["load_plan"] = load_plan_json(s);
+    out["calibration"] = s.calibration ? json{{"ch_factor", s.calibration->ch_factor},
+                                              {"cv_factor", s.calibration->cv_factor},
+                                              {"source", s.calibration->source ? json(*s.calibration->source) : json(nullptr)}}
+                                       : json(nullptr);
     if (site.loading && site.loading->vacuum) {
         const auto& v = *site.loading->vacuum;
         out["vacuum"] = {{"pressure_kPa", v.pressure_kPa}, {"start_day", days(v.start_s)}, {"end_day", days(v.end_s)},
@@ -229,6 +258,53 @@ std::string design_table(const results::DesignRecord& record) {
     return out.str();
 }
 
+// A layer's undrained strength as the file gives it, with the level its su_top refers to.
+std::string strength_text(const UndrainedStrength& st) {
+    if (st.su_top_kPa)
+        return "su = " + fixed(*st.su_top_kPa, 1) + " kPa at the top of the layer " +
+               (st.su_gradient_kPa_per_m && *st.su_gradient_kPa_per_m != 0.0
+                    ? (*st.su_gradient_kPa_per_m > 0.0 ? "+ " : "− ") + fixed(std::abs(*st.su_gradient_kPa_per_m), 2) +
+                          " kPa/m below it"
+                    : std::string("(constant)")) +
+               ", gain Δsu/Δσ′v = " + fixed(st.gain_ratio, 2);
+    return "su = S·σ′v·OCR^m with S = " + fixed(*st.su_ratio, 3) + ", m = " + fixed(st.strength_exponent, 2) +
+           " (Ladd & Foott 1974)";
+}
+
+// The section, its fill, the stability target and the finished level with the top-up planned for it.
+void section_rows(const results::DesignRecord& record, std::vector<std::pair<std::string, std::string>>& rows) {
+    const Site& site = record.site();
+    if (!site.embankment) return;
+    const EmbankmentSection& e = *site.embankment;
+    const auto height = final_fill_height_m(site);
+    rows.emplace_back("embankment section", "crest width " + fixed(e.crest_width_m, 2) + " m, side slopes " +
+                                                fixed(e.side_slope_h_per_v, 2) + " horizontal to 1 vertical" +
+                                                (height ? ", fill height " + fixed(*height, 2) + " m" : std::string()));
+    for (std::size_t i = 0; i < e.berms.size(); ++i)
+        rows.emplace_back("berm " + std::to_string(i + 1), fixed(e.berms[i].width_m, 2) + " m wide, " +
+                                                               fixed(e.berms[i].height_m, 2) +
+                                                               " m high, on each side (outwards from the crest)");
+    rows.emplace_back("fill strength", "φ′ = " + fixed(e.fill_friction_angle_deg, 1) + "°, c′ = " +
+                                           fixed(e.fill_cohesion_kPa, 1) + " kPa, γ = " +
+                                           fixed(e.fill_unit_weight_kN_per_m3, 1) + " kN/m³");
+    rows.emplace_back("target factor of safety", fixed(e.target_factor_of_safety, 2) + " for every stage");
+    const auto& plan = record.scenario->top_up;
+    if (e.finished_height_m && plan) {
+        std::string text = fixed(*e.finished_height_m, 2) + " m above the original ground once primary settlement is over: " +
+                           fixed(plan->finish.placed_height_m, 2) + " m of fill placed in all for a final settlement of " +
+                           fixed(plan->finish.final_settlement_m * 1000.0, 0) + " mm";
+        if (plan->stage)
+            text += "; top-up " + fixed(plan->height_m, 2) + " m (" + fixed(plan->load_kPa, 1) + " kPa) as load stage " +
+                    std::to_string(*plan->stage + 1) + " from day " +
+                    fixed(days(site.loading->stages[*plan->stage].start_s), 0) +
+                    (plan->rule == TopUpRule::with_last_lift ? ", placed with the last lift"
+                                                             : ", placed after the surcharge is removed");
+        else
+            text += "; no top-up needed beyond the stages";
+        rows.emplace_back("finished level", text);
+    }
+}
+
 std::vector<std::pair<std::string, std::string>> input_rows(const results::DesignRecord& record) {
     const Site& site = record.site();
     const auto& s = *record.scenario;
@@ -260,6 +336,10 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
                                      : site.method.method == CellMethod::layered
                                          ? ", " + std::to_string(site.method.series_terms) + " terms"
                                          : std::string()));
+    if (const auto& c = s.calibration)
+        rows.emplace_back("calibration from monitoring", "ch × " + fixed(c->ch_factor, 3) + ", cv × " + fixed(c->cv_factor, 3) +
+                                                             " on every layer (the ch and cv in this table include it)" +
+                                                             (c->source ? "; " + *c->source : std::string()));
     rows.emplace_back("spacings considered", fixed(site.range.bounds.min_m, 2) + "–" + fixed(site.range.bounds.max_m, 2) +
                                                  " m, rounded down to " + fixed(site.range.increment_m, 2) + " m");
     for (std::size_t i = 0; i < site.products.size(); ++i) {
@@ -299,6 +379,7 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
                                             " of it at the tip, day " + fixed(days(v->start_s), 0) + " to " +
                                             fixed(days(v->end_s), 0));
     }
+    section_rows(record, rows);
     if (g.profile) {
         rows.emplace_back("groundwater", fixed(g.profile->groundwater_depth_m, 2) + " m below the top of the clay");
         for (std::size_t i = 0; i < g.profile->layers.size(); ++i) {
@@ -310,6 +391,11 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
                         (l.ocr ? "OCR = " + fixed(*l.ocr, 2) : "σ'p = " + fixed(*l.preconsolidation_kPa, 1) + " kPa");
             if (l.cv_m2_per_s) text += ", cv = " + fixed(units::per_second_to_per_year(*l.cv_m2_per_s), 3) + " m²/year";
             if (l.ch_m2_per_s) text += ", ch = " + fixed(units::per_second_to_per_year(*l.ch_m2_per_s), 3) + " m²/year";
+            if (l.c_alpha) {
+                text += ", Cα = " + fixed(*l.c_alpha, 4) + " (Δe per log cycle of time";
+                text += l.cc && *l.cc > 0.0 ? ", Cα/Cc = " + fixed(*l.c_alpha / *l.cc, 3) + ")" : std::string(")");
+            }
+            if (l.strength) text += "; " + strength_text(*l.strength);
             if (i < record.cell_layers.size()) {
                 const auto& c = record.cell_layers[i];
                 text += "; as the cell model takes them mv = " + scientific(c.mv_m2_per_kN) + " m²/kN, kv = " +

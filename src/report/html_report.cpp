@@ -45,8 +45,6 @@ Chart degree_chart(const Site& site, const results::Curve& curve, bool log_time)
                              log_time ? "time since start of loading (days, logarithmic)" : "time since start of loading (days)",
                              "degree of consolidation (%)");
     c.log_x = log_time;
-    c.y_min = 0.0;
-    c.y_max = 100.0;
     Series uv{"Uv vertical", {}, {}, 2}, ur{"Ur radial", {}, {}, 1}, u{"U combined", {}, {}, 0};
     for (const auto& p : curve.points) {
         for (Series* ser : {&uv, &ur, &u}) ser->x.push_back(days(p.time_s));
@@ -54,6 +52,16 @@ Chart degree_chart(const Site& site, const results::Curve& curve, bool log_time)
         ur.y.push_back(100.0 * p.degrees.radial);
         u.y.push_back(100.0 * p.degrees.combined);
     }
+    // 0–100 %, widened to whole tens where the table's values go beyond (U above 100 % under a
+    // surcharge): a chart never clips a value the table prints.
+    double lo = 0.0, hi = 100.0;
+    for (const Series* ser : {&uv, &ur, &u})
+        for (const double y : ser->y) {
+            lo = std::min(lo, 10.0 * std::floor(y / 10.0));
+            hi = std::max(hi, 10.0 * std::ceil(y / 10.0));
+        }
+    c.y_min = lo;
+    c.y_max = hi;
     c.series = {u, ur, uv};
     if (const auto* d = site.criterion.degree()) {
         Series target{"target " + fixed(100.0 * d->degree, 0) + " %", {c.series[0].x.front(), c.series[0].x.back()},
@@ -68,7 +76,8 @@ Chart degree_chart(const Site& site, const results::Curve& curve, bool log_time)
 }
 
 // The load history on the same time axis as the degree and settlement charts below it.
-Chart load_chart(const Site& site, const results::Curve& curve, const std::vector<double>& load_kPa, bool log_time) {
+Chart load_chart(const Site& site, const results::Curve& curve, const std::vector<double>& load_kPa,
+                 const std::vector<double>& vacuum_kPa, bool log_time) {
     LineChart c = time_chart(site, "Applied load", log_time ? "time since start of loading (days, logarithmic)"
                                                             : "time since start of loading (days)",
                              "applied load (kPa)");
@@ -80,8 +89,42 @@ Chart load_chart(const Site& site, const results::Curve& curve, const std::vecto
         load.y.push_back(load_kPa[i]);
     }
     c.series = {load};
-    return {"load-time.svg", "Applied load against time (the lifts and the surcharge of the scenario), on the time axis of "
-                             "the charts below.", render(c)};
+    if (!vacuum_kPa.empty()) {
+        Series vacuum{"vacuum at the drain head (suction, kPa)", load.x, vacuum_kPa, 1};
+        c.series.push_back(vacuum);
+    }
+    return {"load-time.svg", std::string("Applied load against time (the lifts and the surcharge of the scenario") +
+                                 (vacuum_kPa.empty() ? "" : ", and the vacuum held through the drains") +
+                                 "), on the time axis of the charts below.",
+            render(c)};
+}
+
+// For a residual criterion: what would be left to settle if the deadline fell at each time, primary
+// and secondary, against the limit, at the recommended design.
+Chart residual_chart(const Site& site, const results::Curve& curve,
+                     const std::vector<results::DesignRecord::ResidualPoint>& points) {
+    const auto* r = site.criterion.residual();
+    LineChart c = time_chart(site, "Residual settlement, " + curve.drain + ", " + std::string(to_string(curve.pattern)) +
+                                       " at " + fixed(curve.spacing_m, 2) + " m",
+                             "deadline: time since start of loading (days)", "settlement still to come (mm)");
+    c.y_min = 0.0;
+    Series total{"residual (primary + secondary)", {}, {}, 0}, primary{"primary", {}, {}, 2}, secondary{"secondary", {}, {}, 1};
+    for (const auto& p : points) {
+        for (Series* ser : {&total, &primary, &secondary}) ser->x.push_back(days(p.time_s));
+        total.y.push_back(1000.0 * (p.primary_m + p.secondary_m));
+        primary.y.push_back(1000.0 * p.primary_m);
+        secondary.y.push_back(1000.0 * p.secondary_m);
+    }
+    c.series = {total, primary};
+    if (std::any_of(secondary.y.begin(), secondary.y.end(), [](double y) { return y > 0.0; })) c.series.push_back(secondary);
+    c.series.push_back({"limit " + fixed(r->limit_m * 1000.0, 0) + " mm", {total.x.front(), total.x.back()},
+                        {r->limit_m * 1000.0, r->limit_m * 1000.0}, 4});
+    return {"residual-time.svg",
+            "Settlement still to come " +
+                (r->service_s ? "over the " + fixed(days(*r->service_s), 0) + "-day service period"
+                              : std::string("to the end of primary consolidation")) +
+                " if the deadline fell at each time, split into primary and secondary, at the recommended design.",
+            render(c)};
 }
 
 Chart settlement_chart(const Site& site, const std::vector<results::Curve>& curves, bool log_time) {
@@ -369,12 +412,15 @@ ReportBundle build_report(const results::DesignRecord& record) {
                                  "and outlets.",
                                  sketch});
     if (!record.load_kPa.empty())
-        bundle.charts.push_back(load_chart(site, record.chart_curves.front(), record.load_kPa, record.log_time));
+        bundle.charts.push_back(
+            load_chart(site, record.chart_curves.front(), record.load_kPa, record.vacuum_kPa, record.log_time));
     for (const auto& curve : record.chart_curves) bundle.charts.push_back(degree_chart(site, curve, record.log_time));
     if (!record.spacing_vs_time.empty())
         bundle.charts.push_back(design_chart(site, record.spacing_vs_time, record.chart_curves.front().drain));
     if (!record.chart_curves.empty() && record.chart_curves.front().points.front().settlement_m)
         bundle.charts.push_back(settlement_chart(site, record.chart_curves, record.log_time));
+    if (!record.residual_vs_time.empty())
+        bundle.charts.push_back(residual_chart(site, record.chart_curves.front(), record.residual_vs_time));
     for (auto& c : study_charts(record.studies, record.chart_curves, record.result)) bundle.charts.push_back(std::move(c));
     if (record.stages)
         for (auto& c : stage_charts(*record.stages)) bundle.charts.push_back(std::move(c));

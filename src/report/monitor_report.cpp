@@ -48,7 +48,8 @@ json plate_json(const results::PlateAnalysis& a) {
                             return rs;
                         }()},
                        {"ch_m2_per_year", a.asaoka_ch_m2_per_s ? json(per_year(*a.asaoka_ch_m2_per_s)) : json(nullptr)},
-                       {"reliable", a.asaoka_reliable}};
+                       {"reliable", a.asaoka_reliable},
+                       {"flags", a.asaoka_flags}};
     else p["asaoka"] = nullptr;
     if (a.hyperbolic)
         p["hyperbolic"] = {{"final_settlement_mm", a.hyperbolic->final_settlement_m * 1000.0},
@@ -72,6 +73,7 @@ json plate_json(const results::PlateAnalysis& a) {
     }
     p["forecast"] = a.fitted_forecast ? forecast_json(*a.fitted_forecast, true) : json(nullptr);
     p["design_forecast"] = forecast_json(a.design_forecast, a.design_final_m.has_value());
+    p["design_forecast"]["final_settlement_mm"] = a.design_final_m ? json(*a.design_final_m * 1000.0) : json(nullptr);
     json notes = json::array();
     for (const auto& n : a.notes) notes.push_back(n);
     p["notes"] = notes;
@@ -131,7 +133,9 @@ std::string monitor_table(const results::MonitorRecord& r) {
     for (const auto& a : r.plates) {
         const auto& f = a.fitted_forecast;
         rows.push_back({a.plate, std::to_string(a.readings), fixed(days(a.now_s), 0),
-                        a.asaoka ? fixed(a.asaoka->final_settlement_m * 1000.0, 0) + (a.asaoka_reliable ? "" : "?") : "–",
+                        a.asaoka ? fixed(a.asaoka->final_settlement_m * 1000.0, 0) + (a.asaoka_reliable ? "" : "?") +
+                                       (a.asaoka_flags.empty() ? "" : "!")
+                                 : "–",
                         a.asaoka_ch_m2_per_s ? fixed(per_year(*a.asaoka_ch_m2_per_s), 2) : "–",
                         a.hyperbolic ? fixed(a.hyperbolic->final_settlement_m * 1000.0, 0) : "–",
                         a.fit ? fixed(a.fit->ch_factor, 3) + (a.fit_reliable ? "" : "?") : "–",
@@ -152,8 +156,9 @@ std::string monitor_table(const results::MonitorRecord& r) {
     o << text_table({"plate", "readings", "last day", "Asaoka s∞ mm", "Asaoka ch m²/yr", "hyperbolic s∞ mm", "ch factor",
                      "factor 95 %", "fit s∞ mm", "U now %", "criterion day", "residual mm", "surcharge off day"},
                     rows, 1);
-    o << "\n'?' marks a value too uncertain to rely on (see the notes); without a reliable fit the forecast columns are "
-         "the design's.\n";
+    o << "\n'?' marks a value too uncertain to rely on, '!' an s∞ that is not the final settlement under the permanent "
+         "fill (taken under vacuum or before the last lift; see the notes); without a reliable fit the forecast columns "
+         "are the design's.\n";
     for (const auto& a : r.plates)
         for (const auto& n : a.notes) o << "  " << a.plate << ": " << n << "\n";
     for (const auto& w : r.warnings) o << "Warning: " << w << "\n";

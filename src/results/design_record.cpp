@@ -95,6 +95,21 @@ std::vector<SubLayerRow> sublayer_rows(const DesignRecord& record) {
         }
     return out;
 }
+// The residual at about residual_chart_points of the curve's times after day 0 (each point costs a
+// time-to-degree root for the end of primary, so the chart takes fewer points than the curves).
+std::vector<DesignRecord::ResidualPoint> residual_series(const Site& site, const Curve& curve) {
+    constexpr std::size_t residual_chart_points = 40;
+    const auto model = make_cell_model(site, site.product(curve.drain), curve.pattern, curve.spacing_m);
+    const auto service = site.criterion.residual()->service_s;
+    const std::size_t step = std::max<std::size_t>(1, curve.points.size() / residual_chart_points);
+    std::vector<DesignRecord::ResidualPoint> out;
+    for (std::size_t i = step; i < curve.points.size(); i += step) {
+        const double t = curve.points[i].time_s;
+        const auto parts = model->residual_parts(t, service);
+        out.push_back({t, parts.primary_m, parts.secondary_m});
+    }
+    return out;
+}
 }  // namespace
 
 DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& options) {
@@ -114,7 +129,12 @@ DesignRecord design_record(const scenario::Scenario& s, const RecordOptions& opt
         }
     record.log_time = options.charts && options.log_time;
     if (site.loading && !record.chart_curves.empty())
-        for (const auto& p : record.chart_curves.front().points) record.load_kPa.push_back(site.loading->applied_at_kPa(p.time_s));
+        for (const auto& p : record.chart_curves.front().points) {
+            record.load_kPa.push_back(site.loading->applied_at_kPa(p.time_s));
+            if (const auto& v = site.loading->vacuum) record.vacuum_kPa.push_back(v->pressure_at_kPa(p.time_s));
+        }
+    if (!record.chart_curves.empty() && site.criterion.residual() && site.has_settlement())
+        record.residual_vs_time = residual_series(site, record.chart_curves.front());
     record.assumptions = assumptions(site);
     record.method_notes = method_notes(site);
     record.sublayers = sublayer_rows(record);

@@ -74,8 +74,18 @@ struct DesignRecord {
         double kh_m_per_s = 0.0;
     };
     std::vector<CellLayer> cell_layers;
-    // The applied load (kPa) at the chart times (empty without a load history or charts).
+    // The applied load (kPa) at the chart times (empty without a load history or charts), and the
+    // vacuum at the drain head (kPa) at the same times (empty without a vacuum).
     std::vector<double> load_kPa;
+    std::vector<double> vacuum_kPa;
+    // For a residual criterion: the residual settlement of the first chart curve's design if the
+    // deadline fell at each time, split into primary and secondary (CellModel::residual_parts).
+    struct ResidualPoint {
+        double time_s = 0.0;
+        double primary_m = 0.0;
+        double secondary_m = 0.0;
+    };
+    std::vector<ResidualPoint> residual_vs_time;
     std::vector<std::string> warnings;
     std::vector<std::string> assumptions;
     std::vector<std::string> method_notes;

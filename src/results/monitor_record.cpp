@@ -17,16 +17,43 @@ using report::fixed;
 double days(double s) { return units::seconds_to_days(s); }
 constexpr int chart_points = 120;
 
-// The last change of load: the end of the last permanent stage or of the surcharge's placing, or
-// the plate's own last change of fill height, whichever is later.
-double last_load_change_s(const Site& site, const scenario::PlateRecord& plate) {
+// The last change of load by the last reading: the end of the last stage (top-up included) or of the
+// surcharge's placing begun by then, or the plate's own last change of fill height, whichever is
+// later. A lift still being placed at the last reading moves the window past it (Asaoka then has no
+// readings to use, rightly).
+double last_load_change_s(const Site& site, const scenario::PlateRecord& plate, double now_s) {
     double t = 0.0;
     if (site.loading) {
-        t = site.loading->end_of_construction_s();
-        if (site.loading->surcharge) t = std::max(t, site.loading->surcharge->end_s);
+        for (const auto& st : site.loading->stages)
+            if (st.start_s <= now_s) t = std::max(t, st.end_s);
+        if (const auto& su = site.loading->surcharge; su && su->start_s <= now_s) t = std::max(t, su->end_s);
     }
     if (plate.last_fill_change_s) t = std::max(t, *plate.last_fill_change_s);
     return t;
+}
+
+// The plan's last change of load (its last lift or the surcharge's placing).
+double planned_last_load_change_s(const Site& site) {
+    if (!site.loading) return 0.0;
+    double t = site.loading->end_of_construction_s();
+    if (site.loading->surcharge) t = std::max(t, site.loading->surcharge->end_s);
+    return t;
+}
+
+// Flags an s∞ that is not the final settlement under the permanent fill (a note says why).
+void flag_asaoka(PlateAnalysis& a, const Site& site) {
+    if (!site.loading) return;
+    if (const auto& v = site.loading->vacuum; v && v->start_s < a.now_s && v->end_s > a.window_start_s) {
+        a.asaoka_flags.emplace_back("under_vacuum");
+        a.notes.push_back("Asaoka: s∞ is taken while the vacuum acts (day " + fixed(days(v->start_s), 0) + " to " +
+                          fixed(days(v->end_s), 0) + "): the limit under fill and vacuum together, not the final "
+                          "settlement under the fill alone");
+    }
+    if (const double last = planned_last_load_change_s(site); last > a.now_s) {
+        a.asaoka_flags.emplace_back("before_last_lift");
+        a.notes.push_back("Asaoka: s∞ is taken before the last lift of the plan (placed by day " + fixed(days(last), 0) +
+                          "): the limit of the load placed so far, not of the full load");
+    }
 }
 
 void analyse_asaoka(PlateAnalysis& a, const std::vector<monitoring::Reading>& used, const Site& site, const CellModel& design,
@@ -90,7 +117,6 @@ MonitorRecord monitor_record(const scenario::Scenario& s, const std::string& dra
         PlateAnalysis a;
         a.plate = plate.plate;
         a.readings = plate.readings.size();
-        a.window_start_s = last_load_change_s(s.site, plate);
         std::vector<monitoring::Reading> used = plate.readings;
         if (s.site.loading && s.site.loading->surcharge && plate.readings.back().time_s > s.site.loading->surcharge->removal_s) {
             a.window_end_s = s.site.loading->surcharge->removal_s;
@@ -104,7 +130,9 @@ MonitorRecord monitor_record(const scenario::Scenario& s, const std::string& dra
             continue;
         }
         a.now_s = used.back().time_s;
+        a.window_start_s = last_load_change_s(s.site, plate, a.now_s);
         analyse_asaoka(a, used, s.site, *design, asaoka_interval_s);
+        if (a.asaoka) flag_asaoka(a, s.site);
         try {
             a.hyperbolic = monitoring::hyperbolic(used, a.window_start_s);
         } catch (const EvaluationError& e) {

@@ -25,6 +25,10 @@ struct PlateAnalysis {
     std::optional<monitoring::AsaokaFit> asaoka;
     std::optional<double> asaoka_ch_m2_per_s;
     bool asaoka_reliable = false;
+    // Why Asaoka's s∞ is not the final settlement under the permanent fill (its value is kept, shown
+    // with the flag): "under_vacuum" (the window overlaps the vacuum), "before_last_lift" (the plan
+    // places more load after the last reading).
+    std::vector<std::string> asaoka_flags;
     std::optional<monitoring::HyperbolicFit> hyperbolic;
     std::optional<monitoring::DirectFit> fit;
     bool fit_reliable = false;

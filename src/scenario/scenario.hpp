@@ -76,6 +76,15 @@ struct TopUpPlan {
     std::optional<std::size_t> stage;  // its index in site.loading.stages; none when none is needed
 };
 
+// The optional `calibration:` block: factors from a monitoring back-analysis (`monitor`'s fit.ch_factor)
+// applied to every layer's ch (and cv) when the file is read, so every command re-plans the rest of
+// the works on the back-analysed ground. The factors are those `sweep` varies (StudyInput::ch_factor).
+struct Calibration {
+    double ch_factor = 1.0;
+    double cv_factor = 1.0;
+    std::optional<std::string> source;  // where the factors came from (readings, date, plates)
+};
+
 struct Scenario {
     std::string file;
     std::string title;
@@ -86,6 +95,7 @@ struct Scenario {
     std::optional<double> fill_unit_weight_kN_per_m3;
     std::optional<double> surcharge_max_height_m;
     std::optional<TopUpPlan> top_up;
+    std::optional<Calibration> calibration;  // applied to site.ground already
     std::optional<double> mandrel_width_m;  // as given (the site keeps the equivalent diameter)
     StudyRequests studies;
     // Values allowed but outside the usual ranges (plausibility.hpp), located; every command shows them.

@@ -175,7 +175,7 @@ private:
 const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "drains", "drain_length_m",
                                         "drain_outlets", "installation", "patterns", "spacing", "studies",
                                         "uncertain", "fill_unit_weight_kN_per_m3", "loading", "method",
-                                        "numerical_mesh", "project", "series_terms", "embankment"};
+                                        "numerical_mesh", "project", "series_terms", "embankment", "calibration"};
 
 void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "target");
@@ -407,6 +407,24 @@ void read_project(const Reader& r, const YAML::Node& root, Scenario& s) {
     field("prepared_by", s.project.prepared_by);
     field("checked_by", s.project.checked_by);
     field("date", s.project.date);
+}
+
+// Factors from a monitoring back-analysis, applied to the clay as `sweep` applies its ch and cv factors.
+void read_calibration(const Reader& r, const YAML::Node& root, Scenario& s) {
+    if (!root["calibration"]) return;
+    const YAML::Node node = root["calibration"];
+    r.expect_map(node, "calibration");
+    r.allow_keys(node, "calibration", {"ch_factor", "cv_factor", "source"});
+    if (!node["ch_factor"] && !node["cv_factor"])
+        r.fail(node, "calibration", "give 'ch_factor' (monitor's fit.ch_factor) and/or 'cv_factor'");
+    constexpr Range factor{0.02, true, 50.0, true, "(a factor on every layer's coefficient; 0.02 to 50)"};
+    Calibration c;
+    c.ch_factor = r.optional_number(node, "calibration", "ch_factor", factor).value_or(1.0);
+    c.cv_factor = r.optional_number(node, "calibration", "cv_factor", factor).value_or(1.0);
+    if (node["source"]) c.source = r.text(node["source"], "calibration.source");
+    s.site = with_input(s.site, StudyInput::ch_factor, c.ch_factor);
+    s.site = with_input(s.site, StudyInput::cv_factor, c.cv_factor);
+    s.calibration = c;
 }
 
 void read_installation(const Reader& r, const YAML::Node& root, Scenario& s) {
@@ -993,6 +1011,7 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     read_target(r, root, s);
     read_method(r, root, s);
     read_clay(r, root, s);
+    read_calibration(r, root, s);
     read_embankment(r, root, s);
     read_loading(r, root, s);
     check_embankment(s);

@@ -72,6 +72,41 @@ def not_blank(png):
         return colours is not None and len(colours) > 20
 
 
+def printed_inputs(text):
+    """What the printed Inputs table must show for a scenario file's keys: the phrase and, where the
+    file gives one number, that number as the note formats it."""
+    def number(key):
+        m = re.search(rf"\b{key}:\s*(-?[\d.]+)", text)
+        return float(m.group(1)) if m else None
+    wanted = []
+    for key, phrase, digits, unit in (("crest_width_m", "crest width", 2, " m"), ("side_slope_h_per_v", "side slopes", 2, " horizontal"),
+                                      ("fill_friction_angle_deg", "φ′ =", 1, "°"), ("fill_cohesion_kPa", "c′ =", 1, " kPa"),
+                                      ("target_factor_of_safety", "", 2, " for every stage"),
+                                      ("finished_height_m", "", 2, " m above the original ground"),
+                                      ("su_top_kPa", "su =", 1, " kPa at the top of the layer"),
+                                      ("groundwater_depth_m", "", 2, " m below the top of the clay")):
+        value = number(key)
+        if value is not None:
+            wanted.append(f"{phrase}{' ' if phrase else ''}{value:.{digits}f}{unit}")
+    if "berms:" in text:
+        wanted += ["berm 1", "on each side"]
+    if "finished_height_m" in text:
+        wanted += ["finished level", "top-up"]
+    if "embankment:" in text:
+        wanted += ["target factor of safety", "fill strength", "embankment section"]
+    if "su_ratio" in text:
+        wanted.append("(Ladd & Foott 1974)")
+    if "su_top_kPa" in text:
+        wanted.append("gain Δsu/Δσ′v =")
+    if "c_alpha" in text:
+        wanted.append("Δe per log cycle of time")
+    if "vacuum:" in text:
+        wanted.append("kPa at the drain head")
+    if "service_days" in text:
+        wanted.append("days of service")
+    return wanted
+
+
 def main():
     work = tempfile.mkdtemp(prefix="wickgrid-report-")
     bundled = ["demo/scenario.yaml"] + sorted("configs/" + f for f in os.listdir(os.path.join(SOURCE, "configs")) if f.endswith(".yaml"))
@@ -90,6 +125,9 @@ def main():
             svg = ET.parse(os.path.join(out, f)).getroot()
             check(svg.tag == SVG_NS + "svg", f"{f}: root {svg.tag}")
             check(svg.find(SVG_NS + "title") is not None, f"{f}: no title")
+            desc = svg.find(SVG_NS + "desc")
+            check(desc is not None and "scenario SHA-256: " in (desc.text or "") and "caution:" in (desc.text or ""),
+                  f"{f}: no trace (<desc> with the scenario's SHA-256 and the caution)")
             check(any(t.text for t in svg.iter(SVG_NS + "text")), f"{f}: no axis text")
         # Nothing external: no URLs other than the SVG namespace, no src/href attributes.
         external = [u for u in re.findall(r"(?:https?|ftp)://[^\s\"'<>)]+", text) if u != "http://www.w3.org/2000/svg"]
@@ -205,6 +243,10 @@ def main():
                 for w, h in re.findall(r"Page\s+\d+ size:\s+([\d.]+) x ([\d.]+) pts", info):
                     check(max(float(w), float(h)) <= 842.5 and min(float(w), float(h)) <= 595.5,
                           f"{scenario}: a printed page is larger than A4: {w} x {h} pts")
+                # Every input a number depends on can be read from the paper (reading order, spaces collapsed).
+                flowing = " ".join(subprocess.run(["pdftotext", pdf, "-"], capture_output=True, text=True).stdout.split())
+                for expected in printed_inputs(open(os.path.join(SOURCE, scenario), encoding="utf-8").read()):
+                    check(expected in flowing, f"{scenario}: printed inputs lack '{expected}'")
         # The layout page: the plan view renders, prints on A4 and requests nothing.
         layout_out = os.path.join(work, "layout")
         r = wickgrid("layout", os.path.join(SOURCE, "demo/scenario.yaml"), "--area", os.path.join(SOURCE, "demo/zone-c-area.geojson"),
