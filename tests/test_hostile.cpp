@@ -1,6 +1,7 @@
 // Hostile input: every case ends quickly with a named error and its exit code; no input is
 // overwritten, no temporary is left, no output set is half written, no text breaks an output format.
 #include <gtest/gtest.h>
+#include <unistd.h>
 
 #include <nlohmann/json.hpp>
 
@@ -152,6 +153,16 @@ TEST(Hostile, NoCommandWritesOverItsInput) {
     }
 }
 
+// The host name as the writer puts it in staging folder names ('/' and '.' made '_').
+std::string this_host() {
+    char name[256] = {};
+    if (::gethostname(name, sizeof name - 1) != 0 || name[0] == '\0') return "host";
+    std::string out(name);
+    for (char& c : out)
+        if (c == '/' || c == '.') c = '_';
+    return out;
+}
+
 TEST(Hostile, OutputsReplaceLinksAndLeaveNoTemporaries) {
     const fs::path dir = scratch();
     const fs::path victim = dir / "victim.txt";
@@ -159,14 +170,46 @@ TEST(Hostile, OutputsReplaceLinksAndLeaveNoTemporaries) {
     const fs::path out = dir / "out";
     fs::create_directories(out);
     fs::create_symlink(victim, out / "design.json");  // a link planted at an output name
-    fs::create_directories(out / ".wickgrid-out-999999999-abcdef");  // left by a killed run (no such pid)
+    fs::create_directories(out / (".wickgrid-staging." + this_host() + ".999999999.abcdef"));  // left by a killed run
+    fs::create_directories(out / ".wickgrid-staging.other_host.12.abcdef");  // another host's: may be live
+    fs::create_directories(out / ".wickgrid-out-1-abcdef");                  // a user's folder, whatever its name
     const CommandRun r = run("design " + source("demo/scenario.yaml") + " --out " + out.string());
     ASSERT_EQ(r.exit_code, 0) << r.err;
     EXPECT_EQ(slurp(victim), "keep me");
     EXPECT_FALSE(fs::is_symlink(out / "design.json"));
     EXPECT_NO_THROW(json::parse(slurp(out / "design.json")));
-    for (const auto& entry : fs::directory_iterator(out))
-        EXPECT_NE(entry.path().filename().string()[0], '.') << "temporary left: " << entry.path();
+    EXPECT_TRUE(fs::exists(out / ".wickgrid-staging.other_host.12.abcdef"));
+    EXPECT_TRUE(fs::exists(out / ".wickgrid-out-1-abcdef"));
+    for (const auto& entry : fs::directory_iterator(out)) {
+        const std::string name = entry.path().filename().string();
+        if (name == ".wickgrid-lock" || name == ".wickgrid-out-1-abcdef" || name == ".wickgrid-staging.other_host.12.abcdef")
+            continue;
+        EXPECT_NE(name[0], '.') << "temporary left: " << entry.path();
+    }
+    fs::remove_all(dir);
+}
+
+// An output name taken by a folder is found before anything is replaced: exit 3, the old set whole.
+// A scenario named like a staging folder keeps its outputs (folders for files never start with '.').
+TEST(Hostile, OutputSetsAreNeverMixed) {
+    const fs::path dir = scratch();
+    const fs::path out = dir / "out";
+    ASSERT_EQ(run("design " + source("demo/scenario.yaml") + " --out " + out.string()).exit_code, 0);
+    const std::string before = slurp(out / "design.json");
+    fs::remove(out / "design.md");
+    fs::create_directories(out / "design.md");
+    const CommandRun taken = run("design " + source("configs/residual-settlement.yaml") + " --out " + out.string());
+    EXPECT_EQ(taken.exit_code, 3) << taken.err;
+    EXPECT_NE(taken.err.find("a folder has that name"), std::string::npos) << taken.err;
+    EXPECT_EQ(slurp(out / "design.json"), before);
+    const std::string stem = ".wickgrid-staging." + this_host() + ".999999999.abcdef";
+    const fs::path odd = dir / (stem + ".yaml");
+    fs::copy_file(source("demo/scenario.yaml"), odd);
+    const fs::path batch = dir / "batch";
+    const CommandRun r = run("design " + odd.string() + " " + source("demo/scenario.yaml") + " --out " + batch.string());
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    EXPECT_TRUE(fs::exists(batch / ("_" + stem.substr(1)) / "design.json"));
+    EXPECT_TRUE(fs::exists(batch / "scenario" / "design.json"));
     fs::remove_all(dir);
 }
 
@@ -283,3 +326,70 @@ TEST(Hostile, PathsThatAreNotUtf8AreShownEscaped) {
     EXPECT_NE(missing.err.find("gone\\xe9.yaml"), std::string::npos) << missing.err;
     fs::remove_all(dir.parent_path());
 }
+
+namespace {
+// Work is bounded when the file is read: lists beyond the named limits, and days beyond the 100-year
+// record, are refused at their key in the file's own units; a value just over a limit is shown with
+// the digits that make it so.
+TEST(Hostile, ListsAndDaysAreBoundedAtTheirKey) {
+    std::string many_layers = "    - {thickness_m: 0.05, unit_weight_kN_per_m3: 16.0, e0: 2.0, cc: 0.9, cr: 0.1, ocr: 1.2}\n";
+    std::string layers;
+    for (int i = 0; i < 201; ++i) layers += many_layers;
+    std::string stages;
+    for (int i = 0; i < 101; ++i)
+        stages += "    - {start_day: " + std::to_string(i) + ", end_day: " + std::to_string(i) + ".5, height_m: 0.01}\n";
+    std::string berms = "[";
+    for (int i = 0; i < 21; ++i) berms += std::string(i ? ", " : "") + "{width_m: 1.0, height_m: " + std::to_string(3.0 - 0.1 * i) + "}";
+    berms += "]";
+    struct Row {
+        std::string text, key, message;
+    };
+    const std::string staged = "configs/staged-surcharge.yaml";
+    const std::vector<Row> rows{
+        {edited_copy(staged, "    - {thickness_m: 2.0, unit_weight_kN_per_m3: 17.0, e0: 1.4, cc: 0.45, cr: 0.06, ocr: 2.5}   # weathered crust\n", layers),
+         "clay.layers", "at most 200"},
+        {edited_copy(staged, "    - {start_day: 0, end_day: 20, height_m: 1.5}\n", stages), "loading.stages", "at most 100"},
+        {edited_copy("configs/staged-embankment-stability.yaml", "[{width_m: 12.0, height_m: 2.5}]", berms), "embankment.berms",
+         "at most 20"},
+        {edited_copy(staged, "{start_day: 0, end_day: 20, height_m: 1.5}", "{start_day: 1e305, end_day: 1e305, height_m: 1.5}"),
+         "loading.stages[0].start_day", "within 100 years"},
+        {edited_copy(staged, "deadline_days: 300", "deadline_days: 1e305"), "target.deadline_days", "within 100 years"},
+        {edited_copy("configs/vacuum-with-fill.yaml", "pressure_kPa: 70", "pressure_kPa: 100.0001"), "loading.vacuum.pressure_kPa",
+         "100.0001"},
+    };
+    for (const auto& row : rows) {
+        const auto file = write_case(row.text);
+        const CommandRun r = run("check " + file.string());
+        EXPECT_EQ(r.exit_code, 2) << row.key << ": " << r.err;
+        EXPECT_NE(r.err.find(row.key), std::string::npos) << r.err;
+        EXPECT_NE(r.err.find(row.message), std::string::npos) << r.err;
+        EXPECT_NE(r.err.find(file.string() + ":"), std::string::npos) << "located: " << r.err;
+    }
+}
+
+// An Asaoka interval that would resample the record into millions of points: exit 2 naming the
+// option, before any work.
+TEST(Hostile, AsaokaIntervalIsBounded) {
+    const CommandRun r = run("monitor " + source("configs/staged-surcharge.yaml") + " --readings " +
+                             source("configs/staged-surcharge-readings.csv") +
+                             " --drain band-100x4 --pattern triangular --spacing 1.5 --interval-days 1e-300");
+    EXPECT_EQ(r.exit_code, 2) << r.err;
+    EXPECT_NE(r.err.find("--interval-days"), std::string::npos) << r.err;
+    EXPECT_NE(r.err.find("1e-300"), std::string::npos) << r.err;
+}
+}  // namespace
+
+namespace {
+// A lift placed over 1e-9 day is below what the time integration resolves: taken as placed at once,
+// with a located warning (and the design then costs what an instantaneous lift costs).
+TEST(Hostile, LiftsPlacedInAnInstantArePlacedAtOnce) {
+    const auto file = write_case(edited_copy("configs/staged-surcharge.yaml", "{start_day: 45, end_day: 60, height_m: 1.5}",
+                                             "{start_day: 45, end_day: 45.000000001, height_m: 1.5}"));
+    const CommandRun r = run("design " + file.string() + " --json");
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    EXPECT_NE(r.err.find("loading.stages[1]: placed over 1e-09 days, less than 0.001 day: taken as placed at once on day 45"),
+              std::string::npos)
+        << r.err;
+    EXPECT_NE(r.err.find(file.string() + ":"), std::string::npos) << r.err;
+}
+}  // namespace

@@ -233,6 +233,26 @@ struct BadAreaRow {
     std::optional<std::size_t> ring;
 };
 
+// Two far-apart parts, one with a detailed (20,000-vertex) outline: each row is cut only by the parts
+// it crosses, and the layout of both is the layouts of each alone (the same lattice, fixed origin).
+TEST(Layout, FarApartPartsAreLaidAsEachAlone) {
+    Ring circle;
+    constexpr int vertices = 20000;
+    for (int i = 0; i < vertices; ++i) {
+        const double a = 2.0 * std::numbers::pi * i / vertices;
+        circle.push_back({50.0 + 6.0 * std::cos(a), 50.0 + 6.0 * std::sin(a)});
+    }
+    const Area detailed{{{circle, {}}}};
+    const Area square{{{rectangle(0.0, 100000.0, 10.0, 100010.0), {}}}};
+    const Area both{{{circle, {}}, {rectangle(0.0, 100000.0, 10.0, 100010.0), {}}}};
+    const LatticeSpec spec{Pattern::square, 1.0, 0.0, Point{0, 0}, 0.0};
+    const auto a = lay_out(detailed, {}, spec, full_drains, no_cap).drains.size();
+    const auto b = lay_out(square, {}, spec, full_drains, no_cap).drains.size();
+    EXPECT_EQ(b, 121u);  // hand count: 11 × 11
+    EXPECT_GT(a, 100u);  // about π·6² = 113
+    EXPECT_EQ(lay_out(both, {}, spec, full_drains, no_cap).drains.size(), a + b);
+}
+
 TEST(Layout, MalformedAreasAreNamed) {
     const std::vector<BadAreaRow> rows{
         {"figure of eight", {{{{{0, 0}, {10, 10}, {10, 0}, {0, 10}}, {}}}}, "crosses itself", 0},
@@ -242,7 +262,9 @@ TEST(Layout, MalformedAreasAreNamed) {
         {"collinear", {{{{{0, 0}, {5, 5}, {10, 10}}, {}}}}, "zero area", 0},
         {"not finite", {{{{{0, 0}, {10, 0}, {NAN, 10}}, {}}}}, "not a finite number", 0},
         {"beyond any projected system", {{{{{0, 0}, {1e12, 0}, {1e12, 10}}, {}}}}, "beyond ±10⁹ m", 0},
-        {"hole outside", {{{rectangle(0, 0, 10, 10), {rectangle(20, 20, 21, 21)}}}}, "hole outside", std::nullopt},
+        // The hole itself is named (ring 2 of the part: the outline is ring 0), the sentence has its subject.
+        {"hole outside", {{{rectangle(0, 0, 10, 10), {rectangle(3, 3, 4, 4), rectangle(20, 20, 21, 21)}}}},
+         "hole lies outside its outline", 2},
         {"bad hole", {{{rectangle(0, 0, 10, 10), {{{2, 2}, {3, 3}}}}}}, "hole has fewer than 3", 1},
         {"overlapping parts", {{{rectangle(0, 0, 10, 10), {}}, {rectangle(5, 5, 15, 15), {}}}}, "overlap", std::nullopt},
     };

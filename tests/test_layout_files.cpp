@@ -119,6 +119,59 @@ TEST(AreaFiles, CsvVerticesWithPartsAndHoles) {
     EXPECT_DOUBLE_EQ(layout::area_m2(f.area), 100.0 * 100.0 - 400.0 + 5000.0);
 }
 
+// What spreadsheets and GIS exports do to files: a byte-order mark before a GeoJSON object (RFC 7946
+// §4 lets a reader ignore it), line ends of CR alone, an empty file named .geojson.
+TEST(AreaFiles, ExportQuirksAreReadOrNamed) {
+    const AreaFile bom = parse_area("\xEF\xBB\xBF" + std::string(square_geojson), "a.geojson", false);
+    EXPECT_DOUBLE_EQ(layout::area_m2(bom.area), 100.0 * 100.0 - 20.0 * 20.0);
+    const AreaFile cr = parse_area("x_m,y_m\r500000,4000000\r500100,4000000\r500100,4000100\r", "a.csv", false);
+    EXPECT_DOUBLE_EQ(layout::area_m2(cr.area), 0.5 * 100.0 * 100.0);
+    const ScenarioError cr_error = failure([] { parse_area("x_m,y_m\r500000,4000000\r500100,north\r", "a.csv", false); });
+    EXPECT_EQ(cr_error.mark().line, 3) << cr_error.what();
+    const ScenarioError empty = failure([] { parse_area(" \n", "zone.geojson", false); });
+    EXPECT_NE(std::string(empty.what()).find("is empty; a GeoJSON Polygon"), std::string::npos) << empty.what();
+    const ScenarioError empty_csv = failure([] { parse_area("", "zone.csv", false); });
+    EXPECT_NE(std::string(empty_csv.what()).find("is empty; a header row"), std::string::npos) << empty_csv.what();
+}
+
+// A parcel export of 20,000 lots reads in one pass (a lot is located only when it is at fault), and
+// the fault in the last lot is still found at its line; nesting beyond 32 levels is refused.
+TEST(AreaFiles, LargeExportsReadInOnePassAndNestingIsBounded) {
+    auto lot = [](int i, bool bad) {
+        const double x = 500000.0 + 20.0 * (i % 200), y = 4000000.0 + 20.0 * (i / 200);
+        char text[400];
+        if (bad)  // a figure of eight
+            std::snprintf(text, sizeof text,
+                          "{\"type\":\"Feature\",\"properties\":{},\"geometry\":{\"type\":\"Polygon\",\"coordinates\":"
+                          "[[[%.1f,%.1f],[%.1f,%.1f],[%.1f,%.1f],[%.1f,%.1f],[%.1f,%.1f]]]}}",
+                          x, y, x + 10, y + 10, x + 10, y, x, y + 10, x, y);
+        else
+            std::snprintf(text, sizeof text,
+                          "{\"type\":\"Feature\",\"properties\":{},\"geometry\":{\"type\":\"Polygon\",\"coordinates\":"
+                          "[[[%.1f,%.1f],[%.1f,%.1f],[%.1f,%.1f],[%.1f,%.1f],[%.1f,%.1f]]]}}",
+                          x, y, x + 10, y, x + 10, y + 10, x, y + 10, x, y);
+        return std::string(text);
+    };
+    constexpr int lots = 20000;
+    std::string good = "{\"type\":\"FeatureCollection\",\"features\":[\n", bad = good;
+    for (int i = 0; i < lots; ++i) {
+        good += lot(i, false) + (i + 1 < lots ? ",\n" : "\n");
+        bad += lot(i, i + 1 == lots) + (i + 1 < lots ? ",\n" : "\n");
+    }
+    good += "]}";
+    bad += "]}";
+    const AreaFile f = parse_area(good, "lots.geojson", false);
+    EXPECT_EQ(f.area.parts.size(), static_cast<std::size_t>(lots));
+    EXPECT_DOUBLE_EQ(layout::area_m2(f.area), lots * 100.0);
+    const ScenarioError e = failure([&] { parse_area(bad, "lots.geojson", false); });
+    EXPECT_EQ(e.mark().line, lots + 1) << e.what();
+    EXPECT_NE(std::string(e.what()).find("crosses itself"), std::string::npos) << e.what();
+    std::string nested = "{\"type\":\"Polygon\",\"coordinates\":[[[0,0],[100,0],[100,100],[0,0]]]}";
+    for (int i = 0; i < 40; ++i) nested = "{\"type\":\"Feature\",\"properties\":{},\"geometry\":" + nested + "}";
+    const ScenarioError deep = failure([&] { parse_area(nested, "deep.geojson", true); });
+    EXPECT_NE(std::string(deep.what()).find("nested more than 32 levels"), std::string::npos) << deep.what();
+}
+
 TEST(AreaFiles, CsvErrorsAreLocated) {
     const std::vector<LocatedRow> rows{
         {"not a number", "x_m,y_m\n500000,4000000\n500100,north\n500100,4000100\n", false, 3, "y_m", "not a number"},

@@ -247,6 +247,20 @@ TEST(StagesCommand, JsonKeepsTheContractAndTheChartAgreesWithTheTable) {
     EXPECT_TRUE(doc.at("stages").back().at("earliest_next_start_day").is_null());
 }
 
+// The section figure can be checked against the inputs: groundwater, the section's dimensions and
+// each layer's strength as the scenario gives them (configs/staged-embankment-stability.yaml).
+TEST(StagesCommand, SectionFigureShowsGroundwaterDimensionsAndStrength) {
+    const fs::path out = scratch();
+    const auto r = run("stages " + source(staged) + " --out " + out.string());
+    ASSERT_LE(r.exit_code, 1) << r.err;
+    const std::string svg = slurp(out / "stages-section.svg");
+    for (const char* expected : {"groundwater 1.00 m below the original ground", "crest width 30.00 m", "side slopes 2.00 H : 1 V",
+                                 "berm 12.00 m wide × 2.50 m high", "layer 1, 2.00 m: su = 25.0 kPa at the top of the layer",
+                                 "layer 2, 6.00 m: su = S·σ′v·OCR^m with S = 0.250", "<desc>"})
+        EXPECT_NE(svg.find(expected), std::string::npos) << expected;
+    fs::remove_all(out);
+}
+
 // The plan starts each stage at the day its predecessor's check allows, and every planned stage
 // then meets the target.
 TEST(StagesCommand, PlanStartsEachStageAtTheEarliestDayAndMeetsTheTarget) {
@@ -305,6 +319,8 @@ TEST(StagesCommand, TopUpAfterSurchargeRemovalFollowsTheRemoval) {
     EXPECT_TRUE(st[4].at("surcharge").get<bool>());
     EXPECT_FALSE(st[5].at("surcharge").get<bool>());
     EXPECT_DOUBLE_EQ(st[5].at("start_day").get<double>(), 300.0);
+    EXPECT_EQ(st[5].at("stage").get<int>(), 5);  // numbered as the plan's load stage (the surcharge apart)
+    EXPECT_EQ(st[4].at("stage").get<int>(), 5);  // the surcharge: the number after the stages before it
     // The surcharge is off when the top-up is checked: the fill standing is the permanent load.
     EXPECT_NEAR(st[5].at("height_m").get<double>() * 19.0, doc.at("fill_to_finish").at("load_kPa").get<double>(), 1e-9);
     // Without a surcharge the rule is refused at its key.

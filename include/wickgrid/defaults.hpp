@@ -82,6 +82,15 @@ inline constexpr double max_coordinate_m = 1e9;
 // some tens of metres (common practice); no soft deposit treated with drains is a kilometre deep, so
 // a larger depth is a unit or typing error, refused at its line.
 inline constexpr double max_base_depth_m = 1000.0;
+// How much a scenario may list, so that reading and every command stay bounded (far beyond any real
+// section: a log of a few dozen layers, a couple of berms, a dozen lifts).
+inline constexpr std::size_t max_layers = 200;
+// A lift placed over less than this (days, about 1.4 minutes) is taken as placed at once (with a
+// warning): shorter ramps are below what the time integration resolves and only cost time.
+inline constexpr double shortest_placing_days = 1e-3;
+inline constexpr std::size_t max_berms = 20;
+inline constexpr std::size_t max_load_stages = 100;
+inline constexpr std::size_t max_drain_products = 200;
 
 // Layout.
 inline constexpr double layout_edge_offset_m = 0.0;  // drains may stand on the treatment area's edge

@@ -38,7 +38,8 @@ private:
 // Throws EvaluationError when a root finder used up its iteration cap.
 void require_converged(std::string_view what, unsigned long long iterations_used, unsigned long long cap);
 
-// Formats a value the way the error messages show it (6 significant digits, "nan"/"inf" spelled).
+// Formats a value the way the error messages show it: 6 significant digits, or up to 15 where fewer
+// would not give the value back; "nan"/"inf" spelled.
 std::string format_value(double value);
 
 namespace detail {

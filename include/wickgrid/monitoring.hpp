@@ -34,11 +34,13 @@ struct AsaokaFit {
 
 // The least number of resampled points Asaoka's fit takes (four pairs, two degrees of freedom left).
 inline constexpr std::size_t asaoka_min_points = 5;
+inline constexpr std::size_t asaoka_max_points = 10000;  // of the resampled record (an --interval-days bound)
 
 // Readings must be in ascending time. interval_s absent: the span after start_s divided into at
 // most 12 steps and at least the readings' own mean interval. Throws EvaluationError when fewer than
 // asaoka_min_points fit in the span or β1 is not within (0, 1) (the record does not settle towards
-// a limit yet); InputError for a non-positive interval. Cost O(readings). Thread-safe.
+// a limit yet); InputError for a non-positive interval or one that gives more than
+// asaoka_max_points. Cost O(readings + points). Thread-safe.
 AsaokaFit asaoka(const std::vector<Reading>& readings, double start_s, std::optional<double> interval_s);
 
 // The ch implied by β1 with radial and vertical drainage together (Magnan & Deroy 1980):

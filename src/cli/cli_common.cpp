@@ -160,6 +160,7 @@ std::vector<std::string> folder_names(const std::vector<std::string>& files) {
     for (const auto& f : files) {
         std::string stem = f == "-" ? "stdin" : std::filesystem::path(f).stem().string();
         if (stem.empty() || stem == "." || stem == "..") stem = "scenario";
+        if (stem.front() == '.') stem.front() = '_';  // hidden names are the writer's own (staging, lock)
         std::string name = stem;
         for (int k = 2; std::find(out.begin(), out.end(), name) != out.end(); ++k) name = stem + "-" + std::to_string(k);
         out.push_back(name);

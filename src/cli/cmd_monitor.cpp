@@ -6,6 +6,8 @@
 #include "report/monitor_report.hpp"
 #include "results/monitor_record.hpp"
 #include "scenario/readings_file.hpp"
+#include "wickgrid/errors.hpp"
+#include "wickgrid/monitoring.hpp"
 #include "wickgrid/units.hpp"
 
 namespace wickgrid::cli {
@@ -53,6 +55,16 @@ Runner add_monitor(CLI::App& app) {
             model_from_options(s, o->drain, pattern, o->spacing_m);  // the installed cell, refused with the option at fault
             const std::optional<double> asaoka_interval =
                 interval->count() > 0 ? std::optional(units::days_to_seconds(o->interval_days)) : std::nullopt;
+            if (asaoka_interval) {  // bounded before any work: the record from day 0 to its last reading
+                double last_s = 0.0;
+                for (const auto& plate : readings.plates) last_s = std::max(last_s, plate.readings.back().time_s);
+                if (!(last_s / *asaoka_interval < static_cast<double>(monitoring::asaoka_max_points)))
+                    throw UsageError("--interval-days",
+                                     format_value(o->interval_days) + " days resamples the record (to day " +
+                                         format_value(units::seconds_to_days(last_s)) + ") into more than " +
+                                         std::to_string(monitoring::asaoka_max_points) + " points; give at least " +
+                                         format_value(units::seconds_to_days(last_s) / monitoring::asaoka_max_points) + " days");
+            }
             auto record = results::monitor_record(s, s.drain(o->drain).name, pattern, o->spacing_m, readings, asaoka_interval);
             std::vector<std::string> inputs{file, o->readings};
             if (!o->piezometers.empty()) {

@@ -2,6 +2,7 @@
 
 #include <cmath>
 #include <cstdio>
+#include <cstdlib>
 
 namespace wickgrid {
 
@@ -28,8 +29,13 @@ void require_converged(std::string_view what, unsigned long long iterations_used
 std::string format_value(double value) {
     if (std::isnan(value)) return "nan";
     if (std::isinf(value)) return value > 0 ? "inf" : "-inf";
-    char buffer[32];
-    std::snprintf(buffer, sizeof buffer, "%.6g", value);
+    // Six significant digits when they give the value back, up to 15 when they do not: a message never
+    // shows 100.0001 as "100" beside a limit of 100, nor the last-bit noise of a unit conversion.
+    char buffer[40];
+    for (const int digits : {6, 10, 15}) {
+        std::snprintf(buffer, sizeof buffer, "%.*g", digits, value);
+        if (std::strtod(buffer, nullptr) == value) break;
+    }
     return buffer;
 }
 

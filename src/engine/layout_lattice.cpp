@@ -182,12 +182,34 @@ std::pair<long long, long long> index_range(double first, double last, std::size
 // of the region.
 // (Growing the region by a buffer did the same, but Boost's buffer asserts on some valid thin
 // polygons.)
-std::vector<std::pair<double, double>> row_spans(const BMulti& region, double u_low, double u_high, double v) {
+// The region's parts with their extent across the rows: a row is cut only by the parts it crosses,
+// so far-apart parts, one of them detailed, cost rows × (that part's vertices), not rows × all.
+struct RowPart {
+    BPolygon polygon;
+    double v_min = 0.0, v_max = 0.0;
+};
+
+std::vector<RowPart> row_parts(const BMulti& region) {
+    std::vector<RowPart> out;
+    for (const auto& polygon : region) {
+        bg::model::box<BPoint> box;
+        bg::envelope(polygon, box);
+        out.push_back({polygon, box.min_corner().y() - boundary_tolerance_m, box.max_corner().y() + boundary_tolerance_m});
+    }
+    return out;
+}
+
+std::vector<std::pair<double, double>> row_spans(const std::vector<RowPart>& parts, double u_low, double u_high, double v) {
     std::vector<std::pair<double, double>> spans;
     for (const double at : {v - boundary_tolerance_m, v, v + boundary_tolerance_m}) {
         const BLine line{{u_low, at}, {u_high, at}};
         BMultiLine pieces;
-        bg::intersection(line, region, pieces);
+        for (const RowPart& part : parts)
+            if (at >= part.v_min && at <= part.v_max) {
+                BMultiLine cut;
+                bg::intersection(line, part.polygon, cut);
+                pieces.insert(pieces.end(), cut.begin(), cut.end());
+            }
         for (const auto& piece : pieces) {
             if (piece.empty()) continue;
             double a = piece.front().x();
@@ -205,10 +227,10 @@ std::vector<std::pair<double, double>> row_spans(const BMulti& region, double u_
 
 // The lattice points of one row inside the region, as u positions in ascending order; at most
 // `room` of them.
-void row_points(const BMulti& region, double u_low, double u_high, double v, double shift_m, double spacing_m,
+void row_points(const std::vector<RowPart>& parts, double u_low, double u_high, double v, double shift_m, double spacing_m,
                 std::size_t room, std::size_t max_drains, std::vector<double>& us) {
     double last = -std::numeric_limits<double>::infinity();
-    for (const auto& [a, b] : row_spans(region, u_low, u_high, v)) {
+    for (const auto& [a, b] : row_spans(parts, u_low, u_high, v)) {
         // Overlapping spans (the three cuts, or pieces that share an end) give each point once.
         const double from = std::max(a, last);
         if (b < from) continue;
@@ -270,14 +292,28 @@ std::optional<AreaProblem> area_problem(const Area& area) {
         for (std::size_t h = 0; h < part.holes.size(); ++h)
             if (auto reason = ring_problem(part.holes[h])) return AreaProblem{i, h + 1, "hole " + *reason};
         bg::validity_failure_type failure{};
-        if (!bg::is_valid(to_boost(part), failure)) return AreaProblem{i, std::nullopt, validity_reason(failure)};
+        const BPolygon polygon = to_boost(part);
+        if (bg::is_valid(polygon, failure)) continue;
+        if (failure == bg::failure_interior_rings_outside) {  // name the hole, so the message points at it
+            BPolygon outline;
+            bg::assign_points(outline.outer(), polygon.outer());
+            for (std::size_t h = 0; h < polygon.inners().size(); ++h) {
+                BPolygon hole;
+                bg::assign_points(hole.outer(), polygon.inners()[h]);
+                bg::correct(hole);
+                if (!bg::covered_by(hole, outline)) return AreaProblem{i, h + 1, "hole lies outside its outline"};
+            }
+        }
+        return AreaProblem{i, std::nullopt, "polygon " + validity_reason(failure)};
     }
     const BMulti all = to_boost(area);
     bg::validity_failure_type failure{};
     if (!bg::is_valid(all, failure))
         return AreaProblem{0, std::nullopt,
-                           failure == bg::failure_self_intersections ? "parts overlap or share an edge"
-                                                                     : validity_reason(failure)};
+                           failure == bg::failure_self_intersections || failure == bg::failure_intersecting_interiors
+                               ? "parts overlap or share an edge"
+                               : "parts are not valid together (" +
+                                     std::string(bg::validity_failure_type_message(failure)) + ")"};
     return std::nullopt;
 }
 
@@ -320,6 +356,7 @@ Layout lay_out(const Area& area, const Area& exclusions, const LatticeSpec& spec
     // against the region's edges (exactly the points at least the offset inside).
     const BMulti local = to_lattice_frame(region, angle_rad, origin);
     const EdgeIndex edges = edge_index(local);
+    const std::vector<RowPart> parts = row_parts(local);
     bg::model::box<BPoint> box;
     bg::envelope(local, box);
     // The rows reach the tolerance beyond the region (see row_spans).
@@ -339,7 +376,7 @@ Layout lay_out(const Area& area, const Area& exclusions, const LatticeSpec& spec
         const double shift = spec.pattern == Pattern::triangular && odd ? spec.spacing_m / 2.0 : 0.0;
         const double v = static_cast<double>(j) * pitch;
         us.clear();
-        row_points(local, u_low, u_high, v, shift, spec.spacing_m, max_drains - out.drains.size() + 1, max_drains, us);
+        row_points(parts, u_low, u_high, v, shift, spec.spacing_m, max_drains - out.drains.size() + 1, max_drains, us);
         std::erase_if(us, [&](double u) { return !clear_of_edges(edges, BPoint{u, v}, spec.edge_offset_m); });
         if (us.empty()) continue;
         if (out.drains.size() + us.size() > max_drains) too_many(max_drains);
@@ -348,10 +385,16 @@ Layout lay_out(const Area& area, const Area& exclusions, const LatticeSpec& spec
         for (const double u : us) {
             const Point at{origin.x_m + c * u - s * v, origin.y_m + s * u + c * v};
             const double length = drain_length_m(lengths, at);
+            // A set-out file never carries a number that is not one: exit 5 rather than write it.
+            if (!std::isfinite(length) || !std::isfinite(at.x_m) || !std::isfinite(at.y_m))
+                throw EvaluationError("drain layout", "drain " + std::to_string(out.drains.size() + 1) +
+                                                          " has a position or length that is not a finite number");
             out.drains.push_back({static_cast<long>(out.drains.size() + 1), at.x_m, at.y_m, length});
             out.total_length_m += length;
         }
     }
+    if (!std::isfinite(out.total_length_m))
+        throw EvaluationError("drain layout", "the total drain length is not a finite number");
     if (out.drains.empty())
         throw EvaluationError("drain layout", "no lattice point of spacing " + format_value(spec.spacing_m) +
                                                   " m lies in the area at least " + format_value(spec.edge_offset_m) +

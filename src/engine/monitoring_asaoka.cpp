@@ -42,8 +42,14 @@ AsaokaFit asaoka(const std::vector<Reading>& readings, double start_s, std::opti
                                                 format_value(fit.start_s / 86400.0) + ")");
     fit.interval_s = interval_s ? *interval_s : default_interval_s(readings, fit.start_s);
     require_positive("Asaoka interval (s)", fit.interval_s);
-    for (double t = fit.start_s; t <= readings.back().time_s * (1.0 + 1e-12); t += fit.interval_s)
-        fit.resampled_m.push_back(settlement_at(readings, t));
+    // Counted first, stepped by index: an interval far below the span can neither loop for ever (t + Δt
+    // == t) nor grow memory without bound.
+    const double steps = std::floor((readings.back().time_s * (1.0 + 1e-12) - fit.start_s) / fit.interval_s);
+    if (!(steps < static_cast<double>(asaoka_max_points)))
+        throw InputError("Asaoka interval (days)", fit.interval_s / 86400.0,
+                         "at most " + std::to_string(asaoka_max_points) + " points over the record after the last load change");
+    for (std::size_t i = 0; i <= static_cast<std::size_t>(steps); ++i)
+        fit.resampled_m.push_back(settlement_at(readings, fit.start_s + static_cast<double>(i) * fit.interval_s));
     if (fit.resampled_m.size() < asaoka_min_points)
         throw EvaluationError("Asaoka fit", "only " + std::to_string(fit.resampled_m.size()) +
                                                 " points at the interval after the last load change; at least " +

@@ -1,7 +1,7 @@
 #include "report/atomic_file.hpp"
 
 #include <fcntl.h>
-#include <signal.h>
+#include <sys/file.h>
 #include <sys/stat.h>
 #include <unistd.h>
 
@@ -65,27 +65,74 @@ void write_file_atomically(const std::string& path, const std::string& content) 
 }
 
 namespace {
-// Staging folders left by a run that was killed (kill -9 cannot be cleaned up after): their names
-// carry the process id, and a folder whose process is gone is removed by the next run.
-void remove_stale_staging(const std::string& dir) {
+// Staging folders are named ".wickgrid-staging.<host>.<pid>.XXXXXX": output folder names never start
+// with a dot (cli folder_names), so no scenario's folder can look like one.
+const std::string staging_prefix = ".wickgrid-staging.";
+
+std::string host_name() {
+    char name[256] = {};
+    if (::gethostname(name, sizeof name - 1) != 0 || name[0] == '\0') return "host";
+    std::string out(name);
+    for (char& c : out)
+        if (c == '/' || c == '.') c = '_';
+    return out;
+}
+
+// Runs into one folder take turns: an advisory lock on DIR/.wickgrid-lock, released when the process
+// ends however it ends (so a killed run leaves no stale lock).
+class FolderLock {
+public:
+    explicit FolderLock(const std::string& dir) {
+        const std::string path = (fs::path(dir) / ".wickgrid-lock").string();
+        fd_ = ::open(path.c_str(), O_RDWR | O_CREAT | O_CLOEXEC | O_NOFOLLOW, 0644);
+        if (fd_ < 0) throw OutputError("cannot lock the output folder " + dir + " (" + path + "): " + std::strerror(errno));
+        while (::flock(fd_, LOCK_EX) != 0)
+            if (errno != EINTR) {
+                const std::string why = std::strerror(errno);
+                ::close(fd_);
+                throw OutputError("cannot lock the output folder " + dir + ": " + why);
+            }
+    }
+    ~FolderLock() { ::close(fd_); }
+    FolderLock(const FolderLock&) = delete;
+    FolderLock& operator=(const FolderLock&) = delete;
+
+private:
+    int fd_ = -1;
+};
+
+// Staging folders left by a run of this host that was killed (kill -9 cannot be cleaned up after):
+// with the folder's lock held no other run of this host is writing here, so every one is stale.
+// Another host's are left alone (its run may be live on a shared folder).
+void remove_stale_staging(const std::string& dir, const std::string& host) {
     std::error_code ec;
+    const std::string mine = staging_prefix + host + ".";
     for (const auto& entry : fs::directory_iterator(dir, ec)) {
         const std::string name = entry.path().filename().string();
-        const std::string prefix = ".wickgrid-out-";
-        if (name.rfind(prefix, 0) != 0 || !entry.is_directory(ec)) continue;
-        const auto dash = name.find('-', prefix.size());
-        if (dash == std::string::npos) continue;
-        char* end = nullptr;
-        const long pid = std::strtol(name.c_str() + prefix.size(), &end, 10);
-        if (end != name.c_str() + dash || pid <= 0) continue;
-        if (::kill(static_cast<pid_t>(pid), 0) != 0 && errno == ESRCH) fs::remove_all(entry.path(), ec);
+        if (name.rfind(mine, 0) == 0 && entry.is_directory(ec) && !entry.is_symlink(ec)) fs::remove_all(entry.path(), ec);
+    }
+}
+
+// Every target is checked before the first rename, so a name that cannot be replaced (a folder of
+// that name) leaves the old set whole.
+void check_targets(const std::string& dir, const std::vector<std::pair<std::string, std::string>>& files) {
+    for (const auto& [name, content] : files) {
+        std::error_code ec;
+        const fs::path target = fs::path(dir) / name;
+        const auto status = fs::symlink_status(target, ec);
+        if (!ec && fs::is_directory(status))
+            throw OutputError("cannot replace " + target.string() + ": a folder has that name (nothing was written)");
     }
 }
 }  // namespace
 
 void write_files_atomically(const std::string& dir, const std::vector<std::pair<std::string, std::string>>& files) {
-    remove_stale_staging(dir);
-    std::string pattern = (fs::path(dir) / (".wickgrid-out-" + std::to_string(::getpid()) + "-XXXXXX")).string();
+    const FolderLock lock(dir);
+    const std::string host = host_name();
+    remove_stale_staging(dir, host);
+    check_targets(dir, files);
+    std::string pattern =
+        (fs::path(dir) / (staging_prefix + host + "." + std::to_string(::getpid()) + ".XXXXXX")).string();
     if (!::mkdtemp(pattern.data()))
         throw OutputError("cannot create a temporary folder in " + dir + ": " + std::strerror(errno));
     const fs::path staging(pattern);

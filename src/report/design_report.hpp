@@ -40,5 +40,7 @@ std::vector<std::vector<std::string>> sublayer_table_rows(const results::DesignR
 
 // The rows of the inputs table (quantity, value) shared by the Markdown note and the HTML report.
 std::vector<std::pair<std::string, std::string>> input_rows(const results::DesignRecord& record);
+// A layer's undrained strength as the file gives it, with the level its su_top refers to.
+std::string strength_text(const UndrainedStrength& strength);
 
 }  // namespace wickgrid::report

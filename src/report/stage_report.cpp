@@ -176,11 +176,22 @@ std::string stage_section_svg(const results::StageRecord& r) {
         o << "<rect x=\"" << num(px(0)) << "\" y=\"" << num(py(-top)) << "\" width=\"" << num(k * x_max) << "\" height=\""
           << num(k * (bottom - top)) << "\" fill=\"" << (i % 2 ? "#e7e1d6" : "#efe9dd") << "\" stroke=\"#9c8f78\"/>\n"
           << "<text x=\"" << num(px(x_max) - 6) << "\" y=\"" << num(py(-top) + 14) << "\" text-anchor=\"end\">layer " << i + 1
-          << "</text>\n";
+          << ", " << fixed(bottom - top, 2) << " m: "
+          << escape_xml(i < r.layer_strengths.size() ? strength_text(r.layer_strengths[i]) : std::string()) << "</text>\n";
         top = bottom;
     }
     o << "<line x1=\"" << num(px(0)) << "\" y1=\"" << num(py(y_bottom)) << "\" x2=\"" << num(px(x_max)) << "\" y2=\""
       << num(py(y_bottom)) << "\" stroke=\"#1d2a33\" stroke-width=\"3\"/>\n";
+    // The groundwater table and the section's dimensions, so the figure can be checked against the inputs.
+    const double gwl = py(-r.groundwater_depth_m);
+    o << "<line x1=\"" << num(px(0)) << "\" y1=\"" << num(gwl) << "\" x2=\"" << num(px(x_max)) << "\" y2=\"" << num(gwl)
+      << "\" stroke=\"#2b6cb0\" stroke-width=\"1.5\" stroke-dasharray=\"8 4\"/>\n<text x=\"" << num(px(0) + 4)
+      << "\" y=\"" << num(gwl - 4) << "\" fill=\"#2b6cb0\">groundwater " << fixed(r.groundwater_depth_m, 2)
+      << " m below the original ground</text>\n";
+    std::string dims = "crest width " + fixed(r.section.crest_width_m, 2) + " m, side slopes " +
+                       fixed(r.section.side_slope_h_per_v, 2) + " H : 1 V, full fill height " + fixed(r.final_height_m, 2) + " m";
+    for (const Berm& b : r.section.berms) dims += "; berm " + fixed(b.width_m, 2) + " m wide × " + fixed(b.height_m, 2) + " m high";
+    o << "<text x=\"" << margin << "\" y=\"40\">" << escape_xml(dims) << "</text>\n";
     // The fills first (the highest, filled, under the others' outlines), then the circles over them.
     for (std::size_t i = r.plan.stages.size(); i-- > 0;) {
         const double h = r.plan.stages[i].height_m;  // a surcharge rises above the full height

@@ -42,7 +42,11 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
     r.final_height_m = *final_fill_height_m(site);
     r.clay_thickness_m = site.ground.thickness_m;
     double bottom = 0.0;
-    for (const auto& l : site.ground.profile->layers) r.layer_bottoms_m.push_back(bottom += l.thickness_m);
+    for (const auto& l : site.ground.profile->layers) {
+        r.layer_bottoms_m.push_back(bottom += l.thickness_m);
+        r.layer_strengths.push_back(*l.strength);  // present in every layer (stage_check_refusal)
+    }
+    r.groundwater_depth_m = site.ground.profile->groundwater_depth_m;
     // The chart follows the schedule checked: the planned one when planning.
     Site charted = site;
     if (plan) {

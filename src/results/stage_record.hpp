@@ -22,6 +22,8 @@ struct StageRecord {
     double final_height_m = 0.0;  // the highest fill of the schedule: the section the stages are cut from
     double clay_thickness_m = 0.0;
     std::vector<double> layer_bottoms_m;
+    std::vector<UndrainedStrength> layer_strengths;  // as given, one per layer (the figure prints them)
+    double groundwater_depth_m = 0.0;                // below the original ground
     std::vector<std::string> assumptions;
     // With embankment.finished_height_m: the fill to place in all, and the top-up lift the scenario
     // planned for it (checked here as a stage of its own).

@@ -118,12 +118,17 @@ private:
     }
 };
 
-// Where each ring of the area came from, to point an area problem back at the file.
+// Where each ring of the area came from, to point an area problem back at the file. CSV keeps the
+// marks as it reads; GeoJSON keeps the JSON paths and locates one only when it is at fault (walking
+// the text costs its length, so locating every ring of a parcel export would be quadratic).
 struct RingPlaces {
     std::vector<std::vector<Mark>> rings;  // [part][ring]
     std::vector<Mark> parts;
     std::vector<std::string> part_paths;
     std::vector<std::vector<std::string>> ring_paths;
+    std::vector<Path> part_json;
+    std::vector<std::vector<Path>> ring_json;
+    const JsonLocator* locator = nullptr;
 };
 
 // Coordinate systems in longitude and latitude that GIS programs commonly name (common practice;
@@ -171,13 +176,18 @@ public:
         return out;
     }
 
-    const RingPlaces& places() const { return places_; }
+    RingPlaces places() const {
+        RingPlaces out = places_;
+        out.locator = &locator_;
+        return out;
+    }
 
     [[noreturn]] void fail(const Path& path, const std::string& message) const {
         throw ScenarioError(file_, locator_.locate(path), path_text(path), message);
     }
 
 private:
+    static constexpr std::size_t max_nesting = 32;
     const std::string& text_;
     const std::string& file_;
     JsonLocator locator_;
@@ -198,6 +208,8 @@ private:
     }
 
     void object(const json& node, const Path& path, layout::Area& area) {
+        // Features within features within collections: a real export nests two or three deep.
+        if (path.size() > max_nesting) fail(path, "objects nested more than " + std::to_string(max_nesting) + " levels deep");
         const std::string type = type_of(node, path);
         if (type == "FeatureCollection") {
             if (!node.contains("features") || !node["features"].is_array())
@@ -242,15 +254,12 @@ private:
     void polygon(const json& rings, const Path& path, layout::Area& area) {
         if (!rings.is_array() || rings.empty()) fail(path, "a polygon needs an array of rings (its outline first)");
         layout::Polygon out;
-        places_.parts.push_back(locator_.locate(path));
-        places_.part_paths.push_back(path_text(path));
-        places_.rings.emplace_back();
-        places_.ring_paths.emplace_back();
+        places_.part_json.push_back(path);
+        places_.ring_json.emplace_back();
         for (std::size_t r = 0; r < rings.size(); ++r) {
             Path p = path;
             p.push_back(r);
-            places_.rings.back().push_back(locator_.locate(p));
-            places_.ring_paths.back().push_back(path_text(p));
+            places_.ring_json.back().push_back(p);
             layout::Ring ring = this->ring(rings[r], p);
             if (r == 0) out.outer = std::move(ring);
             else out.holes.push_back(std::move(ring));
@@ -368,6 +377,12 @@ CsvArea parse_csv_area(const std::string& text, const std::string& file) {
 void check_area(const AreaFile& f, const RingPlaces& places) {
     const auto problem = layout::area_problem(f.area);
     if (!problem) return;
+    if (places.locator) {
+        const bool by_ring = problem->ring && problem->part < places.ring_json.size() &&
+                             *problem->ring < places.ring_json[problem->part].size();
+        const Path& path = by_ring ? places.ring_json[problem->part][*problem->ring] : places.part_json.at(problem->part);
+        throw ScenarioError(f.file, places.locator->locate(path), path_text(path), "the area's " + problem->reason);
+    }
     const bool by_ring = problem->ring && problem->part < places.rings.size() && *problem->ring < places.rings[problem->part].size();
     const Mark at = by_ring ? places.rings[problem->part][*problem->ring] : places.parts.at(problem->part);
     const std::string where = by_ring ? places.ring_paths[problem->part][*problem->ring] : places.part_paths.at(problem->part);
@@ -377,22 +392,27 @@ void check_area(const AreaFile& f, const RingPlaces& places) {
 
 AreaFile parse_area(const std::string& text, const std::string& file, bool projected_confirmed) {
     require_utf8(text, file, "area file");
-    const auto first = text.find_first_not_of(" \t\r\n");
+    // A UTF-8 byte-order mark may open either kind (RFC 7946 lets a reader ignore it).
+    const std::size_t start = text.rfind("\xEF\xBB\xBF", 0) == 0 ? 3 : 0;
+    const auto first = text.find_first_not_of(" \t\r\n", start);
+    const bool named_geojson = file.ends_with(".geojson") || file.ends_with(".json");
+    if (first == std::string::npos)
+        throw ScenarioError(file, {1, 1}, "",
+                            named_geojson ? "is empty; a GeoJSON Polygon, MultiPolygon, Feature or FeatureCollection is needed"
+                                          : "is empty; a header row (x,y or x_m,y_m) and vertex rows are needed");
     AreaFile out;
-    RingPlaces places;
-    if (first != std::string::npos && text[first] == '{') {
+    if (text[first] == '{') {
         GeoJsonReader reader(text, file);
         out = reader.read();
-        places = reader.places();
         check_projected(out, projected_confirmed, [&](const std::string& m) { reader.fail(out.crs_name ? Path{std::string("crs")} : Path{}, m); });
+        check_area(out, reader.places());  // while the reader (its locator) lives
     } else {
         CsvArea csv = parse_csv_area(text, file);
         out.file = file;
         out.area = std::move(csv.area);
-        places = std::move(csv.places);
         check_projected(out, projected_confirmed, [&](const std::string& m) { throw ScenarioError(file, {0, 0}, "", m); });
+        check_area(out, csv.places);
     }
-    check_area(out, places);
     return out;
 }
 

@@ -100,7 +100,19 @@ std::size_t CsvTable::required_column(const std::string& name) const {
 CsvTable parse_csv(const std::string& text, const std::string& file) {
     // Names in the cells reach JSON, HTML and the terminal: refuse other encodings where they are.
     require_utf8(text, file, "file");
-    Reader r{text, file};
+    // Line ends of CR alone (an old spreadsheet's export) are line ends too, counted as an editor does.
+    std::string lf;
+    const bool lone_cr = [&] {
+        for (std::size_t i = 0; i < text.size(); ++i)
+            if (text[i] == '\r' && (i + 1 == text.size() || text[i + 1] != '\n')) return true;
+        return false;
+    }();
+    if (lone_cr) {
+        lf = text;
+        for (std::size_t i = 0; i < lf.size(); ++i)
+            if (lf[i] == '\r' && (i + 1 == lf.size() || lf[i + 1] != '\n')) lf[i] = '\n';
+    }
+    Reader r{lone_cr ? lf : text, file};
     if (text.rfind("\xEF\xBB\xBF", 0) == 0) r.pos = 3;
     CsvTable table;
     table.file = file;

@@ -2,6 +2,7 @@
 #include <yaml-cpp/yaml.h>
 
 #include <cmath>
+#include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <set>
@@ -61,6 +62,20 @@ struct Range {
 constexpr double inf = std::numeric_limits<double>::infinity();
 constexpr Range positive(const char* unit) { return {0.0, false, inf, false, unit}; }
 constexpr Range non_negative(const char* unit) { return {0.0, true, inf, false, unit}; }
+// A derived quantity in a message, to three significant digits (a difference of days read from the
+// file carries rounding noise in its last digits).
+std::string three_digits(double value) {
+    char buffer[32];
+    std::snprintf(buffer, sizeof buffer, "%.3g", value);
+    return buffer;
+}
+
+// Every day of the plan lies within the record the engine computes (defaults::search_horizon_years):
+// a day beyond it is refused at its key, in days, before it can become an infinite time in seconds.
+constexpr double horizon_days = defaults::search_horizon_years * units::days_per_year;
+constexpr Range day_within_horizon(double lo, bool lo_inclusive, const char* unit) {
+    return {lo, lo_inclusive, horizon_days, true, unit};
+}
 // mv above 0.1 m²/kN is softer than any clay (a value in the wrong unit); above it the numerical
 // cell's time scales part by many orders of magnitude.
 constexpr Range compressibility{0.0, false, 0.1, true, "m²/kN (greater than 0; above 0.1 check the unit)"};
@@ -188,7 +203,7 @@ void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     if (node["residual_settlement_mm"]) {
         ResidualSettlementLimit limit;
         limit.limit_m = units::mm_to_m(r.number(node, "target", "residual_settlement_mm", non_negative("mm")));
-        if (const auto days = r.optional_number(node, "target", "service_days", positive("days")))
+        if (const auto days = r.optional_number(node, "target", "service_days", day_within_horizon(0.0, false, "days (within 100 years)")))
             limit.service_s = units::days_to_seconds(*days);
         c.rule = limit;
     } else {
@@ -196,7 +211,7 @@ void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
             r.fail(node["service_days"], "target.service_days", "goes with 'residual_settlement_mm' only");
         c.rule = DegreeTarget{r.number(node, "target", "degree", {0.0, false, 1.0, false, ""})};
     }
-    c.deadline_s = units::days_to_seconds(r.number(node, "target", "deadline_days", positive("days")));
+    c.deadline_s = units::days_to_seconds(r.number(node, "target", "deadline_days", day_within_horizon(0.0, false, "days (within 100 years)")));
 }
 
 // The undrained strength of one layer (stage checks): the profile form or the normalised form.
@@ -238,6 +253,9 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
     const YAML::Node node = clay["layers"];
     r.remember("clay.layers", node);
     if (!node.IsSequence() || node.size() == 0) r.fail(node, "clay.layers", "must be a list of at least one layer");
+    if (node.size() > defaults::max_layers)
+        r.fail(node, "clay.layers", "lists " + std::to_string(node.size()) + " layers; at most " +
+                                        std::to_string(defaults::max_layers) + " (merge thin layers of like properties)");
     SoilProfile profile;
     profile.groundwater_depth_m = r.optional_number(clay, "clay", "groundwater_depth_m", non_negative("m")).value_or(0.0);
     const double per_layer = r.optional_number(clay, "clay", "slices_per_layer", {1.0, true, 1000.0, true, "(whole number)"}).value_or(10.0);
@@ -383,6 +401,9 @@ void read_drains(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "drains");
     if (!node.IsSequence() || node.size() == 0)
         r.fail(node, "drains", "must be a list of at least one drain product");
+    if (node.size() > defaults::max_drain_products)
+        r.fail(node, "drains", "lists " + std::to_string(node.size()) + " products; at most " +
+                                   std::to_string(defaults::max_drain_products) + " (split the catalogue into several scenarios)");
     std::set<std::string> names;
     for (std::size_t i = 0; i < node.size(); ++i) {
         const std::string path = "drains[" + std::to_string(i) + "]";
@@ -788,6 +809,9 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
     if (const YAML::Node berms = node["berms"]) {
         r.remember(path + ".berms", berms);
         if (!berms.IsSequence()) r.fail(berms, path + ".berms", "must be a list of berms ({width_m, height_m}), outwards from the crest");
+        if (berms.size() > defaults::max_berms)
+            r.fail(berms, path + ".berms", "lists " + std::to_string(berms.size()) + " berms; at most " +
+                                               std::to_string(defaults::max_berms));
         for (std::size_t i = 0; i < berms.size(); ++i) {
             const std::string at = path + ".berms[" + std::to_string(i) + "]";
             r.remember(at, berms[i]);
@@ -827,6 +851,9 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
                                                                  : r.required(node, "loading", "stages");
     if (!stages.IsSequence() || (stages.size() == 0 && !node["vacuum"]))
         r.fail(stages, "loading.stages", "must be a list of at least one stage");
+    if (stages.size() > defaults::max_load_stages)
+        r.fail(stages, "loading.stages", "lists " + std::to_string(stages.size()) + " stages; at most " +
+                                             std::to_string(defaults::max_load_stages) + " (merge lifts placed back to back)");
     LoadHistory h;
     for (std::size_t i = 0; i < stages.size(); ++i) {
         const std::string path = "loading.stages[" + std::to_string(i) + "]";
@@ -834,8 +861,17 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
         r.expect_map(st, path);
         r.allow_keys(st, path, {"start_day", "end_day", "height_m", "pressure_kPa"});
         LoadStage stage;
-        const double start = r.number(st, path, "start_day", non_negative("days"));
-        const double end = r.optional_number(st, path, "end_day", {start, true, inf, false, "days (not before start_day)"}).value_or(start);
+        const double start = r.number(st, path, "start_day", day_within_horizon(0.0, true, "days (within 100 years)"));
+        double end = r.optional_number(st, path, "end_day", {start, true, horizon_days, true, "days (not before start_day, within 100 years)"}).value_or(start);
+        if (end > start && end - start < defaults::shortest_placing_days) {
+            // Shorter than the time integration resolves: placed at once, and said so.
+            const auto mark = s.mark_of(path + ".end_day");
+            s.input_warnings.push_back(s.file + (mark ? ":" + std::to_string(mark->line) + ":" + std::to_string(mark->column) : "") +
+                                       ": " + path + ": placed over " + three_digits(end - start) + " days, less than " +
+                                       format_value(defaults::shortest_placing_days) + " day: taken as placed at once on day " +
+                                       format_value(start));
+            end = start;
+        }
         stage.start_s = units::days_to_seconds(start);
         stage.end_s = units::days_to_seconds(end);
         stage.pressure_kPa = stage_pressure(r, st, path, s);
@@ -846,9 +882,9 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
         r.expect_map(sc, path);
         r.allow_keys(sc, path, {"start_day", "end_day", "removal_day", "height_m", "pressure_kPa", "max_height_m"});
         Surcharge sur;
-        const double start = r.number(sc, path, "start_day", non_negative("days"));
-        const double end = r.optional_number(sc, path, "end_day", {start, true, inf, false, "days (not before start_day)"}).value_or(start);
-        const double removal = r.number(sc, path, "removal_day", {end, false, inf, false, "days (after end_day)"});
+        const double start = r.number(sc, path, "start_day", day_within_horizon(0.0, true, "days (within 100 years)"));
+        const double end = r.optional_number(sc, path, "end_day", {start, true, horizon_days, true, "days (not before start_day, within 100 years)"}).value_or(start);
+        const double removal = r.number(sc, path, "removal_day", {end, false, horizon_days, true, "days (after end_day, within 100 years)"});
         sur.start_s = units::days_to_seconds(start);
         sur.end_s = units::days_to_seconds(end);
         sur.removal_s = units::days_to_seconds(removal);
@@ -864,7 +900,6 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
         VacuumLoad v;
         v.pressure_kPa = r.number(vac, path, "pressure_kPa",
                                   {0.0, false, defaults::max_vacuum_kPa, true, "kPa (one atmosphere at most)"});
-        const double horizon_days = defaults::search_horizon_years * units::seconds_per_year / units::seconds_per_day;
         const double start = r.number(vac, path, "start_day", {0.0, true, horizon_days, false, "days"});
         const double end = r.number(vac, path, "end_day",
                                     {start, false, horizon_days, true, "days (after start_day, within the 100-year record)"});
@@ -1029,7 +1064,7 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     auto top_up_warnings = plan_top_up(s);
     read_studies(r, root, s);
     read_uncertain(r, root, s);
-    s.input_warnings = plausibility_warnings(s);
+    for (auto& w : plausibility_warnings(s)) s.input_warnings.push_back(std::move(w));
     for (auto& w : top_up_warnings) s.input_warnings.push_back(std::move(w));
     return s;
 }
