@@ -77,6 +77,8 @@ const std::vector<CountRow> count_rows{
      {Pattern::square, 1.0, 0.0, Point{0, 0}, 0.0}, 112},
     {"hand count: as the hole", "exclusion zone from a second area", {{{rectangle(0, 0, 10, 10), {}}}}, {{{rectangle(3, 3, 7, 7), {}}}},
      {Pattern::square, 1.0, 0.0, Point{0, 0}, 0.0}, 112},
+    {"hand count: as the union of the zones", "two overlapping exclusion zones", {{{rectangle(0, 0, 10, 10), {}}}},
+     {{{rectangle(3, 3, 6, 7), {}}, {rectangle(5, 3, 7, 7), {}}}}, {Pattern::square, 1.0, 0.0, Point{0, 0}, 0.0}, 112},
     {"hand count: 11 × 5 + 5 × 6", "concave L", {{{{{0, 0}, {10, 0}, {10, 4}, {4, 4}, {4, 10}, {0, 10}}, {}}}}, {},
      {Pattern::square, 1.0, 0.0, Point{0, 0}, 0.0}, 85},
     {"hand count: as the axis-aligned square", "square turned 30°, rows along its edge by default", {{{rotated(rectangle(0, 0, 10, 10), 30.0), {}}}}, {},

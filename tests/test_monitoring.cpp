@@ -211,6 +211,7 @@ TEST(ReadingsFile, EveryErrorNamesItsLine) {
         {"fill height units that do not fit", "plate,day,settlement_mm,fill_height_m\nSP1,10,20,1500\n", 2, "0–50 m"},
         {"no readings", "plate,day,settlement_mm\n", 1, "no readings"},
         {"short row", "plate,day,settlement_mm\nSP1,10\n", 2, "has 2 fields"},
+        {"a day beyond the record", "plate,day,settlement_mm\nSP1,10,20\nSP1,1e305,30\n", 3, "more than 100 years"},
     };
     for (const auto& row : rows) {
         try {
@@ -221,6 +222,19 @@ TEST(ReadingsFile, EveryErrorNamesItsLine) {
             EXPECT_NE(std::string(e.what()).find(row.says), std::string::npos) << row.name << ": " << e.what();
         }
     }
+}
+
+// A record full of gaps (every third interval ten times the usual) says so in a few lines, not one per gap.
+TEST(ReadingsFile, GapWarningsAreCapped) {
+    std::string text = "plate,day,settlement_mm\n";
+    double day = 0.0;
+    for (int i = 0; i < 2000; ++i) {
+        day += i % 3 == 2 ? 10.0 : 1.0;  // 666 gaps of 10 days among 1,999 intervals
+        text += "SP1," + std::to_string(day) + "," + std::to_string(0.01 * i) + "\n";
+    }
+    const auto f = scenario::parse_readings(text, "r.csv");
+    ASSERT_EQ(f.warnings.size(), 11u);
+    EXPECT_NE(f.warnings.back().find("656 more gaps like these"), std::string::npos) << f.warnings.back();
 }
 
 TEST(PiezometerFile, EveryErrorNamesItsLine) {

@@ -37,6 +37,19 @@ TEST(Plausibility, UnusualValuesAreNamedWithTheirPlace) {
     EXPECT_TRUE(parse_scenario(slurp(source("demo/scenario.yaml")), "demo.yaml").input_warnings.empty());
 }
 
+// A fill far above any embankment on soft clay (a height in feet?) is named, though it is allowed.
+TEST(Plausibility, AFillHigherThanUsualIsNamed) {
+    const Scenario usual = parse_scenario(slurp(source("configs/staged-embankment-stability.yaml")), "staged.yaml");
+    EXPECT_TRUE(usual.input_warnings.empty());
+    const Scenario tall = parse_scenario(edited_copy("configs/staged-embankment-stability.yaml", "  finished_height_m: 5.0",
+                                                     "  height_m: 25.0\n  finished_height_m: 5.0"),
+                                         "staged.yaml");
+    bool named = false;
+    for (const auto& w : tall.input_warnings)
+        named = named || w.find("embankment.height_m = 25 m is outside the usual 0–20 m") != std::string::npos;
+    EXPECT_TRUE(named) << (tall.input_warnings.empty() ? std::string("no warning") : tall.input_warnings[0]);
+}
+
 TEST(Plausibility, WarningsReachStderrJsonAndTheNote) {
     const fs::path file = scratch() / "unusual.yaml";
     std::ofstream(file) << edited_copy("demo/scenario.yaml", "  ch_m2_per_year: 4.0", "  ch_m2_per_year: 0.00000012");

@@ -38,10 +38,15 @@ struct AreaProblem {
     std::string reason;
 };
 
+// Whether an area's parts may overlap: a treatment area's may not (its drains would be counted
+// twice); exclusion zones drawn on site often do, and are merged (their union is excluded).
+enum class PartOverlap { refused, merged };
+
 // The first problem with an area, or nothing when it is a valid area: fewer than 3 distinct vertices
 // in a ring, a ring of zero area, a ring that crosses itself, holes outside their outline or
-// crossing it, parts that overlap, a coordinate that is not finite. Cost O(V log V) for V vertices.
-std::optional<AreaProblem> area_problem(const Area& area);
+// crossing it, parts that overlap (unless merged), a coordinate that is not finite. Cost O(V log V)
+// for V vertices.
+std::optional<AreaProblem> area_problem(const Area& area, PartOverlap overlap = PartOverlap::refused);
 
 // Plan area (m²) of a valid area, holes removed.
 double area_m2(const Area& area);

@@ -81,7 +81,7 @@ Runner add_layout(CLI::App& app) {
             q.area = scenario::read_area_file(o->area, o->projected);
             std::vector<std::string> inputs{file, o->area};
             if (!o->exclude.empty()) {
-                q.exclusions = scenario::read_area_file(o->exclude, o->projected);
+                q.exclusions = scenario::read_area_file(o->exclude, o->projected, layout::PartOverlap::merged);
                 inputs.push_back(o->exclude);
             }
             if (!o->base_depths.empty()) {

@@ -277,15 +277,15 @@ std::size_t count_outside_hull(const std::vector<BaseDepthPoint>& points, const 
     }));
 }
 
-void require_valid(const Area& area, const std::string& what) {
+void require_valid(const Area& area, const std::string& what, PartOverlap overlap = PartOverlap::refused) {
     if (area.parts.empty()) throw InputError(what + " parts", 0.0, "at least one polygon");
-    if (const auto problem = area_problem(area))
+    if (const auto problem = area_problem(area, overlap))
         throw InputError(what + " part " + std::to_string(problem->part + 1) + " (" + problem->reason + ")",
                          static_cast<double>(problem->part + 1), "a valid polygon");
 }
 }  // namespace
 
-std::optional<AreaProblem> area_problem(const Area& area) {
+std::optional<AreaProblem> area_problem(const Area& area, PartOverlap overlap) {
     for (std::size_t i = 0; i < area.parts.size(); ++i) {
         const auto& part = area.parts[i];
         if (auto reason = ring_problem(part.outer)) return AreaProblem{i, 0, "outline " + *reason};
@@ -306,6 +306,7 @@ std::optional<AreaProblem> area_problem(const Area& area) {
         }
         return AreaProblem{i, std::nullopt, "polygon " + validity_reason(failure)};
     }
+    if (overlap == PartOverlap::merged) return std::nullopt;
     const BMulti all = to_boost(area);
     bg::validity_failure_type failure{};
     if (!bg::is_valid(all, failure))
@@ -331,13 +332,20 @@ Layout lay_out(const Area& area, const Area& exclusions, const LatticeSpec& spec
     require_positive("design drain length (m)", lengths.design_length_m);
     for (const auto& p : lengths.base_points) require_positive("base depth (m)", p.depth_m);
     require_valid(area, "treatment area");
-    if (!exclusions.parts.empty()) require_valid(exclusions, "exclusion zones");
+    if (!exclusions.parts.empty()) require_valid(exclusions, "exclusion zones", PartOverlap::merged);
 
     const BMulti outline = to_boost(area);
     BMulti region = outline;
     if (!exclusions.parts.empty()) {
+        // Zones may overlap: their union is what is excluded (a difference needs a valid multipolygon).
+        BMulti excluded;
+        for (const auto& part : exclusions.parts) {
+            BMulti merged;
+            bg::union_(excluded, to_boost(part), merged);
+            excluded = std::move(merged);
+        }
         region.clear();
-        bg::difference(outline, to_boost(exclusions), region);
+        bg::difference(outline, excluded, region);
     }
     Layout out;
     out.area_m2 = bg::area(region);

@@ -374,8 +374,8 @@ CsvArea parse_csv_area(const std::string& text, const std::string& file) {
     return out;
 }
 
-void check_area(const AreaFile& f, const RingPlaces& places) {
-    const auto problem = layout::area_problem(f.area);
+void check_area(const AreaFile& f, const RingPlaces& places, layout::PartOverlap overlap) {
+    const auto problem = layout::area_problem(f.area, overlap);
     if (!problem) return;
     if (places.locator) {
         const bool by_ring = problem->ring && problem->part < places.ring_json.size() &&
@@ -390,7 +390,7 @@ void check_area(const AreaFile& f, const RingPlaces& places) {
 }
 }  // namespace
 
-AreaFile parse_area(const std::string& text, const std::string& file, bool projected_confirmed) {
+AreaFile parse_area(const std::string& text, const std::string& file, bool projected_confirmed, layout::PartOverlap overlap) {
     require_utf8(text, file, "area file");
     // A UTF-8 byte-order mark may open either kind (RFC 7946 lets a reader ignore it).
     const std::size_t start = text.rfind("\xEF\xBB\xBF", 0) == 0 ? 3 : 0;
@@ -405,19 +405,19 @@ AreaFile parse_area(const std::string& text, const std::string& file, bool proje
         GeoJsonReader reader(text, file);
         out = reader.read();
         check_projected(out, projected_confirmed, [&](const std::string& m) { reader.fail(out.crs_name ? Path{std::string("crs")} : Path{}, m); });
-        check_area(out, reader.places());  // while the reader (its locator) lives
+        check_area(out, reader.places(), overlap);  // while the reader (its locator) lives
     } else {
         CsvArea csv = parse_csv_area(text, file);
         out.file = file;
         out.area = std::move(csv.area);
         check_projected(out, projected_confirmed, [&](const std::string& m) { throw ScenarioError(file, {0, 0}, "", m); });
-        check_area(out, csv.places);
+        check_area(out, csv.places, overlap);
     }
     return out;
 }
 
-AreaFile read_area_file(const std::string& path, bool projected_confirmed) {
-    return parse_area(read_input_file(path, "area file"), display_path(path), projected_confirmed);
+AreaFile read_area_file(const std::string& path, bool projected_confirmed, layout::PartOverlap overlap) {
+    return parse_area(read_input_file(path, "area file"), display_path(path), projected_confirmed, overlap);
 }
 
 namespace {

@@ -24,9 +24,12 @@ struct AreaFile {
 // need not be repeated). Refuses, with the place in the file: syntax, a geometry that is not a
 // polygon, an open GeoJSON ring, fewer than 3 vertices, zero area, a ring crossing itself,
 // overlapping parts, a coordinate system that is geographic, and coordinates that all fall within
-// longitude/latitude ranges unless `projected_confirmed` (a local grid near its origin).
-AreaFile read_area_file(const std::string& path, bool projected_confirmed);
-AreaFile parse_area(const std::string& text, const std::string& file, bool projected_confirmed);
+// longitude/latitude ranges unless `projected_confirmed` (a local grid near its origin). Exclusion
+// zones are read with PartOverlap::merged: their parts may overlap.
+AreaFile read_area_file(const std::string& path, bool projected_confirmed,
+                        layout::PartOverlap overlap = layout::PartOverlap::refused);
+AreaFile parse_area(const std::string& text, const std::string& file, bool projected_confirmed,
+                    layout::PartOverlap overlap = layout::PartOverlap::refused);
 
 // Reads borehole base depths: CSV with columns x_m, y_m, base_depth_m (and optionally name).
 // Depths must be positive; two rows at one position must not disagree.

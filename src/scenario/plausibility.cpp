@@ -22,6 +22,8 @@ constexpr UsualRange smear_permeability_range{1.0, 10.0, "", "Hansbo 1987; Holtz
 constexpr UsualRange smear_diameter_range{1.0, 6.0, "", "Hansbo 1987; Holtz et al. 1991; widened by common practice",
                                           "ds/dm is the smear zone's diameter over the mandrel's"};
 constexpr double least_usual_discharge_m3_per_year = 10.0;  // common practice
+constexpr UsualRange fill_height_range{0.0, 20.0, "m", "common practice (fills and preloads on soft clay rarely exceed 10–15 m)",
+                                       "a height in feet, or a load given as a height?"};
 constexpr UsualRange spacing_range{0.5, 5.0, "m", "common practice (band drains are usually 1–3 m apart)",
                                    "a spacing in feet or centimetres?"};
 
@@ -77,6 +79,9 @@ std::vector<std::string> plausibility_warnings(const Scenario& s) {
     check(out, s, "installation.smear_permeability_ratio", s.site.installation.smear_permeability_ratio, smear_permeability_range);
     check(out, s, "installation.smear_diameter_ratio", s.site.installation.smear_diameter_ratio, smear_diameter_range);
     check_drains(out, s);
+    if (const auto h = final_fill_height_m(s.site))
+        check(out, s, s.site.embankment && s.site.embankment->height_m ? "embankment.height_m" : "loading.stages", *h,
+              fill_height_range);
     check(out, s, "spacing.min_m", s.site.range.bounds.min_m, spacing_range);
     check(out, s, "spacing.max_m", s.site.range.bounds.max_m, spacing_range);
     return out;

@@ -7,11 +7,16 @@
 #include "csv_table.hpp"
 #include "text_encoding.hpp"
 #include "wickgrid/errors.hpp"
+#include "wickgrid/defaults.hpp"
 #include "wickgrid/units.hpp"
 
 namespace wickgrid::scenario {
 
 namespace {
+// Readings lie within the record the engine computes (defaults::search_horizon_years).
+constexpr double latest_reading_day = defaults::search_horizon_years * units::days_per_year;
+constexpr std::size_t most_gap_warnings = 10;  // per plate
+
 constexpr double most_settlement_mm = 20000.0;  // 20 m: beyond any consolidation settlement
 constexpr double most_fill_height_m = 50.0;
 constexpr double gap_to_warn = 3.0;  // a gap over 3 × the plate's median interval is named
@@ -44,12 +49,21 @@ void gap_warnings(const ReadingsFile& f, std::vector<std::string>& out) {
         std::vector<double> sorted = gaps;
         std::nth_element(sorted.begin(), sorted.begin() + sorted.size() / 2, sorted.end());
         const double median = sorted[sorted.size() / 2];
-        for (std::size_t i = 0; i < gaps.size(); ++i)
-            if (gaps[i] > gap_to_warn * median)
-                out.push_back("plate " + p.plate + ": no reading between day " +
-                              format_value(units::seconds_to_days(p.readings[i].time_s)) + " and day " +
-                              format_value(units::seconds_to_days(p.readings[i + 1].time_s)) + " (" +
-                              format_value(gaps[i] / median) + " × the usual interval)");
+        std::size_t shown = 0, more = 0;
+        for (std::size_t i = 0; i < gaps.size(); ++i) {
+            if (!(gaps[i] > gap_to_warn * median)) continue;
+            if (shown == most_gap_warnings) {  // a record full of gaps: say so once, not a line per gap
+                ++more;
+                continue;
+            }
+            ++shown;
+            out.push_back("plate " + p.plate + ": no reading between day " +
+                          format_value(units::seconds_to_days(p.readings[i].time_s)) + " and day " +
+                          format_value(units::seconds_to_days(p.readings[i + 1].time_s)) + " (" +
+                          format_value(gaps[i] / median) + " × the usual interval)");
+        }
+        if (more > 0)
+            out.push_back("plate " + p.plate + ": " + std::to_string(more) + " more gaps like these (not listed)");
     }
 }
 }  // namespace
@@ -74,6 +88,9 @@ ReadingsFile parse_readings(const std::string& text, const std::string& file) {
         const double day = csv_number(t, row[cd], "day", "a day of at least 0 from the start of loading");
         if (day < 0.0)
             throw ScenarioError(file, row[cd].mark, "day", "'" + row[cd].text + "' is before the start of loading (day 0)");
+        if (day > latest_reading_day)
+            throw ScenarioError(file, row[cd].mark, "day",
+                                "'" + row[cd].text + "' is more than 100 years after the start of loading (a day number, not a date?)");
         const double mm = csv_number(t, row[cs], "settlement_mm", "a settlement in millimetres");
         if (std::abs(mm) > most_settlement_mm)
             throw ScenarioError(file, row[cs].mark, "settlement_mm",
@@ -128,6 +145,9 @@ std::vector<PiezometerRecord> parse_piezometers(const std::string& text, const s
         const double day = csv_number(t, row[cd], "day", "a day of at least 0 from the start of loading");
         if (day < 0.0)
             throw ScenarioError(file, row[cd].mark, "day", "'" + row[cd].text + "' is before the start of loading (day 0)");
+        if (day > latest_reading_day)
+            throw ScenarioError(file, row[cd].mark, "day",
+                                "'" + row[cd].text + "' is more than 100 years after the start of loading (a day number, not a date?)");
         const double depth = csv_number(t, row[cz], "depth_m", "a depth in metres");
         if (depth < 0.0 || depth > 200.0)
             throw ScenarioError(file, row[cz].mark, "depth_m", "'" + row[cz].text + "' is not a depth of 0–200 m below the top of the clay");
