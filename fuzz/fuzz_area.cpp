@@ -72,7 +72,7 @@ void write_and_read_back(const wickgrid::layout::Layout& l, const wickgrid::scen
     const std::string geojson = report::traced("layout.geojson", report::layout_geojson(r), trace);
     const auto doc = nlohmann::json::parse(geojson);  // throws (a finding) when it is not JSON
     if (doc["features"].size() != l.drains.size()) __builtin_trap();
-    const std::string json_text = report::layout_json(r).dump();
+    const std::string json_text = report::layout_json_text(r);
     if (nlohmann::json::parse(json_text)["drains"].size() != l.drains.size()) __builtin_trap();
     const std::string csv = report::traced("layout.csv", report::layout_csv(r), trace);
     for (const char* bad : {"nan", "inf"})

@@ -356,6 +356,11 @@ TEST(Hostile, ListsAndDaysAreBoundedAtTheirKey) {
         {edited_copy(staged, "deadline_days: 300", "deadline_days: 1e305"), "target.deadline_days", "within 100 years"},
         {edited_copy("configs/vacuum-with-fill.yaml", "pressure_kPa: 70", "pressure_kPa: 100.0001"), "loading.vacuum.pressure_kPa",
          "100.0001"},
+        // A vacuum or a lift too small to act is named at its own key, not blamed on the spacing or a layer's mv.
+        {edited_copy("configs/vacuum-with-fill.yaml", "pressure_kPa: 70", "pressure_kPa: 1e-300"), "loading.vacuum.pressure_kPa",
+         "1 kPa at least"},
+        {edited_copy(staged, "{start_day: 0, end_day: 20, height_m: 1.5}", "{start_day: 0, end_day: 20, height_m: 1e-300}"),
+         "loading.stages[0].height_m", "1 mm at least"},
     };
     for (const auto& row : rows) {
         const auto file = write_case(row.text);

@@ -255,6 +255,21 @@ TEST(Layout, FarApartPartsAreLaidAsEachAlone) {
     EXPECT_EQ(lay_out(both, {}, spec, full_drains, no_cap).drains.size(), a + b);
 }
 
+// A layout over the cap is refused before a drain is laid: 10 km × 10 km at 1 m would be 10⁸ drains.
+TEST(Layout, OverTheCapIsRefusedBeforeLaying) {
+    const Area huge{{{rectangle(0, 0, 10000, 10000), {}}}};
+    try {
+        lay_out(huge, {}, {Pattern::square, 1.0, 0.0, Point{0, 0}, 0.0}, full_drains, 20000000);
+        ADD_FAILURE() << "laid";
+    } catch (const EvaluationError& e) {
+        EXPECT_NE(std::string(e.what()).find("more than 20000000 drains"), std::string::npos) << e.what();
+    }
+    // Just under the cap by the lower bound, the layout is laid and counted exactly: 101 × 101.
+    EXPECT_EQ(lay_out({{{rectangle(0, 0, 100, 100), {}}}}, {}, {Pattern::square, 1.0, 0.0, Point{0, 0}, 0.0}, full_drains, 10201)
+                  .drains.size(),
+              10201u);
+}
+
 TEST(Layout, MalformedAreasAreNamed) {
     const std::vector<BadAreaRow> rows{
         {"figure of eight", {{{{{0, 0}, {10, 10}, {10, 0}, {0, 10}}, {}}}}, "crosses itself", 0},

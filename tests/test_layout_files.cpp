@@ -250,6 +250,30 @@ TEST(LayoutCommand, OutputsAgreeWithEachOther) {
     EXPECT_NE(slurp(out / "layout.html").find("Shepard, D. (1968)"), std::string::npos);
 }
 
+// Above 100,000 drains the plan draws one dot per half pixel (dots that would merge anyway), the
+// set-out files still list every drain, and the JSON is the same document built as text.
+TEST(LayoutCommand, LargeLayoutsStayLightInThePlanAndWholeInTheLists) {
+    const fs::path dir = scratch();
+    std::ofstream(dir / "site.csv") << "x_m,y_m\n0,0\n8000,0\n8000,100\n0,100\n";  // 8 km of road, 100 m wide
+    const auto r = run("layout " + source("demo/scenario.yaml") + " --area " + (dir / "site.csv").string() +
+                       " --projected --drain band-100x4 --pattern square --spacing 2.0 --origin 0,0 --angle-deg 0 --out " +
+                       (dir / "out").string() + " --json");
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    constexpr std::size_t count = 4001 * 51;
+    const auto j = nlohmann::json::parse(r.out);
+    ASSERT_EQ(j["count"].get<std::size_t>(), count);
+    ASSERT_EQ(j["drains"].size(), count);
+    EXPECT_DOUBLE_EQ(j["drains"][count - 1]["y"].get<double>(), 100.0);
+    const std::string csv = csv_body(slurp(dir / "out" / "layout.csv"));
+    EXPECT_EQ(static_cast<std::size_t>(std::count(csv.begin(), csv.end(), '\n')), count + 1);
+    const std::string svg = slurp(dir / "out" / "layout-plan.svg");
+    const auto dots = static_cast<std::size_t>(std::count(svg.begin(), svg.end(), 'M'));
+    EXPECT_LT(dots, count / 2);
+    EXPECT_GT(dots, 10000u);
+    EXPECT_NE(svg.find(std::to_string(count) + " drains"), std::string::npos);
+    fs::remove_all(dir);
+}
+
 TEST(LayoutCommand, TerminalEndsWithTheCautions) {
     const auto r = run("layout " + demo_args);
     ASSERT_EQ(r.exit_code, 0) << r.err;

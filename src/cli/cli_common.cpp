@@ -199,8 +199,7 @@ int run_each(const std::vector<std::string>& files, BatchFormat format, const st
 }
 
 void write_outputs(const std::string& dir, const std::vector<std::string>& input_files,
-                   const std::vector<std::pair<std::string, std::string>>& files,
-                   const std::vector<report::TraceField>& trace) {
+                   std::vector<std::pair<std::string, std::string>> files, const std::vector<report::TraceField>& trace) {
     namespace fs = std::filesystem;
     report::ensure_directory(dir);
     for (const auto& [name, content] : files) {
@@ -212,10 +211,8 @@ void write_outputs(const std::string& dir, const std::vector<std::string>& input
                 throw report::OutputError("refusing to overwrite the input file " + scenario::display_path(input_file) +
                                           " with " + scenario::display_path(path.string()));
     }
-    std::vector<std::pair<std::string, std::string>> stamped;
-    stamped.reserve(files.size());
-    for (const auto& [name, content] : files) stamped.emplace_back(name, report::traced(name, content, trace));
-    report::write_files_atomically(dir, stamped);
+    for (auto& [name, content] : files) content = report::traced(name, std::move(content), trace);  // in place
+    report::write_files_atomically(dir, files);
 }
 
 }  // namespace wickgrid::cli

@@ -92,18 +92,18 @@ Runner add_layout(CLI::App& app) {
             const results::LayoutRecord record = results::layout_record(s, std::move(q));
             for (std::size_t i = s.input_warnings.size(); i < record.warnings.size(); ++i) spdlog::warn("{}", record.warnings[i]);
             spdlog::info("laid {} drains in {} rows", record.layout.drains.size(), record.layout.rows);
-            const std::string json_text = report::layout_json(record).dump(1) + "\n";
+            // Only the outputs asked for are built: a layout of millions of drains costs its text.
             if (!o->out_dir.empty()) {
-                write_outputs(item.out_dir(o->out_dir), inputs,
-                              {{"layout.json", json_text},
-                               {"layout.csv", report::layout_csv(record)},
-                               {"layout.geojson", report::layout_geojson(record)},
-                               {"layout-plan.svg", report::layout_svg(record)},
-                               {"layout.html", report::layout_html(record)}},
-                              report::trace_fields(s));
+                std::vector<std::pair<std::string, std::string>> files;  // moved, never copied (no initializer list)
+                files.emplace_back("layout.json", report::layout_json_text(record));
+                files.emplace_back("layout.csv", report::layout_csv(record));
+                files.emplace_back("layout.geojson", report::layout_geojson(record));
+                files.emplace_back("layout-plan.svg", report::layout_svg(record));
+                files.emplace_back("layout.html", report::layout_html(record));
+                write_outputs(item.out_dir(o->out_dir), inputs, std::move(files), report::trace_fields(s));
                 spdlog::info("wrote layout.json, layout.csv, layout.geojson, layout-plan.svg and layout.html to {}", item.out_dir(o->out_dir));
             }
-            if (o->json) item.print(json_text);
+            if (o->json) item.print(report::layout_json_text(record));
             else if (o->csv) item.print(report::layout_csv(record));
             else if (o->geojson) item.print(report::layout_geojson(record));
             else item.print(report::layout_table(record));

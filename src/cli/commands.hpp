@@ -95,7 +95,6 @@ std::string nearest_command(const std::string& word, const std::vector<std::stri
 // Writes files into an output folder whole or not at all, refusing to overwrite any input file;
 // CSV, SVG and GeoJSON files are stamped with the trace (report/trace.hpp).
 void write_outputs(const std::string& dir, const std::vector<std::string>& input_files,
-                   const std::vector<std::pair<std::string, std::string>>& files,
-                   const std::vector<report::TraceField>& trace);
+                   std::vector<std::pair<std::string, std::string>> files, const std::vector<report::TraceField>& trace);
 
 }  // namespace wickgrid::cli

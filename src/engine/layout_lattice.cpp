@@ -359,6 +359,15 @@ Layout lay_out(const Area& area, const Area& exclusions, const LatticeSpec& spec
     out.angle_deg = angle_rad * 180.0 / std::numbers::pi;
     out.origin = origin;
     if (region.empty()) throw EvaluationError("drain layout", "the exclusion zones cover the whole treatment area");
+    // Refused before anything is laid when even a lower bound on the count is over the cap: the cells
+    // of the lattice points that are laid cover the region shrunk by r = the offset plus a cell's
+    // diameter (at most 2 × spacing), and shrinking removes at most the tube of radius r around the
+    // boundary, at most 2r·P + πr² a ring (P its length).
+    const double r = spec.edge_offset_m + 2.0 * spec.spacing_m;
+    std::size_t rings = 0;
+    for (const auto& part : region) rings += 1 + part.inners().size();
+    const double sure_area_m2 = out.area_m2 - 2.0 * r * bg::perimeter(region) - std::numbers::pi * r * r * static_cast<double>(rings);
+    if (sure_area_m2 / area_per_drain_m2(spec.pattern, spec.spacing_m) > static_cast<double>(max_drains)) too_many(max_drains);
 
     // Rows are cut by the region in the lattice's frame; the edge offset is then kept drain by drain
     // against the region's edges (exactly the points at least the offset inside).

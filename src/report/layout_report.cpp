@@ -1,6 +1,7 @@
 #include "layout_report.hpp"
 
 #include <algorithm>
+#include <vector>
 #include <charconv>
 #include <cmath>
 #include <sstream>
@@ -127,9 +128,6 @@ std::string layout_table(const results::LayoutRecord& r) {
 
 json layout_json(const results::LayoutRecord& r) {
     const auto& l = r.layout;
-    json drains = json::array();
-    for (const auto& d : l.drains)
-        drains.push_back({{"id", d.id}, {"x", rounded(d.x_m, 3)}, {"y", rounded(d.y_m, 3)}, {"length_m", rounded(d.length_m, 2)}});
     json out{{"schema", 1},
              {"wickgrid_version", version},
              {"title", r.scenario->title},
@@ -150,7 +148,6 @@ json layout_json(const results::LayoutRecord& r) {
              {"drains_outside_boreholes", l.drains_outside_base_points},
              {"crs", r.request.area.crs_name ? json(*r.request.area.crs_name) : json(nullptr)},
              {"drain_cost", r.drain_cost ? json(*r.drain_cost) : json(nullptr)},
-             {"drains", std::move(drains)},
              {"warnings", string_list(r.warnings)},
              {"design_check", {{"spacing_limit_m", r.design_check.spacing_limit_m ? json(*r.design_check.spacing_limit_m) : json(nullptr)},
                                {"limited_by_max_spacing", r.design_check.limited_by_maximum},
@@ -163,6 +160,28 @@ json layout_json(const results::LayoutRecord& r) {
              {"assumptions", string_list(r.assumptions)},
              {"cautions", string_list(results::cautions())}};
     add_title_block(out, *r.scenario);
+    return out;
+}
+
+std::string layout_json_text(const results::LayoutRecord& r) {
+    std::string out = layout_json(r).dump(1);
+    out.pop_back();  // the closing brace: the drains go last
+    out += ",\n \"drains\": [";
+    out.reserve(out.size() + r.layout.drains.size() * 64 + 8);
+    bool first = true;
+    for (const auto& d : r.layout.drains) {
+        out += first ? "\n  {\"id\":" : ",\n  {\"id\":";
+        first = false;
+        out += std::to_string(d.id);
+        out += ",\"x\":";
+        append_fixed(out, d.x_m, 3);
+        out += ",\"y\":";
+        append_fixed(out, d.y_m, 3);
+        out += ",\"length_m\":";
+        append_fixed(out, d.length_m, 2);
+        out += '}';
+    }
+    out += "\n ]\n}\n";
     return out;
 }
 
@@ -238,8 +257,21 @@ std::string layout_svg(const results::LayoutRecord& r) {
           << "\" fill=\"url(#excluded)\" fill-rule=\"evenodd\" stroke=\"#5b6066\" stroke-width=\"1\"/>\n";
     // Drains as round-capped zero-length strokes: one path, a dot per drain.
     std::string dots;
-    dots.reserve(r.layout.drains.size() * 18);
+    constexpr std::size_t drawn_one_by_one = 100000;
+    const bool thinned = r.layout.drains.size() > drawn_one_by_one;
+    // Thinned: one dot per half-pixel cell of the plan (a bitmap of the cells already drawn).
+    const auto cells_x = static_cast<std::size_t>(2.0 * width) + 2;
+    const auto cells_y = static_cast<std::size_t>(2.0 * plan_h) + 2;
+    std::vector<bool> drawn(thinned ? cells_x * cells_y : 0);
+    dots.reserve(std::min(r.layout.drains.size(), thinned ? cells_x * cells_y : r.layout.drains.size()) * 18);
     for (const auto& d : r.layout.drains) {
+        if (thinned) {
+            const double cx = std::clamp(2.0 * f.sx(d.x_m), 0.0, static_cast<double>(cells_x - 1));
+            const double cy = std::clamp(2.0 * f.sy(d.y_m), 0.0, static_cast<double>(cells_y - 1));
+            const std::size_t cell = static_cast<std::size_t>(cy) * cells_x + static_cast<std::size_t>(cx);
+            if (drawn[cell]) continue;
+            drawn[cell] = true;
+        }
         dots += 'M';
         append_fixed(dots, f.sx(d.x_m), 1);
         dots += ' ';

@@ -47,11 +47,12 @@ std::vector<TraceField> batch_trace_fields() {
             caution_field()};
 }
 
-std::string traced(const std::string& file_name, const std::string& content, const std::vector<TraceField>& trace) {
+std::string traced(const std::string& file_name, std::string content, const std::vector<TraceField>& trace) {
     if (ends_with(file_name, ".csv")) {
-        std::string out;
-        for (const auto& f : trace) out += "# " + f.label + ": " + f.value + "\n";
-        return out + content;
+        std::string block;
+        for (const auto& f : trace) block += "# " + f.label + ": " + f.value + "\n";
+        content.insert(0, block);
+        return content;
     }
     if (ends_with(file_name, ".svg")) {
         std::string desc = "<desc>";
@@ -60,18 +61,16 @@ std::string traced(const std::string& file_name, const std::string& content, con
         desc += "</desc>";
         const auto title_end = content.find("</title>");
         const auto at = title_end != std::string::npos ? title_end + 8 : content.find('>', content.find("<svg")) + 1;
-        std::string out = content;
-        out.insert(at, "\n" + desc);
-        return out;
+        content.insert(at, "\n" + desc);
+        return content;
     }
     if (ends_with(file_name, ".geojson")) {
         const auto brace = content.find('{');
         if (brace == std::string::npos) return content;
         nlohmann::json properties = nlohmann::json::object();
         for (const auto& f : trace) properties[f.key] = f.value;
-        std::string out = content;
-        out.insert(brace + 1, "\"properties\":" + properties.dump() + ",");
-        return out;
+        content.insert(brace + 1, "\"properties\":" + properties.dump() + ",");
+        return content;
     }
     return content;
 }

@@ -25,7 +25,8 @@ std::vector<TraceField> batch_trace_fields();
 // block of lines starting with '#' (readers skip it: pandas `comment='#'`, R `comment.char='#'`),
 // `.svg` a <desc> element after the chart's <title>, `.geojson` the collection's "properties" (a
 // text insertion after the opening brace: a set-out file may hold millions of points); other kinds
-// are returned unchanged. Cost: one copy of the content; thread-safe.
-std::string traced(const std::string& file_name, const std::string& content, const std::vector<TraceField>& trace);
+// are returned unchanged. Cost: at most one copy of the content (none for other kinds when moved in);
+// thread-safe.
+std::string traced(const std::string& file_name, std::string content, const std::vector<TraceField>& trace);
 
 }  // namespace wickgrid::report

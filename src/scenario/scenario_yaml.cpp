@@ -770,13 +770,15 @@ double stage_pressure(const Reader& r, const YAML::Node& node, const std::string
     if (node["height_m"] && node["pressure_kPa"])
         r.fail(node["pressure_kPa"], path + ".pressure_kPa", "give either 'height_m' or 'pressure_kPa', not both");
     if (node["height_m"]) {
-        const double h = r.number(node, path, "height_m", positive("m"));
+        // A lift below a millimetre (or a load below 0.01 kPa) changes nothing the theory can resolve
+        // and, far smaller, underflows the secant storage: refused at its key.
+        const double h = r.number(node, path, "height_m", {0.001, true, inf, false, "m (1 mm at least)"});
         if (!s.fill_unit_weight_kN_per_m3)
             r.fail(node["height_m"], path + ".height_m", "a fill height needs 'fill_unit_weight_kN_per_m3' at the top level");
         return h * *s.fill_unit_weight_kN_per_m3;
     }
     if (!node["pressure_kPa"]) r.fail(node, path, "missing key 'height_m' or 'pressure_kPa' in '" + path + "'");
-    return r.number(node, path, "pressure_kPa", positive("kPa"));
+    return r.number(node, path, "pressure_kPa", {0.01, true, inf, false, "kPa (0.01 kPa at least)"});
 }
 
 void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
@@ -899,7 +901,7 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
         r.allow_keys(vac, path, {"pressure_kPa", "start_day", "end_day", "tip_ratio"});
         VacuumLoad v;
         v.pressure_kPa = r.number(vac, path, "pressure_kPa",
-                                  {0.0, false, defaults::max_vacuum_kPa, true, "kPa (one atmosphere at most)"});
+                                  {1.0, true, defaults::max_vacuum_kPa, true, "kPa (1 kPa at least, one atmosphere at most)"});
         const double start = r.number(vac, path, "start_day", {0.0, true, horizon_days, false, "days"});
         const double end = r.number(vac, path, "end_day",
                                     {start, false, horizon_days, true, "days (after start_day, within the 100-year record)"});
