@@ -8,6 +8,7 @@
 #include <cstring>
 #include <filesystem>
 #include <iostream>
+#include <new>
 #include <sstream>
 
 #include "commands.hpp"
@@ -140,6 +141,12 @@ int report_current_exception() {
     } catch (const report::OutputError& e) {
         report_error(e.what());
         return output_failed;
+    } catch (const std::bad_alloc&) {
+        // Said without allocating: the memory that ran out may not be there for a message either.
+        std::fputs("wickgrid: error: not enough memory for this run (a smaller area, a wider spacing, fewer outputs "
+                   "or fewer samples)\n",
+                   stderr);
+        return internal_error;
     } catch (const std::exception& e) {
         report_error(std::string("unexpected failure: ") + e.what());
         return internal_error;
