@@ -1,5 +1,5 @@
 // libFuzzer target: an area file (GeoJSON or CSV), a base-depth file, plate and piezometer readings
-// through their readers, and a valid area through the layout, alone and less a moved copy of itself,
+// through their readers (plate readings on through monitor's back-analysis and its JSON and CSV), and a valid area through the layout, alone and less a moved copy of itself,
 // then through the set-out writers (CSV, GeoJSON and JSON, each parsed back: a file handed to a
 // contractor holds only finite numbers). An input holding a line "%%" is an area above it and a
 // borehole file below it, so the drain lengths come from the input too.
@@ -15,8 +15,10 @@
 #include <nlohmann/json.hpp>
 
 #include "report/layout_report.hpp"
+#include "report/monitor_report.hpp"
 #include "report/trace.hpp"
 #include "results/layout_record.hpp"
+#include "results/monitor_record.hpp"
 #include "scenario/area_files.hpp"
 #include "scenario/readings_file.hpp"
 #include "wickgrid/errors.hpp"
@@ -99,7 +101,20 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     try {
         const auto r = scenario::parse_readings(text, "fuzz.csv");
         if (r.plates.empty()) __builtin_trap();
+        // Readings through the back-analysis and its writers, with the default Asaoka interval and
+        // with one from the input's own span (monitor --interval-days).
+        double last_s = 0.0;
+        for (const auto& p : r.plates) last_s = std::max(last_s, p.readings.back().time_s);
+        for (const std::optional<double> interval : {std::optional<double>{}, std::optional<double>(last_s / 37.0)}) {
+            if (interval && !(*interval > 0.0)) continue;
+            const auto m = results::monitor_record(writer_scenario(), "d", Pattern::triangular, 1.5, r, interval);
+            const auto doc = nlohmann::json::parse(report::monitor_json(m).dump());
+            if (doc["plates"].size() != r.plates.size()) __builtin_trap();
+            if (report::monitor_csv(m).find('\0') != std::string::npos) __builtin_trap();
+        }
     } catch (const scenario::ScenarioError&) {
+    } catch (const InputError&) {
+    } catch (const EvaluationError&) {
     }
     try {
         const auto p = scenario::parse_piezometers(text, "fuzz.csv");

@@ -146,3 +146,16 @@ TEST(LayeredSite, FastSearchAgreesWithCellModelsBuiltPerSpacing) {
             }
     }
 }
+
+// The layered series' study budget follows its cost, the cube of its terms: the generic 2 × 10⁴
+// searches at the default 48 terms, 34 at 400 (2 × 10⁴ × (48/400)³ = 34.56, rounded down).
+TEST(LayeredSeries, StudyBudgetFollowsTheTerms) {
+    auto s = scenario::load_scenario(source("configs/layered-five-staged.yaml"));
+    ASSERT_EQ(s.site.method.method, CellMethod::layered);
+    s.site.method.series_terms = 48;
+    EXPECT_DOUBLE_EQ(max_spacing_searches(s.site), 2e4);
+    s.site.method.series_terms = 24;
+    EXPECT_DOUBLE_EQ(max_spacing_searches(s.site), 2e4);
+    s.site.method.series_terms = 400;
+    EXPECT_DOUBLE_EQ(max_spacing_searches(s.site), 34.0);
+}

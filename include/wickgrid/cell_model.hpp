@@ -154,7 +154,8 @@ SpacingLimit spacing_limit_reference(const Site& site, const DrainProductSpec& p
 bool has_fast_search(const Site& site);
 
 // How many spacing searches one study may run on this site (defaults.hpp: the fast path, the generic
-// closed-form search, the numerical cell), so that no accepted input runs for hours.
+// closed-form search, the numerical cell; the layered series' generic budget scaled by
+// (default terms / terms)³), so that no accepted input runs for hours.
 double max_spacing_searches(const Site& site);
 
 }  // namespace wickgrid

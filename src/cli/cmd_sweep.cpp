@@ -93,7 +93,7 @@ Runner add_sweep(CLI::App& app) {
                 const auto started = std::chrono::steady_clock::now();
                 r.monte_carlo = monte_carlo(site, record.result, spec, progress_bar());
                 const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
-                spdlog::info("Monte Carlo: {:.0f} samples per second, {} designs each, {} thread(s)",
+                spdlog::info("Monte Carlo: {:.3g} samples per second, {} designs each, {} thread(s)",
                              static_cast<double>(spec.samples) / std::max(seconds, 1e-9), record.result.rows.size(),
                              r.monte_carlo->threads);
                 r.monte_carlo_spec = spec;

@@ -165,6 +165,12 @@ bool has_fast_search(const Site& site) {
 
 double max_spacing_searches(const Site& site) {
     if (site.method.method == CellMethod::numerical) return defaults::max_searches_numerical;
+    if (site.method.method == CellMethod::layered) {
+        // The series' cost grows as the cube of its terms (a dense generalised eigenproblem): the
+        // budget is the generic one at the default number of terms, scaled down for more.
+        const double ratio = static_cast<double>(defaults::layered_terms) / site.method.series_terms;
+        return std::floor(defaults::max_searches_generic * std::min(1.0, ratio * ratio * ratio));
+    }
     return has_fast_search(site) ? defaults::max_searches_fast : defaults::max_searches_generic;
 }
 

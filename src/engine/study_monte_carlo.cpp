@@ -155,7 +155,8 @@ MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_re
         throw InputError("Monte Carlo samples × design rows", values,
                          "at most " + format_value(max_spacing_searches(base_input)) +
                              " spacing searches for this site's method and loading (staged loading, the residual "
-                             "criterion and the numerical cell search on cell models): use fewer samples");
+                             "criterion, the layered series (fewer the more series_terms) and the numerical cell "
+                             "search on cell models): use fewer samples");
     for (const auto& in : spec.inputs)
         if (in.input == StudyInput::discharge_capacity && base_input.products.size() != 1)
             throw InputError(std::string(to_string(in.input)), 0.0,
