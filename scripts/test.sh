@@ -8,8 +8,11 @@ bash scripts/install-deps.sh --test
 jobs=$(nproc)
 
 cmake -S . -B build/release -G Ninja -DCMAKE_BUILD_TYPE=Release -DWICKGRID_WERROR=ON
+# Fast gate: the engine and its unit tests first (a few minutes), so a broken engine fails early.
+cmake --build build/release -j "$jobs" --target wickgrid_engine_tests
+ctest --test-dir build/release --output-on-failure -j "$jobs" -L unit
 cmake --build build/release -j "$jobs"
-ctest --test-dir build/release --output-on-failure -j "$jobs"
+ctest --test-dir build/release --output-on-failure -j "$jobs" -LE unit
 
 cmake -S . -B build/sanitize -G Ninja -DCMAKE_BUILD_TYPE=Debug -DWICKGRID_SANITIZE=ON \
       -DWICKGRID_BENCH=OFF -DCMAKE_CXX_FLAGS="-O1"

@@ -5,8 +5,12 @@
 
 namespace wickgrid {
 
-// Carrillo (1942): 1 − U = (1 − Uv)(1 − Ur), for degrees in [0, 1].
+// Carrillo (1942): 1 − U = (1 − Uv)(1 − Ur), for degrees in [0, 1]; throws InputError naming a
+// degree outside it. Cost O(1); thread-safe.
 double carrillo(double uv, double ur);
+// The same rule unchecked, for the fast paths whose degrees lie in [0, 1] by construction: the one
+// place the rule is written.
+constexpr double carrillo_combined(double uv, double ur) noexcept { return 1.0 - (1.0 - uv) * (1.0 - ur); }
 
 // Largest ratio of the well-resistance term π·kh·l²/qw to the smear term μs taken as a design input
 // (realistic drains stay below about 100; far beyond it an input is wrong). Above it the depth

@@ -9,7 +9,7 @@ double carrillo(double uv, double ur) {
         throw InputError("degree of vertical consolidation Uv", uv, "between 0 and 1");
     if (!(ur >= 0.0 && ur <= 1.0))
         throw InputError("degree of radial consolidation Ur", ur, "between 0 and 1");
-    return 1.0 - (1.0 - uv) * (1.0 - ur);
+    return carrillo_combined(uv, ur);
 }
 
 }  // namespace wickgrid

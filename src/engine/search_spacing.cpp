@@ -140,7 +140,7 @@ double SpacingSolver::radial(double spacing_m, double time_s) const {
 
 double SpacingSolver::degree(double spacing_m, double time_s) const {
     const double uv = degree_vertical(tv_per_s_ * time_s);
-    return 1.0 - (1.0 - uv) * (1.0 - radial(spacing_m, time_s));
+    return carrillo_combined(uv, radial(spacing_m, time_s));
 }
 
 
@@ -206,7 +206,7 @@ SpacingLimit SpacingSolver::solve(double target_degree, double deadline_s) const
     const double uv = degree_vertical(tv_per_s_ * deadline_s);
     if (spec_.drain.theory == RadialTheory::hansbo_1981) return solve_newton(target_degree, uv, deadline_s);
     auto degree_at = [&](double spacing_m) {
-        return 1.0 - (1.0 - uv) * (1.0 - radial(spacing_m, deadline_s));
+        return carrillo_combined(uv, radial(spacing_m, deadline_s));
     };
     return solve_spacing(degree_at, target_degree, bounds_);
 }

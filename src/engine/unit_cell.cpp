@@ -105,7 +105,7 @@ Degrees UnitCell::at(double time_s) const {
     Degrees d;
     d.vertical = degree_vertical(tv_per_s_ * time_s);
     d.radial = depth_rule_.degree(th_per_s_ * time_s);
-    d.combined = 1.0 - (1.0 - d.vertical) * (1.0 - d.radial);
+    d.combined = carrillo_combined(d.vertical, d.radial);
     return d;
 }
 
