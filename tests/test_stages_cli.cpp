@@ -228,6 +228,7 @@ TEST(StagesCommand, JsonKeepsTheContractAndTheChartAgreesWithTheTable) {
     ASSERT_LE(r.exit_code, 1) << r.err;
     const auto doc = nlohmann::json::parse(r.out);
     EXPECT_DOUBLE_EQ(doc.at("target_factor_of_safety").get<double>(), 1.3);
+    EXPECT_TRUE(doc.at("plan_check").is_null());  // the scenario's own days: the design checked them
     // Four lifts and the finished-level top-up, checked as a stage of its own.
     ASSERT_EQ(doc.at("stages").size(), 5u);
     EXPECT_EQ(doc.at("fill_to_finish").at("top_up_stage").get<int>(), 5);
@@ -245,6 +246,33 @@ TEST(StagesCommand, JsonKeepsTheContractAndTheChartAgreesWithTheTable) {
     }
     EXPECT_EQ(doc.at("meets_target").get<bool>(), r.exit_code == 0);
     EXPECT_TRUE(doc.at("stages").back().at("earliest_next_start_day").is_null());
+}
+
+// `stages --plan` closes its own loop: the planned schedule is asked the design criterion again at the
+// spacing checked, and gives the largest spacing that meets it under that schedule. Planning the
+// surcharged creep scenario earlier takes the surcharge off earlier, so more creep is left: the
+// residual limit is then missed at the design's spacing (exit 1), and a smaller spacing is named.
+TEST(StagesCommand, PlanSaysWhetherTheCriterionStillHolds) {
+    const auto creep = run("stages " + source("configs/embankment-surcharge-creep.yaml") + " --plan --json");
+    ASSERT_EQ(creep.exit_code, 1) << creep.err;
+    const auto c = nlohmann::json::parse(creep.out);
+    ASSERT_TRUE(c.at("plan_check").is_object());
+    EXPECT_FALSE(c["plan_check"]["meets_criterion"].get<bool>());
+    EXPECT_GT(c["plan_check"]["residual_settlement_mm"].get<double>(), 100.0);
+    EXPECT_LT(c["plan_check"]["spacing_limit_m"].get<double>(), c["spacing_m"].get<double>());
+    EXPECT_TRUE(c["meets_target"].get<bool>());  // every stage stands; the criterion is what fails
+    bool surcharge_kept = false;
+    for (const auto& st : c["stages"]) surcharge_kept = surcharge_kept || st["surcharge"].get<bool>();
+    EXPECT_TRUE(surcharge_kept);
+
+    const auto staged_plan = run("stages " + source(staged) + " --plan --json");
+    ASSERT_LE(staged_plan.exit_code, 1) << staged_plan.err;
+    const auto p = nlohmann::json::parse(staged_plan.out);
+    ASSERT_TRUE(p.at("plan_check").is_object());
+    EXPECT_EQ(p["plan_check"]["meets_criterion"].get<bool>(), p["plan_check"]["degree_at_deadline"].get<double>() >= 0.9);
+    if (p["plan_check"]["meets_criterion"].get<bool>()) {
+        EXPECT_GE(p["plan_check"]["spacing_limit_m"].get<double>(), p["spacing_m"].get<double>());
+    }
 }
 
 // The section figure can be checked against the inputs: groundwater, the section's dimensions and

@@ -70,7 +70,7 @@ Runner add_stages(CLI::App& app) {
             }
             if (o->json) item.print(report::stages_json(s, record).dump(2) + "\n");
             else item.print(report::stages_table(s, record));
-            return static_cast<int>(results::stages_meet_target(record) ? ok : no_feasible_design);
+            return static_cast<int>(results::stages_meet_target_and_criterion(record) ? ok : no_feasible_design);
         });
     };
 }

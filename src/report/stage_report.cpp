@@ -42,6 +42,38 @@ std::vector<std::vector<std::string>> stage_rows(const results::StageRecord& rec
     return rows;
 }
 
+namespace {
+nlohmann::json plan_check_json(const results::StageRecord& r) {
+    using nlohmann::json;
+    if (!r.plan_check) return nullptr;
+    const auto& c = *r.plan_check;
+    return {{"meets_criterion", c.meets},
+            {"spacing_m", r.spacing_m},
+            {"degree_at_deadline", c.degree_at_deadline},
+            {"residual_settlement_mm", c.residual_m ? json(*c.residual_m * 1000.0) : json(nullptr)},
+            {"spacing_limit_m", c.spacing_limit_m ? json(*c.spacing_limit_m) : json(nullptr)},
+            {"limited_by_max_spacing", c.limited_by_maximum}};
+}
+
+// The planned schedule against the design criterion, in words.
+std::string plan_check_text(const scenario::Scenario& s, const results::StageRecord& r) {
+    if (!r.plan_check) return "";
+    const auto& c = *r.plan_check;
+    std::string text = "Planned schedule against the criterion (" + results::criterion_text(s.site) + "): at " +
+                       fixed(r.spacing_m, 2) + " m, U = " + fixed(100.0 * c.degree_at_deadline, 1) + " % at the deadline" +
+                       (c.residual_m ? ", residual " + fixed(*c.residual_m * 1000.0, 0) + " mm" : std::string()) +
+                       (c.meets ? ": met." : ": NOT met.");
+    if (c.spacing_limit_m)
+        text += " Under this schedule the largest spacing that meets it is " + fixed(*c.spacing_limit_m, 3) + " m" +
+                (c.limited_by_maximum ? " (the range's largest)" : "") + " for " + r.drain + " in a " +
+                std::string(to_string(r.pattern)) + " pattern" + (c.meets ? "." : "; check the stages at that spacing.");
+    else
+        text += " No spacing in the scenario's range meets it under this schedule: move the deadline, add a surcharge "
+                "or change the product.";
+    return text + "\n";
+}
+}  // namespace
+
 nlohmann::json stages_json(const scenario::Scenario& s, const results::StageRecord& r) {
     using nlohmann::json;
     json stages = json::array();
@@ -77,6 +109,7 @@ nlohmann::json stages_json(const scenario::Scenario& s, const results::StageReco
              {"meets_target", results::stages_meet_target(r)},
              {"stages", stages},
              {"history", history},
+             {"plan_check", plan_check_json(r)},
              {"fill_to_finish", r.finish ? json{{"finished_height_m", r.finish->finished_height_m},
                                                 {"placed_height_m", r.finish->placed_height_m},
                                                 {"final_settlement_m", r.finish->final_settlement_m},
@@ -142,6 +175,7 @@ std::string stages_table(const scenario::Scenario& s, const results::StageRecord
           << " kPa); " << top_up_words(r) << ". The top-up is loaded, settled and checked as a stage of its own.\n";
     o << (results::stages_meet_target(r) ? "Every stage meets the target factor of safety.\n"
                                          : "WARNING: a stage does not meet the target factor of safety.\n");
+    o << plan_check_text(s, r);
     o << "\nAssumptions:\n";
     for (const auto& a : r.assumptions) o << "  - " << a << "\n";
     o << "\n" << results::caution_block();

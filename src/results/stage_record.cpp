@@ -2,6 +2,7 @@
 
 #include <algorithm>
 
+#include "wickgrid/cell_model.hpp"
 #include "wickgrid/units.hpp"
 
 namespace wickgrid::results {
@@ -53,6 +54,20 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
         charted.loading = r.plan.schedule;
         charted.embankment->height_m = final_fill_height_m(site);
     }
+    // Planned: the schedule moved, so the criterion is asked again under it (one loop, not two commands).
+    const std::size_t placements = site.loading->stages.size() + (site.loading->surcharge ? 1 : 0);
+    if (plan && r.plan.stages.size() == placements) {
+        const auto model = make_cell_model(charted, product, pattern, spacing_m);
+        PlanCriterionCheck c;
+        c.meets = model->margin(charted.criterion) >= 0.0;
+        c.degree_at_deadline = model->degree(charted.criterion.deadline_s);
+        if (const auto* res = charted.criterion.residual())
+            c.residual_m = model->residual_m(charted.criterion.deadline_s, res->service_s);
+        const SpacingLimit limit = spacing_limit(charted, product, pattern);
+        if (limit.feasible) c.spacing_limit_m = limit.spacing_m;
+        c.limited_by_maximum = limit.at_maximum;
+        r.plan_check = c;
+    }
     // The top-up was planned once with the scenario (a lift of its own in the stages checked here).
     if (s.top_up) {
         r.finish = s.top_up->finish;
@@ -76,6 +91,10 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
         "added undrained).",
     };
     return r;
+}
+
+bool stages_meet_target_and_criterion(const StageRecord& record) {
+    return stages_meet_target(record) && (!record.plan_check || record.plan_check->meets);
 }
 
 bool stages_meet_target(const StageRecord& record) {

@@ -11,6 +11,16 @@
 
 namespace wickgrid::results {
 
+// With --plan: whether the planned schedule still meets the design criterion at the spacing checked,
+// and the largest spacing that does under it (same product and pattern, the scenario's range).
+struct PlanCriterionCheck {
+    bool meets = false;
+    double degree_at_deadline = 0.0;
+    std::optional<double> residual_m;       // residual criterion: the residual at the deadline
+    std::optional<double> spacing_limit_m;  // none: no spacing in the range meets it
+    bool limited_by_maximum = false;        // met even at the range's largest spacing
+};
+
 struct StageRecord {
     std::string drain;
     Pattern pattern = Pattern::triangular;
@@ -29,6 +39,7 @@ struct StageRecord {
     // planned for it (checked here as a stage of its own).
     std::optional<FillToFinish> finish;
     std::optional<scenario::TopUpPlan> top_up;
+    std::optional<PlanCriterionCheck> plan_check;  // planned, with every stage placed
 };
 
 // Whether the scenario can be checked stage by stage: an embankment, stages, and a strength in
@@ -42,5 +53,7 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
 
 // Whether every stage meets the target (and, planned, every stage could be placed).
 bool stages_meet_target(const StageRecord& record);
+// Whether the stages meet the target and, planned, the schedule still meets the design criterion.
+bool stages_meet_target_and_criterion(const StageRecord& record);
 
 }  // namespace wickgrid::results
