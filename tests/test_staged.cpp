@@ -122,7 +122,9 @@ TEST(Staged, LoadingAndLayerErrorsAreLocated) {
         {"misspelt loading key", "  surcharge: {", "  surcharges: {", "loading.surcharges", "did you mean 'surcharge'"},
         {"cr above cc", "cc: 0.45, cr: 0.06", "cc: 0.45, cr: 0.6", "clay.layers[0].cr", "must not exceed cc"},
         {"ocr below one", "cr: 0.11, ocr: 1.2}", "cr: 0.11, ocr: 0.8}", "clay.layers[1].ocr", "at least 1"},
-        {"missing preconsolidation", "cr: 0.11, ocr: 1.2}", "cr: 0.11}", "clay.layers[1]", "'preconsolidation_kPa' or 'ocr'"},
+        {"missing preconsolidation", "cr: 0.11, ocr: 1.2}", "cr: 0.11}", "clay.layers[1]", "'preconsolidation_kPa', 'ocr' or 'pop_kPa'"},
+        {"OCR and POP", "cr: 0.11, ocr: 1.2}", "cr: 0.11, ocr: 1.2, pop_kPa: 10}", "clay.layers[1].pop_kPa", "not both 'ocr' and 'pop_kPa'"},
+        {"negative POP", "cr: 0.11, ocr: 1.2}", "cr: 0.11, pop_kPa: -5}", "clay.layers[1].pop_kPa", "0 to 1000"},
         {"thickness mismatch", "  groundwater_depth_m: 0.8", "  groundwater_depth_m: 0.8\n  thickness_m: 15", "clay.thickness_m",
          "sum of the layer thicknesses"},
         {"under-consolidated", "cr: 0.09, ocr: 1.1}", "cr: 0.09, preconsolidation_kPa: 40}",
@@ -181,4 +183,30 @@ TEST(Staged, StudiesHonourTheCriterionAndLoading) {
     }
     mc.samples = 20000;  // beyond the search budget of a staged site: refused by name
     EXPECT_THROW(monte_carlo(input, base, mc), InputError);
+}
+
+// POP: σ'p = σ'v0 + POP at each slice. One slice of a 2 m layer under water: σ'v0 = (18 − 9.81)·1 =
+// 8.19 kPa at mid-layer, σ'p = 28.19 kPa; under 50 kPa the e–log settlement by hand is
+// H/(1 + e0)·[Cr·log10(σ'p/σ'v0) + Cc·log10((σ'v0 + Δσ)/σ'p)] (the usual one-dimensional formula).
+TEST(Staged, PopRaisesThePreconsolidationAboveTheInSituStress) {
+    auto text = [](const std::string& preconsolidation) {
+        return "schema: 1\ntarget: {degree: 0.9, deadline_days: 180}\n"
+               "clay:\n  groundwater_depth_m: 0.0\n  slices_per_layer: 1\n  cv_m2_per_year: 1.0\n  ch_m2_per_year: 3.0\n"
+               "  kh_m_per_s: 1.0e-9\n  vertical_drainage: both_faces\n  layers:\n"
+               "    - {thickness_m: 2.0, unit_weight_kN_per_m3: 18.0, e0: 1.5, cc: 0.5, cr: 0.05, " +
+               preconsolidation + "}\n"
+               "loading:\n  stages:\n    - {start_day: 0, end_day: 0, pressure_kPa: 50}\n"
+               "drains: [{name: d, equivalent_diameter_mm: 66, discharge_capacity_m3_per_year: 100}]\n"
+               "installation: {mandrel_diameter_mm: 90, smear_diameter_ratio: 2.0, smear_permeability_ratio: 3.0}\n"
+               "spacing: {min_m: 0.8, max_m: 3.0}\n";
+    };
+    const double s0 = (18.0 - units::gamma_w_kN_per_m3) * 1.0, sp = s0 + 20.0;
+    const double hand = 2.0 / 2.5 * (0.05 * std::log10(sp / s0) + 0.5 * std::log10((s0 + 50.0) / sp));
+    const auto pop = scenario::parse_scenario(text("pop_kPa: 20"), "pop.yaml");
+    EXPECT_NEAR(ultimate_settlement_function(pop.site)(50.0), hand, 1e-12);
+    char given[64];
+    std::snprintf(given, sizeof given, "preconsolidation_kPa: %.17g", sp);
+    const auto direct = scenario::parse_scenario(text(given), "sp.yaml");
+    EXPECT_NEAR(ultimate_settlement_function(direct.site)(50.0), hand, 1e-12);
+    EXPECT_NEAR(hand, 0.14737, 5e-5);  // the same by calculator
 }

@@ -14,8 +14,9 @@ namespace wickgrid {
 struct SoilLayer {
     double thickness_m = 0.0;
     double unit_weight_kN_per_m3 = 0.0;  // bulk unit weight
-    // e–log σ' parameters (all four, with the preconsolidation pressure or an OCR) ...
-    std::optional<double> e0, cc, cr, preconsolidation_kPa, ocr;
+    // e–log σ' parameters (all four, with exactly one of: the preconsolidation pressure, an OCR, or a
+    // pre-overburden pressure POP, σ'p = σ'v0 + POP, the usual way to describe a crust) ...
+    std::optional<double> e0, cc, cr, preconsolidation_kPa, ocr, pop_kPa;
     // ... or a constant coefficient of volume compressibility.
     std::optional<double> mv_m2_per_kN;
     // Consolidation coefficients of this layer (numerical method); absent: the clay's.

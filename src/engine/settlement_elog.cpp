@@ -29,10 +29,14 @@ void validate_profile(const SoilProfile& profile) {
         require_positive("layer e0", *l.e0);
         require_positive("layer cc", *l.cc);
         require_non_negative("layer cr", *l.cr);
-        if (l.preconsolidation_kPa.has_value() == l.ocr.has_value())
-            throw InputError("layer preconsolidation", 0.0, "given once, as preconsolidation_kPa or as ocr");
+        const int given = static_cast<int>(l.preconsolidation_kPa.has_value()) + static_cast<int>(l.ocr.has_value()) +
+                          static_cast<int>(l.pop_kPa.has_value());
+        if (given != 1)
+            throw InputError("layer preconsolidation", static_cast<double>(given),
+                             "given once, as preconsolidation_kPa, as ocr or as pop_kPa");
         if (l.preconsolidation_kPa) require_positive("layer preconsolidation pressure (kPa)", *l.preconsolidation_kPa);
         if (l.ocr) require_at_least("layer ocr", *l.ocr, 1.0, "at least 1");
+        if (l.pop_kPa) require_non_negative("layer pre-overburden pressure POP (kPa)", *l.pop_kPa);
     }
     for (const auto& s : slices(profile))
         if (!(s.sigma_v0_kPa > 0.0))
@@ -56,6 +60,7 @@ SliceState initial_state(const SoilProfile& profile, double z) {
             double sigma_p = sigma0;
             if (l.preconsolidation_kPa) sigma_p = *l.preconsolidation_kPa;
             if (l.ocr) sigma_p = *l.ocr * sigma0;
+            if (l.pop_kPa) sigma_p = sigma0 + *l.pop_kPa;
             return {z, 0.0, sigma0, sigma_p};
         }
         top += l.thickness_m;

@@ -388,7 +388,9 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
             if (l.mv_m2_per_kN) text += "mv = " + scientific(*l.mv_m2_per_kN) + " m²/kN";
             else
                 text += "e0 = " + fixed(*l.e0, 2) + ", Cc = " + fixed(*l.cc, 3) + ", Cr = " + fixed(*l.cr, 3) + ", " +
-                        (l.ocr ? "OCR = " + fixed(*l.ocr, 2) : "σ'p = " + fixed(*l.preconsolidation_kPa, 1) + " kPa");
+                        (l.ocr       ? "OCR = " + fixed(*l.ocr, 2)
+                         : l.pop_kPa ? "POP = " + fixed(*l.pop_kPa, 1) + " kPa (σ'p = σ'v0 + POP)"
+                                     : "σ'p = " + fixed(*l.preconsolidation_kPa, 1) + " kPa");
             if (l.cv_m2_per_s) text += ", cv = " + fixed(units::per_second_to_per_year(*l.cv_m2_per_s), 3) + " m²/year";
             if (l.ch_m2_per_s) text += ", ch = " + fixed(units::per_second_to_per_year(*l.ch_m2_per_s), 3) + " m²/year";
             if (l.c_alpha) {

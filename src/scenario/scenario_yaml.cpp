@@ -266,7 +266,7 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
         const YAML::Node l = node[i];
         r.remember(path, l);
         r.expect_map(l, path);
-        r.allow_keys(l, path, {"thickness_m", "unit_weight_kN_per_m3", "e0", "cc", "cr", "preconsolidation_kPa", "ocr",
+        r.allow_keys(l, path, {"thickness_m", "unit_weight_kN_per_m3", "e0", "cc", "cr", "preconsolidation_kPa", "ocr", "pop_kPa",
                                "mv_m2_per_kN", "cv_m2_per_year", "ch_m2_per_year", "su_top_kPa",
                                "su_gradient_kPa_per_m", "su_ratio", "strength_exponent", "su_gain_ratio", "c_alpha",
                                "c_alpha_over_cc"});
@@ -279,19 +279,28 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
         layer.unit_weight_kN_per_m3 = r.number(l, path, "unit_weight_kN_per_m3", positive("kN/m³"));
         layer.mv_m2_per_kN = r.optional_number(l, path, "mv_m2_per_kN", compressibility);
         if (layer.mv_m2_per_kN) {
-            for (const char* key : {"e0", "cc", "cr", "preconsolidation_kPa", "ocr"})
+            for (const char* key : {"e0", "cc", "cr", "preconsolidation_kPa", "ocr", "pop_kPa"})
                 if (l[key]) r.fail(l[key], path + "." + key, "a layer takes either mv_m2_per_kN or e0/cc/cr, not both");
         } else {
             layer.e0 = r.number(l, path, "e0", positive(""));
             layer.cc = r.number(l, path, "cc", positive(""));
             layer.cr = r.number(l, path, "cr", non_negative(""));
             if (*layer.cr > *layer.cc) r.fail(l["cr"], path + ".cr", "must not exceed cc (recompression is stiffer than virgin compression)");
-            if (l["preconsolidation_kPa"] && l["ocr"])
-                r.fail(l["ocr"], path + ".ocr", "give either 'preconsolidation_kPa' or 'ocr', not both");
-            if (!l["preconsolidation_kPa"] && !l["ocr"])
-                r.fail(l, path, "missing key 'preconsolidation_kPa' or 'ocr' in '" + path + "'");
+            // Exactly one description of the preconsolidation: σ'p itself, OCR = σ'p/σ'v0, or POP = σ'p − σ'v0.
+            const char* forms[] = {"preconsolidation_kPa", "ocr", "pop_kPa"};
+            const char* first = nullptr;
+            for (const char* key : forms)
+                if (l[key]) {
+                    if (first)
+                        r.fail(l[key], path + "." + key,
+                               std::string("give one of 'preconsolidation_kPa', 'ocr' or 'pop_kPa', not both '") + first +
+                                   "' and '" + key + "'");
+                    first = key;
+                }
+            if (!first) r.fail(l, path, "missing key 'preconsolidation_kPa', 'ocr' or 'pop_kPa' in '" + path + "'");
             layer.preconsolidation_kPa = r.optional_number(l, path, "preconsolidation_kPa", positive("kPa"));
             layer.ocr = r.optional_number(l, path, "ocr", {1.0, true, inf, false, ""});
+            layer.pop_kPa = r.optional_number(l, path, "pop_kPa", {0.0, true, 1000.0, true, "kPa (σ'p − σ'v0; 0 to 1000)"});
         }
         layer.strength = read_strength(r, l, path, layer.thickness_m);
         if (l["c_alpha"] && l["c_alpha_over_cc"])
