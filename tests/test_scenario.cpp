@@ -223,3 +223,35 @@ TEST(Calibration, BadBlocksAreNamed) {
     }
 }
 }  // namespace
+
+namespace {
+// rank_by: the demo ranks by cost (every product has one); asked, it ranks by drain metres, and a
+// cost ranking where a product has no cost is refused at the key, naming the product.
+TEST(RankBy, ChoosesTheRankingOrRefusesAtTheKey) {
+    const auto by_cost = parse_scenario(demo_text(), "demo.yaml");
+    EXPECT_EQ(run_design(by_cost.site).ranking, RankingBasis::cost_per_hectare);
+    const auto by_length = parse_scenario(demo_text() + "\nrank_by: drain_length\n", "demo.yaml");
+    const DesignResult r = run_design(by_length.site);
+    EXPECT_EQ(r.ranking, RankingBasis::drain_length_per_hectare);
+    const DesignRow* best = r.best();
+    ASSERT_NE(best, nullptr);
+    for (const auto& row : r.rows)
+        if (row.feasible) {
+            EXPECT_LE(best->drain_length_per_hectare_m, row.drain_length_per_hectare_m);
+        }
+    const std::string no_cost = demo_with("    cost_per_m: 1.45\n", "");
+    try {
+        parse_scenario(no_cost + "\nrank_by: cost\n", "demo.yaml");
+        ADD_FAILURE() << "accepted";
+    } catch (const ScenarioError& e) {
+        EXPECT_EQ(e.key_path(), "rank_by");
+        EXPECT_NE(e.message().find("band-100x6-hiflow"), std::string::npos) << e.message();
+    }
+    try {
+        parse_scenario(demo_text() + "\nrank_by: price\n", "demo.yaml");
+        ADD_FAILURE() << "accepted";
+    } catch (const ScenarioError& e) {
+        EXPECT_NE(e.message().find("must be one of cost, drain_length"), std::string::npos) << e.message();
+    }
+}
+}  // namespace

@@ -11,8 +11,6 @@
 
 namespace wickgrid {
 
-enum class RankingBasis { cost_per_hectare, drain_length_per_hectare };
-
 struct DesignRow {
     std::string drain;
     Pattern pattern = Pattern::triangular;

@@ -47,6 +47,9 @@ inline constexpr std::array criterion_names{
 inline constexpr std::array ranking_names{
     Named<RankingBasis>{RankingBasis::cost_per_hectare, "cost_per_hectare"},
     Named<RankingBasis>{RankingBasis::drain_length_per_hectare, "drain_length_per_hectare"}};
+// The scenario's `rank_by` key (shorter words for the same choice).
+inline constexpr std::array rank_by_names{Named<RankingBasis>{RankingBasis::cost_per_hectare, "cost"},
+                                          Named<RankingBasis>{RankingBasis::drain_length_per_hectare, "drain_length"}};
 inline constexpr std::array study_input_names{
     Named<StudyInput>{StudyInput::ch, "ch_m2_per_year"},
     Named<StudyInput>{StudyInput::cv, "cv_m2_per_year"},

@@ -19,6 +19,9 @@
 
 namespace wickgrid {
 
+// How a design study ranks its feasible designs.
+enum class RankingBasis { cost_per_hectare, drain_length_per_hectare };
+
 // Where the clay's horizontal permeability comes from.
 enum class KhSource {
     given,           // kh_m_per_s in the ground
@@ -99,6 +102,9 @@ struct SearchRange {
     SpacingBounds bounds;
     double increment_m = defaults::spacing_increment_m;
     std::vector<Pattern> patterns{Pattern::triangular, Pattern::square};
+    // How feasible designs are ranked; absent: by cost per hectare when every product has a cost,
+    // else by drain metres per hectare.
+    std::optional<RankingBasis> rank_by;
 };
 
 struct Site {

@@ -190,7 +190,7 @@ private:
 const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "drains", "drain_length_m",
                                         "drain_outlets", "installation", "patterns", "spacing", "studies",
                                         "uncertain", "fill_unit_weight_kN_per_m3", "loading", "method",
-                                        "numerical_mesh", "project", "series_terms", "embankment", "calibration"};
+                                        "numerical_mesh", "project", "series_terms", "embankment", "calibration", "rank_by"};
 
 void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "target");
@@ -1071,6 +1071,15 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     read_installation(r, root, s);
     read_patterns(r, root, s);
     read_spacing(r, root, s);
+    if (root["rank_by"]) {
+        s.site.range.rank_by = r.choice(root["rank_by"], "rank_by", rank_by_names);
+        if (*s.site.range.rank_by == RankingBasis::cost_per_hectare)
+            for (std::size_t i = 0; i < s.site.products.size(); ++i)
+                if (!s.site.products[i].cost_per_m)
+                    r.fail(root["rank_by"], "rank_by",
+                           "'cost' needs a cost_per_m on every drain product; drains[" + std::to_string(i) + "] ('" +
+                               s.site.products[i].name + "') has none");
+    }
     check_physics(r, s);
     auto top_up_warnings = plan_top_up(s);
     read_studies(r, root, s);
