@@ -255,3 +255,32 @@ TEST(RankBy, ChoosesTheRankingOrRefusesAtTheKey) {
     }
 }
 }  // namespace
+
+namespace {
+// studies.grid: an axis left out keeps its default, so `grid: {}` is the documented default grid.
+TEST(GridStudy, AxesLeftOutKeepTheirDefaults) {
+    const auto with_grid = [](const std::string& grid) {
+        std::string text = demo_text();
+        text.replace(text.find("studies:\n"), 9, "studies:\n  grid: " + grid + "\n");
+        return parse_scenario(text, "demo.yaml");
+    };
+    const auto empty = with_grid("{}");
+    EXPECT_TRUE(empty.studies.grid_given);
+    EXPECT_EQ(empty.studies.grid_x.input, StudyInput::smear_permeability_ratio);
+    EXPECT_DOUBLE_EQ(empty.studies.grid_x.from_si, 1.0);
+    EXPECT_DOUBLE_EQ(empty.studies.grid_x.to_si, 6.0);
+    EXPECT_EQ(empty.studies.grid_y.input, StudyInput::smear_diameter_ratio);
+    EXPECT_EQ(empty.studies.grid_y.steps, 11);
+    const auto x_only = with_grid("{x: {input: ch_m2_per_year, from: 2.0, to: 5.0, steps: 4}}");
+    EXPECT_EQ(x_only.studies.grid_x.input, StudyInput::ch);
+    EXPECT_EQ(x_only.studies.grid_x.steps, 4);
+    EXPECT_EQ(x_only.studies.grid_y.input, StudyInput::smear_diameter_ratio);
+    try {
+        with_grid("{x: {input: smear_diameter_ratio, from: 1.5, to: 3.0}}");
+        ADD_FAILURE() << "accepted";
+    } catch (const ScenarioError& e) {
+        EXPECT_EQ(e.key_path(), "studies.grid.x.input");
+        EXPECT_NE(e.message().find("must differ from the other axis's input"), std::string::npos) << e.message();
+    }
+}
+}  // namespace

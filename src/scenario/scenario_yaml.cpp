@@ -672,10 +672,12 @@ void read_studies(const Reader& r, const YAML::Node& root, Scenario& s) {
                 r.fail(a["steps"], path + ".steps", "must be a whole number from 2 to 1001");
             return out;
         };
-        s.studies.grid_x = axis("x");
-        s.studies.grid_y = axis("y");
+        // An axis not given keeps its default (StudyRequests: kh/ks 1–6 across, ds/dm 1.5–4 up).
+        if (g["x"]) s.studies.grid_x = axis("x");
+        if (g["y"]) s.studies.grid_y = axis("y");
         if (s.studies.grid_x.input == s.studies.grid_y.input)
-            r.fail(g["y"]["input"], "studies.grid.y.input", "must differ from studies.grid.x.input");
+            r.fail(g["y"] ? g["y"]["input"] : g["x"]["input"], g["y"] ? "studies.grid.y.input" : "studies.grid.x.input",
+                   "must differ from the other axis's input (" + std::string(to_string(s.studies.grid_y.input)) + ")");
         const double searches = static_cast<double>(s.studies.grid_x.steps) * s.studies.grid_y.steps *
                                 static_cast<double>(s.site.products.size() * s.site.range.patterns.size());
         if (searches > max_spacing_searches(s.site))
