@@ -364,3 +364,23 @@ TEST(Cli, SubLayerTableAddsUpToTheDesignRow) {
 
 }  // namespace
 }  // namespace wickgrid
+
+// A comma-separated option takes exactly one argument: options and scenario files may come in any
+// order (the file after `--only tornado` is a file, not a second study).
+TEST(Cli, CommaSeparatedOptionsTakeOneArgument) {
+    const std::string demo = source("demo/scenario.yaml");
+    const CommandRun before = run("sweep --only tornado " + demo + " --json");
+    ASSERT_EQ(before.exit_code, 0) << before.err;
+    const CommandRun after = run("sweep " + demo + " --only tornado --json");
+    ASSERT_EQ(after.exit_code, 0) << after.err;
+    EXPECT_EQ(json::parse(before.out), json::parse(after.out));
+    const CommandRun curve = run("curve --at-days 30,60 " + demo + " --drain band-100x4 --pattern square --spacing 1.5 --json");
+    ASSERT_EQ(curve.exit_code, 0) << curve.err;
+    EXPECT_EQ(json::parse(curve.out)["points"].size(), 2u);
+    const CommandRun depths = run("curve --depths 2,5 " + demo + " --drain band-100x4 --pattern square --spacing 1.5 --at-days 30 --json");
+    ASSERT_EQ(depths.exit_code, 0) << depths.err;
+    // Still refused when the value is wrong, naming the option and the value.
+    const CommandRun bad = run("sweep " + demo + " --only tornados");
+    EXPECT_EQ(bad.exit_code, 2);
+    EXPECT_NE(bad.err.find("--only"), std::string::npos) << bad.err;
+}

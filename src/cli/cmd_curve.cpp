@@ -31,7 +31,10 @@ Runner add_curve(CLI::App& app) {
     cmd->add_option("--drain", o->drain, "Drain product name from the scenario")->required();
     cmd->add_option("--pattern", o->pattern, "triangular or square")->required()->check(pattern_check());
     cmd->add_option("--spacing", o->spacing_m, "Drain spacing (m)")->required()->check(positive_number());
-    auto* at = cmd->add_option("--at-days", o->at_days, "Comma-separated times (days), e.g. 30,60,90")->delimiter(',');
+    // A comma-separated option takes one argument, so options and files may come in any order.
+    auto* at = cmd->add_option("--at-days", o->at_days, "Comma-separated times (days), e.g. 30,60,90")
+                   ->delimiter(',')
+                   ->allow_extra_args(false);
     cmd->add_option("--points", o->points, "Number of evenly spaced times (default 31)")
         ->check(whole_between(2, 100000))
         ->excludes(at);
@@ -41,7 +44,8 @@ Runner add_curve(CLI::App& app) {
     cmd->add_option("--depths", o->depths_m,
                     "Comma-separated depths (m below the top of the clay) at which to list the local degree and excess "
                     "pore pressure, e.g. 2,5,8")
-        ->delimiter(',');
+        ->delimiter(',')
+        ->allow_extra_args(false);
     auto* json = cmd->add_flag("--json", o->json, "JSON on stdout");
     cmd->add_flag("--csv", o->csv, "CSV on stdout")->excludes(json);
     return [o] {

@@ -48,7 +48,8 @@ Runner add_layout(CLI::App& app) {
                       ->check(number_between(-360.0, 360.0));
     auto* origin = cmd->add_option("--origin", o->origin, "A lattice point X,Y in metres (default: a corner of the longest edge)")
                        ->delimiter(',')
-                       ->expected(2);
+                       ->expected(2)
+                       ->allow_extra_args(false);
     cmd->add_option("--edge-offset-m", o->edge_offset_m, "Least distance from a drain to the area's edges, holes and exclusions (m, default 0)")
         ->check(number_between(0.0, 1e6));
     cmd->add_option("--exclude", o->exclude, "Exclusion zones: a second area file (GeoJSON or CSV)");

@@ -54,6 +54,7 @@ Runner add_sweep(CLI::App& app) {
         ->required();
     cmd->add_option("--only", o->only, "Studies to run: tornado, grid, monte_carlo (comma-separated; default all)")
         ->delimiter(',')
+        ->allow_extra_args(false)  // one argument: the scenario file after it is not swallowed
         ->check(CLI::IsMember({"tornado", "grid", "monte_carlo"}));
     cmd->add_option("--samples", o->samples, "Monte Carlo samples (overrides the file)")->check(whole_between(1, 1000000000));
     cmd->add_option("--seed", o->seed, "Monte Carlo seed (overrides the file); same seed, same result");
