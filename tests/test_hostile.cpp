@@ -1,11 +1,11 @@
 // Hostile input: every case ends quickly with a named error and its exit code; no input is
 // overwritten, no temporary is left, no output set is half written, no text breaks an output format.
 #include <gtest/gtest.h>
-#include <unistd.h>
 
 #include <nlohmann/json.hpp>
 
 #include "cli_helpers.hpp"
+#include "report/atomic_file.hpp"
 
 using namespace wickgrid::cli_testing;
 using nlohmann::json;
@@ -153,16 +153,6 @@ TEST(Hostile, NoCommandWritesOverItsInput) {
     }
 }
 
-// The host name as the writer puts it in staging folder names ('/' and '.' made '_').
-std::string this_host() {
-    char name[256] = {};
-    if (::gethostname(name, sizeof name - 1) != 0 || name[0] == '\0') return "host";
-    std::string out(name);
-    for (char& c : out)
-        if (c == '/' || c == '.') c = '_';
-    return out;
-}
-
 TEST(Hostile, OutputsReplaceLinksAndLeaveNoTemporaries) {
     const fs::path dir = scratch();
     const fs::path victim = dir / "victim.txt";
@@ -170,7 +160,7 @@ TEST(Hostile, OutputsReplaceLinksAndLeaveNoTemporaries) {
     const fs::path out = dir / "out";
     fs::create_directories(out);
     fs::create_symlink(victim, out / "design.json");  // a link planted at an output name
-    fs::create_directories(out / (".wickgrid-staging." + this_host() + ".999999999.abcdef"));  // left by a killed run
+    fs::create_directories(out / (wickgrid::report::staging_prefix_of_this_host() + "999999999.abcdef"));  // left by a killed run
     fs::create_directories(out / ".wickgrid-staging.other_host.12.abcdef");  // another host's: may be live
     fs::create_directories(out / ".wickgrid-out-1-abcdef");                  // a user's folder, whatever its name
     const CommandRun r = run("design " + source("demo/scenario.yaml") + " --out " + out.string());
@@ -202,7 +192,7 @@ TEST(Hostile, OutputSetsAreNeverMixed) {
     EXPECT_EQ(taken.exit_code, 3) << taken.err;
     EXPECT_NE(taken.err.find("a folder has that name"), std::string::npos) << taken.err;
     EXPECT_EQ(slurp(out / "design.json"), before);
-    const std::string stem = ".wickgrid-staging." + this_host() + ".999999999.abcdef";
+    const std::string stem = wickgrid::report::staging_prefix_of_this_host() + "999999999.abcdef";
     const fs::path odd = dir / (stem + ".yaml");
     fs::copy_file(source("demo/scenario.yaml"), odd);
     const fs::path batch = dir / "batch";

@@ -187,7 +187,8 @@ TEST(Staged, StudiesHonourTheCriterionAndLoading) {
 
 // POP: σ'p = σ'v0 + POP at each slice. One slice of a 2 m layer under water: σ'v0 = (18 − 9.81)·1 =
 // 8.19 kPa at mid-layer, σ'p = 28.19 kPa; under 50 kPa the e–log settlement by hand is
-// H/(1 + e0)·[Cr·log10(σ'p/σ'v0) + Cc·log10((σ'v0 + Δσ)/σ'p)] (the usual one-dimensional formula).
+// H/(1 + e0)·[Cr·log10(σ'p/σ'v0) + Cc·log10((σ'v0 + Δσ)/σ'p)] (the one-dimensional e–log settlement of
+// an over-consolidated layer loaded past σ'p; common practice, in every soil mechanics text).
 TEST(Staged, PopRaisesThePreconsolidationAboveTheInSituStress) {
     auto text = [](const std::string& preconsolidation) {
         return "schema: 1\ntarget: {degree: 0.9, deadline_days: 180}\n"

@@ -129,7 +129,7 @@ struct Site {
 };
 
 // Checks what joins several parts of the site (criterion against loading and settlement, bounds,
-// drain length); throws InputError naming the quantity. Cost: O(layers).
+// drain length, a ranking by cost against the products' costs); throws InputError naming the quantity. Cost: O(layers).
 void validate_site(const Site& site);
 
 // The embankment's full fill height (m): the section's own height_m, else the permanent stages' total

@@ -34,11 +34,14 @@ Runner add_stages(CLI::App& app) {
     drain->needs(pattern, spacing);
     pattern->needs(drain, spacing);
     spacing->needs(drain, pattern);
-    cmd->add_flag("--plan", o->plan, "Move each stage to the earliest day that keeps the target factor of safety");
+    cmd->add_flag("--plan", o->plan,
+                  "Move each stage (the surcharge too) to the earliest day that keeps the target factor of safety, "
+                  "then check the design criterion under the planned days and give the largest spacing that meets it");
     cmd->add_flag("--json", o->json, "JSON on stdout");
     cmd->add_option("--out", o->out_dir, "Folder for the section and chart SVG files (stages-section.svg, "
                                          "stages-safety.svg, stages-height.svg)");
-    cmd->footer("Exit codes: 0 every stage meets the target; 1 a stage does not (outputs are still written); "
+    cmd->footer("Exit codes: 0 every stage meets the target (and, with --plan, the criterion still holds); 1 a stage "
+                "does not, or the planned days miss the criterion (outputs are still written); "
                 "2 bad input; 3 output failed; 5 cannot evaluate.");
     return [o] {
         return run_each(o->files, {o->json, false}, [&](const BatchItem& item) {

@@ -93,8 +93,6 @@ DesignResult run_design(const Site& site) {
                                         [](const DesignRow* r) { return r->cost_per_hectare.has_value(); });
     result.ranking = site.range.rank_by.value_or(all_costed ? RankingBasis::cost_per_hectare
                                                              : RankingBasis::drain_length_per_hectare);
-    if (result.ranking == RankingBasis::cost_per_hectare && !all_costed && !feasible.empty())
-        throw InputError("rank_by", 0.0, "'drain_length' here: ranking by cost needs a cost_per_m on every drain product");
     const bool by_cost = result.ranking == RankingBasis::cost_per_hectare;
     std::stable_sort(feasible.begin(), feasible.end(), [&](const DesignRow* a, const DesignRow* b) {
         if (by_cost && *a->cost_per_hectare != *b->cost_per_hectare)

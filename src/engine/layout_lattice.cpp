@@ -175,13 +175,6 @@ std::pair<long long, long long> index_range(double first, double last, std::size
     return {static_cast<long long>(lo), static_cast<long long>(hi)};
 }
 
-// The spans of one row inside the region, in ascending order of their start. The row is cut at v
-// and at v ± the boundary tolerance, so that a row lying along an edge, just outside it after
-// rounding, still meets it, and each span reaches the tolerance beyond its ends, so that a drain on
-// an edge across the row is kept too. Every point of these spans lies within about the tolerance
-// of the region.
-// (Growing the region by a buffer did the same, but Boost's buffer asserts on some valid thin
-// polygons.)
 // The region's parts with their extent across the rows: a row is cut only by the parts it crosses,
 // so far-apart parts, one of them detailed, cost rows × (that part's vertices), not rows × all.
 struct RowPart {
@@ -199,6 +192,13 @@ std::vector<RowPart> row_parts(const BMulti& region) {
     return out;
 }
 
+// The spans of one row inside the region, in ascending order of their start. The row is cut at v
+// and at v ± the boundary tolerance, so that a row lying along an edge, just outside it after
+// rounding, still meets it, and each span reaches the tolerance beyond its ends, so that a drain on
+// an edge across the row is kept too. Every point of these spans lies within about the tolerance
+// of the region.
+// (Growing the region by a buffer did the same, but Boost's buffer asserts on some valid thin
+// polygons.)
 std::vector<std::pair<double, double>> row_spans(const std::vector<RowPart>& parts, double u_low, double u_high, double v) {
     std::vector<std::pair<double, double>> spans;
     for (const double at : {v - boundary_tolerance_m, v, v + boundary_tolerance_m}) {
@@ -295,13 +295,10 @@ std::optional<AreaProblem> area_problem(const Area& area, PartOverlap overlap) {
         const BPolygon polygon = to_boost(part);
         if (bg::is_valid(polygon, failure)) continue;
         if (failure == bg::failure_interior_rings_outside) {  // name the hole, so the message points at it
-            BPolygon outline;
-            bg::assign_points(outline.outer(), polygon.outer());
             for (std::size_t h = 0; h < polygon.inners().size(); ++h) {
-                BPolygon hole;
-                bg::assign_points(hole.outer(), polygon.inners()[h]);
-                bg::correct(hole);
-                if (!bg::covered_by(hole, outline)) return AreaProblem{i, h + 1, "hole lies outside its outline"};
+                BPolygon::ring_type hole = polygon.inners()[h];
+                bg::correct(hole);  // a hole runs the other way round: as a ring of its own, turned
+                if (!bg::covered_by(hole, polygon.outer())) return AreaProblem{i, h + 1, "hole lies outside its outline"};
             }
         }
         return AreaProblem{i, std::nullopt, "polygon " + validity_reason(failure)};
@@ -362,7 +359,8 @@ Layout lay_out(const Area& area, const Area& exclusions, const LatticeSpec& spec
     // Refused before anything is laid when even a lower bound on the count is over the cap: the cells
     // of the lattice points that are laid cover the region shrunk by r = the offset plus a cell's
     // diameter (at most 2 × spacing), and shrinking removes at most the tube of radius r around the
-    // boundary, at most 2r·P + πr² a ring (P its length).
+    // boundary, at most 2r·P + πr² a ring (P its length; the area of a tube around a closed curve,
+    // from memory).
     const double r = spec.edge_offset_m + 2.0 * spec.spacing_m;
     std::size_t rings = 0;
     for (const auto& part : region) rings += 1 + part.inners().size();

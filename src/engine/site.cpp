@@ -62,6 +62,13 @@ void validate_site(const Site& site) {
     }
     if (site.products.empty()) throw InputError("number of drain products", 0.0, "at least 1");
     if (site.range.patterns.empty()) throw InputError("number of patterns", 0.0, "at least 1");
+    if (site.range.rank_by == RankingBasis::cost_per_hectare) {
+        const auto without = std::count_if(site.products.begin(), site.products.end(),
+                                           [](const DrainProductSpec& p) { return !p.cost_per_m; });
+        if (without > 0)
+            throw InputError("drain products without cost_per_m, ranked by cost", static_cast<double>(without),
+                             "0 (rank_by: cost needs a cost on every product)");
+    }
     require_positive("smallest spacing (m)", site.range.bounds.min_m);
     require_greater("largest spacing (m)", site.range.bounds.max_m, site.range.bounds.min_m, "greater than the smallest");
     require_positive("spacing increment (m)", site.range.increment_m);

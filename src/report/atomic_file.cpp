@@ -69,14 +69,6 @@ namespace {
 // with a dot (cli folder_names), so no scenario's folder can look like one.
 const std::string staging_prefix = ".wickgrid-staging.";
 
-std::string host_name() {
-    char name[256] = {};
-    if (::gethostname(name, sizeof name - 1) != 0 || name[0] == '\0') return "host";
-    std::string out(name);
-    for (char& c : out)
-        if (c == '/' || c == '.') c = '_';
-    return out;
-}
 
 // Runs into one folder take turns: an advisory lock on DIR/.wickgrid-lock, released when the process
 // ends however it ends (so a killed run leaves no stale lock).
@@ -104,9 +96,9 @@ private:
 // Staging folders left by a run of this host that was killed (kill -9 cannot be cleaned up after):
 // with the folder's lock held no other run of this host is writing here, so every one is stale.
 // Another host's are left alone (its run may be live on a shared folder).
-void remove_stale_staging(const std::string& dir, const std::string& host) {
+void remove_stale_staging(const std::string& dir) {
     std::error_code ec;
-    const std::string mine = staging_prefix + host + ".";
+    const std::string mine = staging_prefix_of_this_host();
     for (const auto& entry : fs::directory_iterator(dir, ec)) {
         const std::string name = entry.path().filename().string();
         if (name.rfind(mine, 0) == 0 && entry.is_directory(ec) && !entry.is_symlink(ec)) fs::remove_all(entry.path(), ec);
@@ -126,13 +118,19 @@ void check_targets(const std::string& dir, const std::vector<std::pair<std::stri
 }
 }  // namespace
 
+std::string staging_prefix_of_this_host() {
+    char name[256] = {};
+    std::string host = ::gethostname(name, sizeof name - 1) == 0 && name[0] != '\0' ? name : "host";
+    for (char& c : host)
+        if (c == '/' || c == '.') c = '_';
+    return staging_prefix + host + ".";
+}
+
 void write_files_atomically(const std::string& dir, const std::vector<std::pair<std::string, std::string>>& files) {
     const FolderLock lock(dir);
-    const std::string host = host_name();
-    remove_stale_staging(dir, host);
+    remove_stale_staging(dir);
     check_targets(dir, files);
-    std::string pattern =
-        (fs::path(dir) / (staging_prefix + host + "." + std::to_string(::getpid()) + ".XXXXXX")).string();
+    std::string pattern = (fs::path(dir) / (staging_prefix_of_this_host() + std::to_string(::getpid()) + ".XXXXXX")).string();
     if (!::mkdtemp(pattern.data()))
         throw OutputError("cannot create a temporary folder in " + dir + ": " + std::strerror(errno));
     const fs::path staging(pattern);

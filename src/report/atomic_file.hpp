@@ -20,6 +20,10 @@ void write_file_atomically(const std::string& path, const std::string& content);
 // when every one is complete are they renamed into place (a failure leaves the old set untouched).
 void write_files_atomically(const std::string& dir, const std::vector<std::pair<std::string, std::string>>& files);
 
+// The start of this host's staging folder names, ".wickgrid-staging.HOST." (HOST with '/' and '.'
+// made '_'): a folder of that name left in an output folder is a killed run's, removed by the next.
+std::string staging_prefix_of_this_host();
+
 // Creates the folder (and parents) if needed; throws OutputError naming it otherwise.
 void ensure_directory(const std::string& path);
 

@@ -163,6 +163,22 @@ json layout_json(const results::LayoutRecord& r) {
     return out;
 }
 
+namespace {
+// One drain as the set-out files give it: {"id":…,"x":…,"y":…,"length_m":…}, coordinates to the
+// millimetre, lengths to the centimetre (the JSON drain list and the GeoJSON properties alike).
+void append_drain_object(std::string& out, const layout::Drain& d) {
+    out += "{\"id\":";
+    out += std::to_string(d.id);
+    out += ",\"x\":";
+    append_fixed(out, d.x_m, 3);
+    out += ",\"y\":";
+    append_fixed(out, d.y_m, 3);
+    out += ",\"length_m\":";
+    append_fixed(out, d.length_m, 2);
+    out += '}';
+}
+}  // namespace
+
 std::string layout_json_text(const results::LayoutRecord& r) {
     std::string out = layout_json(r).dump(1);
     out.pop_back();  // the closing brace: the drains go last
@@ -170,16 +186,9 @@ std::string layout_json_text(const results::LayoutRecord& r) {
     out.reserve(out.size() + r.layout.drains.size() * 64 + 8);
     bool first = true;
     for (const auto& d : r.layout.drains) {
-        out += first ? "\n  {\"id\":" : ",\n  {\"id\":";
+        out += first ? "\n  " : ",\n  ";
         first = false;
-        out += std::to_string(d.id);
-        out += ",\"x\":";
-        append_fixed(out, d.x_m, 3);
-        out += ",\"y\":";
-        append_fixed(out, d.y_m, 3);
-        out += ",\"length_m\":";
-        append_fixed(out, d.length_m, 2);
-        out += '}';
+        append_drain_object(out, d);
     }
     out += "\n ]\n}\n";
     return out;
@@ -215,13 +224,9 @@ std::string layout_geojson(const results::LayoutRecord& r) {
         append_fixed(out, d.x_m, 3);
         out += ',';
         append_fixed(out, d.y_m, 3);
-        out += "]},\"properties\":{\"id\":" + std::to_string(d.id) + ",\"x\":";
-        append_fixed(out, d.x_m, 3);
-        out += ",\"y\":";
-        append_fixed(out, d.y_m, 3);
-        out += ",\"length_m\":";
-        append_fixed(out, d.length_m, 2);
-        out += "}}";
+        out += "]},\"properties\":";
+        append_drain_object(out, d);
+        out += '}';
     }
     out += "\n]}\n";
     return out;

@@ -17,27 +17,23 @@ using report::fixed;
 double days(double s) { return units::seconds_to_days(s); }
 constexpr int chart_points = 120;
 
-// The last change of load by the last reading: the end of the last stage (top-up included) or of the
-// surcharge's placing begun by then, or the plate's own last change of fill height, whichever is
-// later. A lift still being placed at the last reading moves the window past it (Asaoka then has no
-// readings to use, rightly).
-double last_load_change_s(const Site& site, const scenario::PlateRecord& plate, double now_s) {
+// When the placing of the lifts (top-up included) and of the surcharge begun by `by_s` ends; with
+// `by_s` infinite, when the plan's last placing ends.
+double last_placing_end_s(const Site& site, double by_s) {
     double t = 0.0;
-    if (site.loading) {
-        for (const auto& st : site.loading->stages)
-            if (st.start_s <= now_s) t = std::max(t, st.end_s);
-        if (const auto& su = site.loading->surcharge; su && su->start_s <= now_s) t = std::max(t, su->end_s);
-    }
-    if (plate.last_fill_change_s) t = std::max(t, *plate.last_fill_change_s);
+    if (!site.loading) return t;
+    for (const auto& st : site.loading->stages)
+        if (st.start_s <= by_s) t = std::max(t, st.end_s);
+    if (const auto& su = site.loading->surcharge; su && su->start_s <= by_s) t = std::max(t, su->end_s);
     return t;
 }
 
-// The plan's last change of load (its last lift or the surcharge's placing).
-double planned_last_load_change_s(const Site& site) {
-    if (!site.loading) return 0.0;
-    double t = site.loading->end_of_construction_s();
-    if (site.loading->surcharge) t = std::max(t, site.loading->surcharge->end_s);
-    return t;
+// The last change of load by the last reading, or the plate's own last change of fill height,
+// whichever is later. A lift still being placed at the last reading moves the window past it
+// (Asaoka then has no readings to use, rightly).
+double last_load_change_s(const Site& site, const scenario::PlateRecord& plate, double now_s) {
+    const double t = last_placing_end_s(site, now_s);
+    return plate.last_fill_change_s ? std::max(t, *plate.last_fill_change_s) : t;
 }
 
 // Flags an s∞ that is not the final settlement under the permanent fill (a note says why).
@@ -49,7 +45,7 @@ void flag_asaoka(PlateAnalysis& a, const Site& site) {
                           fixed(days(v->end_s), 0) + "): the limit under fill and vacuum together, not the final "
                           "settlement under the fill alone");
     }
-    if (const double last = planned_last_load_change_s(site); last > a.now_s) {
+    if (const double last = last_placing_end_s(site, std::numeric_limits<double>::infinity()); last > a.now_s) {
         a.asaoka_flags.emplace_back("before_last_lift");
         a.notes.push_back("Asaoka: s∞ is taken before the last lift of the plan (placed by day " + fixed(days(last), 0) +
                           "): the limit of the load placed so far, not of the full load");
