@@ -1,5 +1,7 @@
 // Hostile input: every case ends quickly with a named error and its exit code; no input is
 // overwritten, no temporary is left, no output set is half written, no text breaks an output format.
+#include <algorithm>
+
 #include <gtest/gtest.h>
 
 #include <nlohmann/json.hpp>
@@ -200,6 +202,37 @@ TEST(Hostile, OutputSetsAreNeverMixed) {
     ASSERT_EQ(r.exit_code, 0) << r.err;
     EXPECT_TRUE(fs::exists(batch / ("_" + stem.substr(1)) / "design.json"));
     EXPECT_TRUE(fs::exists(batch / "scenario" / "design.json"));
+    fs::remove_all(dir);
+}
+
+// Runs into one folder at the same time take turns (the folder's lock): after each round of four
+// runs at two spacings, the JSON, GeoJSON, CSV and HTML written are all of one run.
+TEST(Hostile, RunsIntoOneFolderAtOnceLeaveOneRunsSet) {
+    const fs::path dir = scratch();
+    const fs::path out = dir / "out";
+    auto layout_at = [&](const char* spacing, int i) {
+        return std::string(WICKGRID_BINARY) + " layout " + source("demo/scenario.yaml") + " --area " +
+               source("demo/zone-c-area.geojson") + " --drain band-100x4 --pattern triangular --spacing " + spacing +
+               " --out " + out.string() + " >/dev/null 2>" + (dir / ("err" + std::to_string(i))).string() +
+               "; echo $? >" + (dir / ("rc" + std::to_string(i))).string();
+    };
+    for (int round = 0; round < 6; ++round) {
+        std::string all = "(";
+        for (int i = 0; i < 4; ++i) all += layout_at(i % 2 ? "1.5" : "1.2", i) + ") & (";
+        all += "true); wait";
+        ASSERT_EQ(std::system(("bash -c '" + all + "'").c_str()), 0);
+        for (int i = 0; i < 4; ++i)
+            ASSERT_EQ(slurp(dir / ("rc" + std::to_string(i))), "0\n") << slurp(dir / ("err" + std::to_string(i)));
+        const json doc = json::parse(slurp(out / "layout.json"));
+        const std::size_t drains = doc["drains"].size();
+        const json geo = json::parse(slurp(out / "layout.geojson"));
+        EXPECT_EQ(geo["features"].size(), drains) << "round " << round;
+        const std::string csv = csv_body(slurp(out / "layout.csv"));
+        EXPECT_EQ(static_cast<std::size_t>(std::count(csv.begin(), csv.end(), '\n')), drains + 1) << "round " << round;
+        const bool at_1_2 = doc["spacing_m"].get<double>() == 1.2;
+        EXPECT_NE(slurp(out / "layout.html").find(std::string("<th>spacing (m)</th><td>") + (at_1_2 ? "1.200" : "1.500")), std::string::npos)
+            << "round " << round;
+    }
     fs::remove_all(dir);
 }
 
