@@ -9,8 +9,10 @@
 #include <fstream>
 
 #include "cli_helpers.hpp"
+#include "scheme_checks.hpp"
 #include "results/design_record.hpp"
 #include "results/stage_record.hpp"
+#include "scenario/scheme_scenario.hpp"
 #include "scenario/scenario.hpp"
 #include "wickgrid/names.hpp"
 #include "wickgrid/units.hpp"
@@ -76,6 +78,22 @@ TEST_P(EveryScenario, EveryCommandRunsAndWritesWholeOutputs) {
             char fs[32];
             std::snprintf(fs, sizeof fs, "| %.2f", st["factor_of_safety"].get<double>());
             EXPECT_NE(note.find(fs), std::string::npos) << fs;
+        }
+    }
+    if (s.schedule) {
+        // The scheme search of a scenario that asks for one: every scheme on the front, written as a
+        // scenario and read back, gives `design` and `stages` the search's numbers.
+        const CommandRun schedule = run("schedule " + file + " --json");
+        ASSERT_TRUE(schedule.exit_code == 0 || schedule.exit_code == 1) << schedule.err;
+        const json sch = json::parse(schedule.out);
+        const ScheduleResult result = search_schedules(s.site, *s.schedule);
+        ASSERT_EQ(result.schemes.size(), sch["schemes"].size());
+        for (std::size_t i = 0; i < result.schemes.size(); ++i) {
+            EXPECT_EQ(result.schemes[i].cost_per_hectare, sch["schemes"][i]["cost_per_hectare"].get<double>());
+            if (!result.schemes[i].on_front) continue;
+            const fs::path chosen = dir / ("scheme-" + std::to_string(i) + ".yaml");
+            std::ofstream(chosen) << scenario::scheme_scenario_yaml(s, result.schemes[i]);
+            expect_reproduced(chosen, sch["schemes"][i]);
         }
     }
     if (s.site.has_settlement()) {

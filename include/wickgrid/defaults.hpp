@@ -92,6 +92,14 @@ inline constexpr std::size_t max_berms = 20;
 inline constexpr std::size_t max_load_stages = 100;
 inline constexpr std::size_t max_drain_products = 200;
 
+// The scheme search (schedule.hpp). Surcharges are a few metres of fill (common practice): a height
+// above max_surcharge_height_m is a typing error. A search plans every product × pattern × surcharge
+// height × spacing (about a second of one core each on a four-lift section): at most
+// max_schedule_schemes schemes, so that a run stays within minutes.
+inline constexpr double max_surcharge_height_m = 20.0;
+inline constexpr std::size_t max_surcharge_heights = 20;
+inline constexpr std::size_t max_schedule_schemes = 1000;
+
 // Layout.
 inline constexpr double layout_edge_offset_m = 0.0;  // drains may stand on the treatment area's edge
 

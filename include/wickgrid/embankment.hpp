@@ -40,6 +40,8 @@ struct EmbankmentSection {
     // (optional; stages.hpp: fill to a finished level).
     std::optional<double> finished_height_m;
     TopUpRule top_up = TopUpRule::with_last_lift;
+    // The day the top-up starts (s) when the scenario fixes it (a planned schedule); absent: by the rule.
+    std::optional<double> top_up_start_s;
     // The section's full fill height (its crest level above the original ground); absent: the
     // permanent stages' total (site.hpp: final_fill_height_m). A surcharge rises above it with the
     // same slopes.

@@ -10,6 +10,7 @@
 
 #include "wickgrid/design.hpp"
 #include "wickgrid/embankment.hpp"
+#include "wickgrid/schedule.hpp"
 #include "wickgrid/studies.hpp"
 
 namespace wickgrid {
@@ -74,6 +75,11 @@ inline constexpr std::array study_input_labels{
 
 inline constexpr std::array top_up_names{Named<TopUpRule>{TopUpRule::with_last_lift, "with_last_lift"},
                                           Named<TopUpRule>{TopUpRule::after_surcharge_removal, "after_surcharge_removal"}};
+// Why a scheme of `schedule` is not on the cost–finish front (JSON `excluded_because`).
+inline constexpr std::array scheme_exclusion_names{
+    Named<SchemeExclusion>{SchemeExclusion::stage_below_target, "stage_below_target"},
+    Named<SchemeExclusion>{SchemeExclusion::criterion_missed, "criterion_missed"},
+    Named<SchemeExclusion>{SchemeExclusion::beaten, "beaten"}};
 
 inline constexpr std::array distribution_names{Named<DistributionKind>{DistributionKind::normal, "normal"},
                                                Named<DistributionKind>{DistributionKind::lognormal, "lognormal"},

@@ -70,6 +70,7 @@ Runner add_verify(CLI::App& app);
 Runner add_layout(CLI::App& app);
 Runner add_monitor(CLI::App& app);
 Runner add_stages(CLI::App& app);
+Runner add_schedule(CLI::App& app);
 
 // Number checks with plain messages (no NaN, no infinity, no 309-digit bounds).
 CLI::Validator positive_number();

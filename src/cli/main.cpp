@@ -49,6 +49,7 @@ int main(int argc, char** argv) {
     const cli::Runner layout_cmd = cli::add_layout(app);
     const cli::Runner monitor = cli::add_monitor(app);
     const cli::Runner stages = cli::add_stages(app);
+    const cli::Runner schedule = cli::add_schedule(app);
     // An unknown command name gets its own message (CLI11 would only say a subcommand is required).
     if (argc > 1 && argv[1][0] != '-') {
         std::vector<std::string> names;
@@ -78,6 +79,7 @@ int main(int argc, char** argv) {
     try {
         if (app.got_subcommand("check")) return check();
         if (app.got_subcommand("design")) return design();
+        if (app.got_subcommand("schedule")) return schedule();
         if (app.got_subcommand("curve")) return curve();
         if (app.got_subcommand("sweep")) return sweep();
         if (app.got_subcommand("surcharge")) return surcharge();

@@ -9,6 +9,7 @@
 
 #include "wickgrid/design.hpp"
 #include "wickgrid/names.hpp"
+#include "wickgrid/schedule.hpp"
 #include "wickgrid/stages.hpp"
 #include "wickgrid/studies.hpp"
 
@@ -90,12 +91,14 @@ struct Scenario {
     std::string title;
     ProjectInfo project;
     std::string sha256;  // of the file's bytes, so a printed result can be traced to its input
+    std::string text;    // the file's text as read (a scheme's scenario is written from it)
     Site site;  // everything the physics needs, in SI units
     std::vector<DrainEntry> drains;  // as given, in the order of site.products
     std::optional<double> fill_unit_weight_kN_per_m3;
     std::optional<double> surcharge_max_height_m;
     std::optional<TopUpPlan> top_up;
     std::optional<Calibration> calibration;  // applied to site.ground already
+    std::optional<ScheduleSpec> schedule;    // the `schedule:` block (surcharge heights, costs)
     std::optional<double> mandrel_width_m;  // as given (the site keeps the equivalent diameter)
     StudyRequests studies;
     // Values allowed but outside the usual ranges (plausibility.hpp), located; every command shows them.

@@ -190,7 +190,8 @@ private:
 const std::vector<std::string> top_keys{"schema", "title", "target", "clay", "drains", "drain_length_m",
                                         "drain_outlets", "installation", "patterns", "spacing", "studies",
                                         "uncertain", "fill_unit_weight_kN_per_m3", "loading", "method",
-                                        "numerical_mesh", "project", "series_terms", "embankment", "calibration", "rank_by"};
+                                        "numerical_mesh", "project", "series_terms", "embankment", "calibration", "rank_by",
+                                        "schedule"};
 
 void read_target(const Reader& r, const YAML::Node& root, Scenario& s) {
     const YAML::Node node = r.required(root, "", "target");
@@ -520,7 +521,8 @@ void read_spacing(const Reader& r, const YAML::Node& root, Scenario& s) {
                format_value(range.increment_m) + " is not allowed: it gives " + format_value(std::floor(candidates)) +
                    " spacings between min_m and max_m; it must be at least " +
                    format_value((range.bounds.max_m - range.bounds.min_m) / defaults::max_spacing_candidates) + " m");
-    if (range.increment_m > range.bounds.max_m - range.bounds.min_m)
+    // A hair of tolerance: 1.0 − 0.8 is 0.19999999999999996 in binary, and an increment of 0.2 fits.
+    if (range.increment_m > (range.bounds.max_m - range.bounds.min_m) * (1.0 + 1e-9))
         r.fail(node["increment_m"], "spacing.increment_m",
                format_value(range.increment_m) + " is not allowed: it must be at most max_m − min_m = " +
                    format_value(range.bounds.max_m - range.bounds.min_m) + " m");
@@ -800,7 +802,7 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
     r.expect_map(node, path);
     r.allow_keys(node, path, {"crest_width_m", "side_slope_h_per_v", "fill_unit_weight_kN_per_m3", "fill_friction_angle_deg",
                               "fill_cohesion_kPa", "target_factor_of_safety", "finished_height_m", "berms", "height_m",
-                              "top_up"});
+                              "top_up", "top_up_start_day"});
     EmbankmentSection e;
     e.crest_width_m = r.number(node, path, "crest_width_m", non_negative("m"));
     e.side_slope_h_per_v = r.number(node, path, "side_slope_h_per_v",
@@ -818,6 +820,11 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
     if (node["top_up"]) {
         r.remember(path + ".top_up", node["top_up"]);
         e.top_up = r.choice(node["top_up"], path + ".top_up", top_up_names);
+    }
+    if (const auto day = r.optional_number(node, path, "top_up_start_day", day_within_horizon(0.0, true, "days (within 100 years)"))) {
+        if (!e.finished_height_m)
+            r.fail(node["top_up_start_day"], path + ".top_up_start_day", "needs 'finished_height_m' (the top-up it starts)");
+        e.top_up_start_s = units::days_to_seconds(*day);
     }
     if (const YAML::Node berms = node["berms"]) {
         r.remember(path + ".berms", berms);
@@ -925,6 +932,42 @@ void read_loading(const Reader& r, const YAML::Node& root, Scenario& s) {
     s.site.loading = h;
 }
 
+// The optional `schedule:` block: surcharge heights to search and the costs beyond the drains'.
+void read_schedule(const Reader& r, const YAML::Node& root, Scenario& s) {
+    if (!root["schedule"]) return;
+    const std::string path = "schedule";
+    const YAML::Node node = root[path];
+    r.remember(path, node);
+    r.expect_map(node, path);
+    r.allow_keys(node, path, {"surcharge_heights_m", "fill_cost_per_m3", "surcharge_cost_per_m3",
+                              "surcharge_removal_cost_per_m3", "cost_per_hectare_per_day"});
+    ScheduleSpec spec;
+    if (const YAML::Node heights = node["surcharge_heights_m"]) {
+        const std::string at = path + ".surcharge_heights_m";
+        r.remember(at, heights);
+        if (!heights.IsSequence() || heights.size() == 0)
+            r.fail(heights, at, "must be a list of at least one surcharge height (m; 0 for none)");
+        if (heights.size() > defaults::max_surcharge_heights)
+            r.fail(heights, at, "lists " + std::to_string(heights.size()) + " heights; at most " +
+                                    std::to_string(defaults::max_surcharge_heights));
+        if (!s.site.embankment)
+            r.fail(heights, at, "needs an 'embankment' block (the surcharge is fill on its crest, at its unit weight)");
+        for (std::size_t i = 0; i < heights.size(); ++i) {
+            const double h = r.number(heights[i], at + "[" + std::to_string(i) + "]",
+                                      {0.0, true, defaults::max_surcharge_height_m, true, "m (0 for no surcharge)"});
+            if (std::find(spec.surcharge_heights_m.begin(), spec.surcharge_heights_m.end(), h) != spec.surcharge_heights_m.end())
+                r.fail(heights[i], at + "[" + std::to_string(i) + "]", format_value(h) + " m is listed twice");
+            spec.surcharge_heights_m.push_back(h);
+        }
+    }
+    ScheduleCosts& c = spec.costs;
+    c.fill_per_m3 = r.optional_number(node, path, "fill_cost_per_m3", non_negative("per m³"));
+    c.surcharge_per_m3 = r.optional_number(node, path, "surcharge_cost_per_m3", non_negative("per m³"));
+    c.surcharge_removal_per_m3 = r.optional_number(node, path, "surcharge_removal_cost_per_m3", non_negative("per m³"));
+    c.per_hectare_per_day = r.optional_number(node, path, "cost_per_hectare_per_day", non_negative("per hectare per day"));
+    s.schedule = spec;
+}
+
 void read_method(const Reader& r, const YAML::Node& root, Scenario& s) {
     MethodChoice& m = s.site.method;
     if (root["method"]) m.method = r.choice(root["method"], "method", cell_method_names);
@@ -1022,6 +1065,15 @@ std::vector<std::string> plan_top_up(Scenario& s) {
                                            "the top-up follows); use 'with_last_lift'");
         start = std::max(start, h.surcharge->removal_s);
     }
+    if (e.top_up_start_s) {
+        // A planned day (schedule --out writes it): not before the day the rule gives.
+        if (*e.top_up_start_s < start * (1.0 - 1e-12))
+            s.fail_at("embankment.top_up_start_day",
+                      format_value(units::seconds_to_days(*e.top_up_start_s)) + " is not allowed: the top-up cannot start before day " +
+                          format_value(units::seconds_to_days(start)) + " (" +
+                          (e.top_up == TopUpRule::after_surcharge_removal ? "the surcharge's removal" : "the last lift's end") + ")");
+        start = *e.top_up_start_s;
+    }
     h.stages.push_back({start, start + rate_s_per_kPa * top_kPa, top_kPa});
     plan.stage = h.stages.size() - 1;
     s.top_up = plan;
@@ -1086,6 +1138,7 @@ Scenario read(const YAML::Node& root, const std::string& file) {
     auto top_up_warnings = plan_top_up(s);
     read_studies(r, root, s);
     read_uncertain(r, root, s);
+    read_schedule(r, root, s);
     for (auto& w : plausibility_warnings(s)) s.input_warnings.push_back(std::move(w));
     for (auto& w : top_up_warnings) s.input_warnings.push_back(std::move(w));
     return s;
@@ -1164,6 +1217,7 @@ Scenario parse_scenario(const std::string& text, const std::string& file_label) 
     try {
         Scenario s = read(root, file_label);
         s.sha256 = sha256_hex(text);
+        s.text = text;
         return s;
     } catch (const YAML::Exception& e) {  // structure yaml-cpp could not convert
         throw ScenarioError(file_label, {e.mark.line + 1, e.mark.column + 1}, "", e.msg);

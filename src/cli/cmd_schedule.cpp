@@ -1,0 +1,87 @@
+// wickgrid schedule FILE: the scheme search — every drain product × pattern × spacing × surcharge
+// height with its lift schedule planned stage by stage — and the cheapest, the soonest and the
+// cost–finish front of the schemes that stand and meet the criterion by the deadline.
+#include "commands.hpp"
+#include "report/schedule_report.hpp"
+#include "results/stage_record.hpp"
+#include "scenario/scheme_scenario.hpp"
+#include "wickgrid/schedule.hpp"
+
+namespace wickgrid::cli {
+
+namespace {
+struct ScheduleOptions {
+    std::vector<std::string> files;
+    bool json = false;
+    std::string out_dir;
+    unsigned threads = 0;
+    std::string choose = "cheapest";
+};
+
+// What the search needs beyond the stage checks, refused at its key before any work.
+ScheduleSpec schedule_spec(const scenario::Scenario& s, unsigned threads) {
+    if (const auto refusal = results::stage_check_refusal(s)) s.fail_at(refusal->first, refusal->second);
+    for (std::size_t i = 0; i < s.site.products.size(); ++i)
+        if (!s.site.products[i].cost_per_m)
+            s.fail_at("drains[" + std::to_string(i) + "]",
+                      "the scheme search ranks by cost: give 'cost_per_m' for drain '" + s.site.products[i].name + "'");
+    ScheduleSpec spec = s.schedule.value_or(ScheduleSpec{});
+    spec.threads = threads;
+    const std::size_t heights = std::max<std::size_t>(1, spec.surcharge_heights_m.size());
+    const std::size_t schemes =
+        s.site.products.size() * s.site.range.patterns.size() * heights * schedule_spacings(s.site.range).size();
+    if (schemes > defaults::max_schedule_schemes)
+        s.fail_at("spacing.increment_m",
+                  "the search would plan " + std::to_string(schemes) + " schemes (" + std::to_string(s.site.products.size()) +
+                      " drains × " + std::to_string(s.site.range.patterns.size()) + " patterns × " + std::to_string(heights) +
+                      " surcharge heights × " + std::to_string(schedule_spacings(s.site.range).size()) +
+                      " spacings); at most " + std::to_string(defaults::max_schedule_schemes) +
+                      ": a coarser increment, a narrower range, fewer heights or products");
+    return spec;
+}
+}  // namespace
+
+Runner add_schedule(CLI::App& app) {
+    auto* cmd = app.add_subcommand(
+        "schedule", "Search drain, pattern, spacing, surcharge and lift schedule together: cheapest, soonest, front");
+    auto o = std::make_shared<ScheduleOptions>();
+    cmd->add_option("FILE", o->files,
+                    "Scenario file with an 'embankment' block, 'loading.stages', an undrained strength in every layer "
+                    "and a cost_per_m on every drain; optional 'schedule:' block (surcharge heights, costs); several "
+                    "files, or - for standard input")
+        ->required();
+    cmd->add_flag("--json", o->json, "JSON on stdout");
+    cmd->add_option("--out", o->out_dir,
+                    "Folder for schedule.json, schedule-front.svg and chosen.yaml (the scenario of the chosen scheme: "
+                    "its drain, pattern, spacing, surcharge and planned days)");
+    cmd->add_option("--choose", o->choose, "The scheme --out writes as chosen.yaml: cheapest or soonest (default: cheapest)")
+        ->check(CLI::IsMember({"cheapest", "soonest"}));
+    cmd->add_option("--threads", o->threads, "Threads for the search (default: every hardware thread; results do not "
+                                             "depend on it)")
+        ->check(CLI::Range(1u, 256u));
+    cmd->footer("Exit codes: 0 a scheme stands at every stage and meets the criterion by the deadline; 1 none does "
+                "(outputs are still written); 2 bad input; 3 output failed; 5 cannot evaluate.");
+    return [o] {
+        return run_each(o->files, {o->json, false}, [&](const BatchItem& item) {
+            const auto s = load_scenario_warned(item.file);
+            const ScheduleSpec spec = schedule_spec(s, o->threads);
+            const ScheduleResult result = search_schedules(s.site, spec);
+            if (!o->out_dir.empty()) {
+                std::vector<std::pair<std::string, std::string>> files;
+                files.emplace_back("schedule.json", report::schedule_json(s, result).dump(2) + "\n");
+                if (result.cheapest) {
+                    const auto chart = report::schedule_chart(result);
+                    files.emplace_back(chart.file, chart.svg);
+                    const std::size_t chosen = o->choose == "soonest" ? *result.soonest : *result.cheapest;
+                    files.emplace_back("chosen.yaml", scenario::scheme_scenario_yaml(s, result.schemes[chosen]));
+                }
+                write_outputs(item.out_dir(o->out_dir), {item.file}, files, report::trace_fields(s));
+            }
+            if (o->json) item.print(report::schedule_json(s, result).dump(2) + "\n");
+            else item.print(report::schedule_table(s, result));
+            return static_cast<int>(result.cheapest ? ok : no_feasible_design);
+        });
+    };
+}
+
+}  // namespace wickgrid::cli

@@ -1,0 +1,22 @@
+#pragma once
+// Writers of the scheme search (schedule.hpp): JSON, the terminal table and the cost–finish chart.
+// Formatting only.
+#include <nlohmann/json.hpp>
+#include <string>
+
+#include "report/html_report.hpp"
+#include "scenario/scenario.hpp"
+#include "wickgrid/schedule.hpp"
+
+namespace wickgrid::report {
+
+// `schedule --json`: {"schemes": [...], "cheapest", "soonest", "cautions", ...} (README: schedule).
+nlohmann::json schedule_json(const scenario::Scenario& s, const ScheduleResult& result);
+// The front, the cheapest and the soonest scheme, and how many schemes each condition left out.
+std::string schedule_table(const scenario::Scenario& s, const ScheduleResult& result);
+// Cost per hectare against finish day: every feasible scheme, the front joined.
+Chart schedule_chart(const ScheduleResult& result);
+// What the search assumes, in words (JSON `assumptions`, the table's list).
+const std::vector<std::string>& schedule_assumptions();
+
+}  // namespace wickgrid::report
