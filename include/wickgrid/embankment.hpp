@@ -29,6 +29,19 @@ struct Berm {
 // surcharge's place on the section). Either way at the last lift's rate of placing.
 enum class TopUpRule { with_last_lift, after_surcharge_removal };
 
+// A geosynthetic laid at the base of the fill across the whole footprint (stability.hpp): its design
+// tensile force per metre run of embankment, the force the designer allows after creep, damage,
+// durability and pull-out (anchorage beyond the slip) have been taken off.
+struct BasalReinforcement {
+    double tensile_force_kN_per_m = 0.0;  // > 0
+};
+
+// A tension crack down from the fill surface at the upslope end of a slip (stability.hpp).
+struct TensionCrack {
+    double depth_m = 0.0;      // > 0, at most the fill height (checked against each stage's fill)
+    bool water_filled = false; // a crack full of water pushes the slip with its hydrostatic thrust
+};
+
 struct EmbankmentSection {
     double crest_width_m = 0.0;             // >= 0 (0: a pointed crest)
     double side_slope_h_per_v = 0.0;        // >= 0 (0: vertical sides)
@@ -47,12 +60,15 @@ struct EmbankmentSection {
     // same slopes.
     std::optional<double> height_m;
     std::vector<Berm> berms;  // outwards from the crest: heights falling, each above 0
+    std::optional<BasalReinforcement> reinforcement;
+    std::optional<TensionCrack> tension_crack;
 };
 
 // Throws InputError naming the field: a negative crest width or slope (steeper than vertical), a
 // section that does not close (no crest and vertical sides), a unit weight that is not positive, an
 // angle outside [0, 90), a negative cohesion, a target factor of safety below 1, a berm whose width
-// is not positive or whose height is not below the one before it (and above 0).
+// is not positive or whose height is not below the one before it (and above 0), a reinforcement
+// force or a crack depth that is not positive.
 void validate_section(const EmbankmentSection& section);
 
 // The right half of the fill at one moment: vertices from the centre line (0, h) out to the toe

@@ -65,6 +65,8 @@ void validate_section(const EmbankmentSection& s) {
     require_non_negative("embankment.fill_cohesion_kPa", s.fill_cohesion_kPa);
     if (!(s.target_factor_of_safety >= 1.0) || !std::isfinite(s.target_factor_of_safety))
         throw InputError("embankment.target_factor_of_safety", s.target_factor_of_safety, "at least 1");
+    if (s.reinforcement) require_positive("embankment.reinforcement.tensile_force_kN_per_m", s.reinforcement->tensile_force_kN_per_m);
+    if (s.tension_crack) require_positive("embankment.tension_crack.depth_m", s.tension_crack->depth_m);
     for (std::size_t i = 0; i < s.berms.size(); ++i) {
         const std::string at = "embankment.berms[" + std::to_string(i) + "]";
         require_positive(at + ".width_m", s.berms[i].width_m);
