@@ -5,6 +5,7 @@
 #include <boost/math/constants/constants.hpp>
 #include <cmath>
 #include <limits>
+#include <optional>
 
 #include "wickgrid/embankment.hpp"
 #include "wickgrid/errors.hpp"
@@ -210,6 +211,73 @@ TEST(Stability, SemicircleOnStripEdgeByHand) {
     EXPECT_NEAR(r->factor_of_safety, 2.0 * pi * su / q, 0.001 * 2.0 * pi * su / q);
     EXPECT_NEAR(r->entry_x_m, 4.0, 1e-6);
     EXPECT_NEAR(r->exit_x_m, 16.0, 1e-6);
+}
+
+// Basal reinforcement by hand (Jewell 1996: the design force T, horizontal at the base of the fill
+// where the slip cuts it, restores T·yc about the centre). A thin strip load q on φ = 0 clay and a
+// circle centred above the strip's edge at height yc: the clay's weight is symmetric about the centre,
+// so M_D = q·a²/2 with a = √(R² − yc²) (the loaded part), M_R = su·R·2R·acos(yc/R) (the arc in the
+// clay) + T·yc; F = M_R/M_D. T → 0 gives the unreinforced value.
+TEST(Stability, BasalReinforcementByHand) {
+    const double su = 15.0, q = 60.0, h = 0.001, R = 6.0, yc = 2.0;
+    EmbankmentSection strip = section_of(20.0, 0.0, q / h, 0.0, 0.0, 1.0);
+    const double a = std::sqrt(R * R - yc * yc);
+    const double m_d = q * a * a / 2.0, m_r = su * R * 2.0 * R * std::acos(yc / R);
+    const auto plain = bishop_factor_of_safety(uniform_clay(strip, h, 30.0, su, 17.0), {10.0, yc, R}, 400);
+    ASSERT_TRUE(plain.has_value());
+    EXPECT_NEAR(plain->factor_of_safety, m_r / m_d, 0.002 * m_r / m_d);
+    for (const double t : {1e-9, 50.0, 100.0, 400.0}) {
+        strip.reinforcement = BasalReinforcement{t};
+        const auto r = bishop_factor_of_safety(uniform_clay(strip, h, 30.0, su, 17.0), {10.0, yc, R}, 400);
+        ASSERT_TRUE(r.has_value());
+        EXPECT_NEAR(r->factor_of_safety, (m_r + t * yc) / m_d, 0.002 * (m_r + t * yc) / m_d) << "T = " << t;
+        // Against the code's own unreinforced value: exactly the added moment over the same M_D.
+        EXPECT_NEAR(r->factor_of_safety - plain->factor_of_safety, t * yc / m_d, 1e-3 * t * yc / m_d + 1e-9) << "T = " << t;
+    }
+}
+
+// A tension crack by hand: a 2 m block of cohesive fill (c = 10 kPa, φ = 0, γ = 20) with vertical
+// sides on φ = 0 clay, a circle centred above the block's edge at yc = 3 m. Angles from the vertical
+// below the centre: φh = acos((yc − h)/R) where the arc meets the fill surface, φc = acos((yc − h +
+// zc)/R) at the crack's bottom, φ0 = acos(yc/R) at the original ground. M_R = R·[su·2R·φ0 + c·R·(φh
+// − φ0)], less c·R·(φh − φc)·R for a crack of depth zc (no shear above its bottom). M_D is the fill's
+// weight moment about the centre (the clay's weight is symmetric), integrated here over the block; a
+// water-filled crack adds γw·zc²/2 × (yc − (h − zc) − zc/3). The slices resolve the crack's bottom to
+// about one slice, hence 1 %.
+TEST(Stability, TensionCrackByHand) {
+    const double su = 15.0, c = 10.0, gamma = 20.0, h = 2.0, R = 6.0, yc = 3.0, xc = 10.0, zc = 1.0;
+    EmbankmentSection block = section_of(20.0, 0.0, gamma, 0.0, c, 1.0);
+    const double phi_h = std::acos((yc - h) / R), phi_c = std::acos((yc - h + zc) / R), phi_0 = std::acos(yc / R);
+    const double m_r = R * (su * 2.0 * R * phi_0 + c * R * (phi_h - phi_0));
+    const double lost = R * c * R * (phi_h - phi_c);
+    // The fill's weight moment: x from where the arc meets the fill surface to the block's edge.
+    const double x_e = xc - R * std::sin(phi_h);
+    double m_d = 0.0;
+    const int n = 200000;
+    for (int i = 0; i < n; ++i) {
+        const double x = x_e + (xc - x_e) * (i + 0.5) / n;
+        const double arc = yc - std::sqrt(R * R - (x - xc) * (x - xc));
+        m_d += gamma * (h - std::max(arc, 0.0)) * (xc - x) * (xc - x_e) / n;
+    }
+    const auto model = [&](std::optional<TensionCrack> crack) {
+        block.tension_crack = crack;
+        return uniform_clay(block, h, 30.0, su, 17.0);
+    };
+    const auto plain = bishop_factor_of_safety(model(std::nullopt), {xc, yc, R}, 400);
+    const auto dry = bishop_factor_of_safety(model(TensionCrack{zc, false}), {xc, yc, R}, 400);
+    const auto wet = bishop_factor_of_safety(model(TensionCrack{zc, true}), {xc, yc, R}, 400);
+    ASSERT_TRUE(plain && dry && wet);
+    EXPECT_NEAR(plain->factor_of_safety, m_r / m_d, 0.01 * m_r / m_d);
+    EXPECT_NEAR(dry->factor_of_safety, (m_r - lost) / m_d, 0.01 * (m_r - lost) / m_d);
+    const double thrust = 0.5 * 9.81 * zc * zc * (yc - (h - zc) - zc / 3.0);
+    EXPECT_NEAR(wet->factor_of_safety, (m_r - lost) / (m_d + thrust), 0.01 * (m_r - lost) / (m_d + thrust));
+    EXPECT_LT(dry->factor_of_safety, plain->factor_of_safety);
+    EXPECT_LT(wet->factor_of_safety, dry->factor_of_safety);
+    // A crack deeper than the fill stops at the fill's base.
+    const auto deep = bishop_factor_of_safety(model(TensionCrack{5.0, false}), {xc, yc, R}, 400);
+    const auto full = bishop_factor_of_safety(model(TensionCrack{h, false}), {xc, yc, R}, 400);
+    ASSERT_TRUE(deep && full);
+    EXPECT_DOUBLE_EQ(deep->factor_of_safety, full->factor_of_safety);
 }
 
 // A dry cohesionless fill slope on a rigid base: the factor of safety tends to the infinite-slope

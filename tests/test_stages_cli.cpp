@@ -381,6 +381,18 @@ TEST(StagesCommand, BadInputIsNamedAndLocated) {
         {"fill_friction_angle_deg: 32.0", "fill_friction_angle_deg: 95.0", "embankment.fill_friction_angle_deg", "degrees"},
         {"fill_unit_weight_kN_per_m3: 19.0", "fill_unit_weight_kN_per_m3: 19.0\n  berm: 2", "embankment.berm",
          "unknown key"},
+        {"target_factor_of_safety: 1.3", "target_factor_of_safety: 1.3\n  reinforcement: {tensile_force_kN_per_m: -50}",
+         "embankment.reinforcement.tensile_force_kN_per_m", "-50 is not allowed"},
+        {"target_factor_of_safety: 1.3", "target_factor_of_safety: 1.3\n  reinforcement: {tensile_force_kN_per_m: 20000}",
+         "embankment.reinforcement.tensile_force_kN_per_m", "20000 is not allowed"},
+        {"target_factor_of_safety: 1.3", "target_factor_of_safety: 1.3\n  reinforcement: {strength: 200}",
+         "embankment.reinforcement.strength", "unknown key"},
+        {"target_factor_of_safety: 1.3", "target_factor_of_safety: 1.3\n  tension_crack: {depth_m: 7.5}",
+         "embankment.tension_crack.depth_m", "no deeper than the fill, 6 m"},
+        {"target_factor_of_safety: 1.3", "target_factor_of_safety: 1.3\n  tension_crack: {depth_m: 0}",
+         "embankment.tension_crack.depth_m", "0 is not allowed"},
+        {"target_factor_of_safety: 1.3", "target_factor_of_safety: 1.3\n  tension_crack: {depth_m: 1, water_filled: yes}",
+         "embankment.tension_crack.water_filled", "true or false"},
     };
     for (const auto& row : rows) {
         std::string text = edited_copy(staged, row.from, row.to);

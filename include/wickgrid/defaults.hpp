@@ -97,6 +97,9 @@ inline constexpr std::size_t max_drain_products = 200;
 // height × spacing (about a second of one core each on a four-lift section): at most
 // max_schedule_schemes schemes, so that a run stays within minutes.
 inline constexpr double max_surcharge_height_m = 20.0;
+// Basal reinforcement: the strongest basal geosynthetics have short-term strengths of one to two
+// thousand kN/m (from memory); a larger design force is a unit or typing error.
+inline constexpr double max_reinforcement_kN_per_m = 2000.0;
 inline constexpr std::size_t max_surcharge_heights = 20;
 inline constexpr std::size_t max_schedule_schemes = 1000;
 

@@ -7,8 +7,18 @@
 // (the top of the clay, m). Slips are sought on the side x > 0 (the section is symmetric). The clay
 // rests at depth clay_thickness_m on a firm base that no circle may cross. Assumptions, stated:
 // total stresses in the clay (no pore pressure term, the strength carries the drainage state),
-// dry fill (no pore pressure), no tension crack, no reinforcement; the settled shape is not
-// followed (the fill is drawn on the original ground at its placed height).
+// dry fill (no pore pressure); the settled shape is not followed (the fill is drawn on the original
+// ground at its placed height). Circular slips only: non-circular and three-dimensional failure
+// need a separate analysis.
+//
+// Two optional parts of the section (embankment.hpp) enter each circle's moment equilibrium:
+// - basal reinforcement: its design force T, horizontal at the base of the fill where the slip cuts
+//   it within the footprint, restores T·yc about the centre (yc the centre's height above the base
+//   of the fill; Jewell 1996), added to the resisting moment: F = (R·Σ[(c·b + W·tanφ)/mα] + T·yc) /
+//   (R·Σ W·sinα), iterated as Bishop's F;
+// - a tension crack of depth zc (at most the fill at the stage): the slip's upslope end, in the fill
+//   less than zc below its surface, carries no shear; filled with water, its thrust γw·zc²/2 pushes
+//   the slip outwards at a third of the crack's depth above its bottom, added to the driving moment.
 #include <functional>
 #include <optional>
 #include <vector>
@@ -47,7 +57,8 @@ struct CircleResult {
     double exit_x_m = 0.0;   // downslope (m)
 };
 
-// Bishop's simplified factor of safety of one circle: F = Σ[(c·b + W·tanφ)/mα]/Σ W·sinα with
+// Bishop's simplified factor of safety of one circle (with the reinforcement and crack terms above):
+// F = Σ[(c·b + W·tanφ)/mα]/Σ W·sinα with
 // mα = cosα + sinα·tanφ/F, iterated from Fellenius' value to 1e-7. nullopt for a circle that does not
 // cut the section, crosses the firm base, drives the wrong way (Σ W·sinα <= 0), or has a slice with
 // mα < 0.2 (where the method's normal forces become unreliable, Whitman & Bailey 1967, from memory).

@@ -7,6 +7,7 @@
 
 #include "wickgrid/errors.hpp"
 #include "wickgrid/stability.hpp"
+#include "wickgrid/units.hpp"
 
 namespace wickgrid {
 
@@ -71,7 +72,58 @@ double arc_y(const SlipCircle& c, double x) {
 struct Slice {
     double width_m, weight_kN, sin_a, cos_a, cohesion_kPa, tan_phi;
     double base_m;  // the arc's length under the slice (exact, so steep ends are not under-counted)
+    double x_m;     // the slice's middle
 };
+
+// The depth of the tension crack at this stage: the section's crack, no deeper than the fill.
+double crack_depth_m(const SlopeModel& m) {
+    if (!m.section.tension_crack) return 0.0;
+    return std::min(m.section.tension_crack->depth_m, m.profile.height_m());
+}
+
+// Where the crack stands: walking from the slip's upslope end, the first slice whose base is zc below
+// the fill surface or in the clay; the crack reaches down to the arc there, at most zc (less where
+// the fill is thinner). Returns {x, depth}; the slices before it carry no shear.
+struct CrackAt {
+    double x_m = 0.0, depth_m = 0.0;
+    std::size_t open_slices = 0;
+};
+CrackAt crack_at(const SlopeModel& m, const SlipCircle& c, const std::vector<Slice>& slices) {
+    const double zc = crack_depth_m(m);
+    CrackAt at;
+    if (zc <= 0.0) return at;
+    for (const Slice& s : slices) {
+        const double surface = fill_surface_m(m.profile, s.x_m);
+        const double depth = surface - std::max(arc_y(c, s.x_m), 0.0);
+        at.x_m = s.x_m;
+        at.depth_m = std::min(zc, depth);
+        if (depth >= zc || arc_y(c, s.x_m) < 0.0) break;
+        ++at.open_slices;
+    }
+    return at;
+}
+
+// The crack's water thrust about the centre (kN·m/m): P = γw·z²/2 for the crack's depth z at its
+// place, horizontal, pushing the slip outwards, at z/3 above the crack's bottom. 0 for a dry crack.
+double crack_thrust_moment(const SlopeModel& m, const SlipCircle& c, const CrackAt& at) {
+    if (at.depth_m <= 0.0 || !m.section.tension_crack->water_filled) return 0.0;
+    const double bottom_y = fill_surface_m(m.profile, at.x_m) - at.depth_m;
+    const double thrust = 0.5 * units::gamma_w_kN_per_m3 * at.depth_m * at.depth_m;
+    return thrust * (c.centre_y_m - (bottom_y + at.depth_m / 3.0));
+}
+
+// The basal reinforcement's restoring moment about the centre (kN·m/m): its design force T,
+// horizontal at the base of the fill (y = 0) where the slip cuts it within the footprint, with the
+// lever arm yc − 0 (Jewell 1996). Counted once per slip; 0 without reinforcement or a crossing.
+double reinforcement_moment(const SlopeModel& m, const SlipCircle& c, double entry_x_m, double exit_x_m) {
+    if (!m.section.reinforcement || !(c.centre_y_m > 0.0) || c.radius_m <= c.centre_y_m) return 0.0;
+    const double half = std::sqrt(c.radius_m * c.radius_m - c.centre_y_m * c.centre_y_m);
+    const double toe = m.profile.toe_m();
+    for (const double x : {c.centre_x_m - half, c.centre_x_m + half})
+        if (x >= entry_x_m && x <= exit_x_m && std::fabs(x) <= toe)
+            return m.section.reinforcement->tensile_force_kN_per_m * c.centre_y_m;
+    return 0.0;
+}
 }  // namespace
 
 void validate_slope_model(const SlopeModel& m) {
@@ -125,7 +177,7 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
             const double clay_kPa = yb < 0.0 ? clay_column_kPa(m.bands, -yb) : 0.0;
             const auto angle = [&](double x) { return std::asin(std::clamp((x - c.centre_x_m) / c.radius_m, -1.0, 1.0)); };
             Slice s{w, (fill_kPa + clay_kPa) * w, (c.centre_x_m - xm) / c.radius_m, (c.centre_y_m - yb) / c.radius_m, 0.0, 0.0,
-                    c.radius_m * (angle(x0 + (k + 1) * w) - angle(x0 + k * w))};
+                    c.radius_m * (angle(x0 + (k + 1) * w) - angle(x0 + k * w)), xm};
             if (yb >= 0.0) {
                 s.cohesion_kPa = m.section.fill_cohesion_kPa;
                 s.tan_phi = tan_fill;
@@ -143,17 +195,28 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
     // The lowest point of the arc, where it lies inside the slip, must stay above the base.
     if (c.centre_x_m > entry && c.centre_x_m < exit) deepest = std::min(deepest, c.centre_y_m - c.radius_m);
     if (deepest < base_y - 1e-9) return std::nullopt;
+    // A tension crack: the slip's upslope end, in the fill above the crack's bottom, carries no shear
+    // (the crack is open there); its weight still drives.
+    const CrackAt crack = crack_at(m, c, slices);
+    for (std::size_t i = 0; i < crack.open_slices; ++i) {
+        slices[i].cohesion_kPa = 0.0;
+        slices[i].tan_phi = 0.0;
+    }
+    // Moments about the centre, divided by R (forces): the weight drives; the crack's water thrust
+    // drives; the reinforcement's force resists.
     double driving = 0.0, fellenius = 0.0;
     for (const Slice& s : slices) {
         if (!(s.cos_a > 0.0)) return std::nullopt;  // an arc above its centre: not a slip surface
         driving += s.weight_kN * s.sin_a;
         fellenius += s.cohesion_kPa * s.base_m + s.weight_kN * s.cos_a * s.tan_phi;
     }
+    driving += crack_thrust_moment(m, c, crack) / c.radius_m;
+    const double reinforcement = reinforcement_moment(m, c, entry, exit) / c.radius_m;
     if (!(driving > 0.0)) return std::nullopt;
-    double f = fellenius / driving;
+    double f = (fellenius + reinforcement) / driving;
     for (int it = 0;; ++it) {
         if (it == max_bishop_iterations) return std::nullopt;
-        double resisting = 0.0;
+        double resisting = reinforcement;
         for (const Slice& s : slices) {
             if (s.tan_phi == 0.0) {
                 resisting += s.cohesion_kPa * s.base_m;

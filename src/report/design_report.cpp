@@ -287,6 +287,12 @@ void section_rows(const results::DesignRecord& record, std::vector<std::pair<std
     rows.emplace_back("fill strength", "φ′ = " + fixed(e.fill_friction_angle_deg, 1) + "°, c′ = " +
                                            fixed(e.fill_cohesion_kPa, 1) + " kPa, γ = " +
                                            fixed(e.fill_unit_weight_kN_per_m3, 1) + " kN/m³");
+    if (e.reinforcement)
+        rows.emplace_back("basal reinforcement", fixed(e.reinforcement->tensile_force_kN_per_m, 1) +
+                                                     " kN/m design tensile force at the base of the fill");
+    if (e.tension_crack)
+        rows.emplace_back("tension crack", fixed(e.tension_crack->depth_m, 2) + " m deep in the fill, " +
+                                               (e.tension_crack->water_filled ? "water-filled" : "dry"));
     rows.emplace_back("target factor of safety", fixed(e.target_factor_of_safety, 2) + " for every stage");
     const auto& plan = record.scenario->top_up;
     if (e.finished_height_m && plan) {

@@ -122,6 +122,11 @@ nlohmann::json stages_json(const scenario::Scenario& s, const results::StageReco
                                                 {"top_up_rule", std::string(name_of(top_up_names, r.top_up->rule))},
                                                 {"top_up_stage", r.top_up->stage ? json(*r.top_up->stage + 1) : json(nullptr)}}
                                          : json(nullptr)},
+             {"reinforcement_kN_per_m", r.section.reinforcement ? json(r.section.reinforcement->tensile_force_kN_per_m)
+                                                                : json(nullptr)},
+             {"tension_crack", r.section.tension_crack ? json{{"depth_m", r.section.tension_crack->depth_m},
+                                                              {"water_filled", r.section.tension_crack->water_filled}}
+                                                       : json(nullptr)},
              {"coordinates", "x across the section from its centre line, y up from the top of the clay (m)"},
              {"assumptions", r.assumptions},
              {"cautions", results::cautions()}};

@@ -386,6 +386,7 @@ std::vector<std::string> reference_keys(const DesignRecord& record) {
     if (secondary_per_cycle_m(site) && site.loading && site.loading->surcharge) add("bjerrum1967");
     if (record.stages) {
         for (const char* key : {"bishop1955", "ladd_foott1974", "whitman_bailey1967"}) add(key);
+        if (site.embankment->reinforcement) add("jewell1996");
         for (const auto& layer : site.ground.profile->layers)
             if (layer.strength && layer.strength->su_top_kPa) add("mesri1975");  // the default gain ratio
     }

@@ -3,6 +3,7 @@
 #include <algorithm>
 
 #include "wickgrid/cell_model.hpp"
+#include "wickgrid/errors.hpp"
 #include "wickgrid/units.hpp"
 
 namespace wickgrid::results {
@@ -82,9 +83,23 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
     std::sort(times.begin(), times.end());
     times.erase(std::unique(times.begin(), times.end()), times.end());
     r.history = safety_history(charted, product, pattern, spacing_m, times);
+    const EmbankmentSection& e = *site.embankment;
+    const std::string reinforcement =
+        e.reinforcement ? "basal reinforcement of design force " + format_value(e.reinforcement->tensile_force_kN_per_m) +
+                              " kN/m at the base of the fill, restoring T × the centre's height where the slip cuts it "
+                              "within the footprint (Jewell 1996; the force after every reduction factor and pull-out "
+                              "beyond the slip is the designer's)"
+                        : "no reinforcement";
+    const std::string crack =
+        e.tension_crack ? std::string(e.tension_crack->water_filled ? "a water-filled" : "a dry") + " tension crack " +
+                              format_value(e.tension_crack->depth_m) + " m deep (no deeper than the fill placed) at the "
+                              "slip's upslope end, carrying no shear" +
+                              (e.tension_crack->water_filled ? ", its water thrust driving the slip" : "")
+                        : "no tension crack";
     r.assumptions = {
-        "Circular slips by Bishop's simplified method; undrained (φ = 0) strength in the clay, c′–φ′ in the dry fill; no "
-        "tension crack, no reinforcement, the section drawn at its placed height on the original ground.",
+        "Circular slips by Bishop's simplified method; undrained (φ = 0) strength in the clay, c′–φ′ in the dry fill; " +
+            crack + "; " + reinforcement + "; the section drawn at its placed height on the original ground. Non-circular "
+            "and three-dimensional failure need a separate analysis.",
         "Strength gain from the consolidated share of the unit cell's load at each depth times the stress the section adds "
         "there; the drains are taken to treat the whole base out to the toes, with no gain beyond them.",
         "Each stage is checked when its placement is complete, the moment of least safety during construction (the load "

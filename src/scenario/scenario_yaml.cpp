@@ -157,6 +157,14 @@ public:
         return node.Scalar();
     }
 
+    // true or false (YAML's other spellings of a yes/no are refused: one way to write it).
+    bool flag(const YAML::Node& node, const std::string& path) const {
+        remember(path, node);
+        if (!node.IsScalar() || (node.Scalar() != "true" && node.Scalar() != "false"))
+            fail(node, path, "must be true or false");
+        return node.Scalar() == "true";
+    }
+
     // One of the names of a choice table; returns its value.
     template <class E, std::size_t N>
     E choice(const YAML::Node& node, const std::string& path, const std::array<Named<E>, N>& table) const {
@@ -802,7 +810,7 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
     r.expect_map(node, path);
     r.allow_keys(node, path, {"crest_width_m", "side_slope_h_per_v", "fill_unit_weight_kN_per_m3", "fill_friction_angle_deg",
                               "fill_cohesion_kPa", "target_factor_of_safety", "finished_height_m", "berms", "height_m",
-                              "top_up", "top_up_start_day"});
+                              "top_up", "top_up_start_day", "reinforcement", "tension_crack"});
     EmbankmentSection e;
     e.crest_width_m = r.number(node, path, "crest_width_m", non_negative("m"));
     e.side_slope_h_per_v = r.number(node, path, "side_slope_h_per_v",
@@ -825,6 +833,26 @@ void read_embankment(const Reader& r, const YAML::Node& root, Scenario& s) {
         if (!e.finished_height_m)
             r.fail(node["top_up_start_day"], path + ".top_up_start_day", "needs 'finished_height_m' (the top-up it starts)");
         e.top_up_start_s = units::days_to_seconds(*day);
+    }
+    if (const YAML::Node g = node["reinforcement"]) {
+        const std::string at = path + ".reinforcement";
+        r.remember(at, g);
+        r.expect_map(g, at);
+        r.allow_keys(g, at, {"tensile_force_kN_per_m"});
+        e.reinforcement = BasalReinforcement{
+            r.number(r.required(g, at, "tensile_force_kN_per_m"), at + ".tensile_force_kN_per_m",
+                     {0.0, false, defaults::max_reinforcement_kN_per_m, true,
+                      "kN/m (the design force per metre run, after every reduction factor)"})};
+    }
+    if (const YAML::Node t = node["tension_crack"]) {
+        const std::string at = path + ".tension_crack";
+        r.remember(at, t);
+        r.expect_map(t, at);
+        r.allow_keys(t, at, {"depth_m", "water_filled"});
+        TensionCrack crack;
+        crack.depth_m = r.number(r.required(t, at, "depth_m"), at + ".depth_m", positive("m"));
+        if (t["water_filled"]) crack.water_filled = r.flag(t["water_filled"], at + ".water_filled");
+        e.tension_crack = crack;
     }
     if (const YAML::Node berms = node["berms"]) {
         r.remember(path + ".berms", berms);
@@ -1011,6 +1039,10 @@ CellMethod default_method(const Site& site) {
 void check_embankment(const Scenario& s) {
     const auto height = final_fill_height_m(s.site);
     if (!height) return;
+    if (const auto& crack = s.site.embankment->tension_crack; crack && !(crack->depth_m <= *height))
+        s.fail_at("embankment.tension_crack.depth_m",
+                  format_value(crack->depth_m) + " m is not allowed: a crack in the fill is no deeper than the fill, " +
+                      format_value(*height) + " m (embankment.height_m, else the permanent stages' total)");
     const auto& berms = s.site.embankment->berms;
     for (std::size_t i = 0; i < berms.size(); ++i)
         if (!(berms[i].height_m < *height))
