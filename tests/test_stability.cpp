@@ -280,6 +280,33 @@ TEST(Stability, TensionCrackByHand) {
     EXPECT_DOUBLE_EQ(deep->factor_of_safety, full->factor_of_safety);
 }
 
+// The effective-stress form reduces to the total-stress one: with u = 0, φ′ = 0 and c′ = su every
+// slice resists c′·l as the φ = 0 clay does (Bishop 1955's terms), so the factor of safety of any
+// circle, and the critical one, are the same.
+TEST(Stability, EffectiveStressWithNoPorePressureAndCEqualSuIsTheTotalStressAnswer) {
+    EmbankmentSection fill = section_of(20.0, 2.0, 19.0, 30.0, 0.0, 1.3);
+    const SlopeModel total = uniform_clay(fill, 4.0, 12.0, 18.0, 16.0);
+    SlopeModel effective = total;
+    effective.effective = [](double, double) { return SlopeModel::ClayEffective{18.0, 0.0, 0.0}; };
+    const SlipCircle critical = critical_circle(total).circle;
+    const SlipCircle wider{critical.centre_x_m + 1.0, critical.centre_y_m + 1.0, critical.radius_m + 1.5};
+    for (const SlipCircle c : {critical, wider}) {
+        const auto a = bishop_factor_of_safety(total, c), b = bishop_factor_of_safety(effective, c);
+        ASSERT_TRUE(a && b);
+        EXPECT_DOUBLE_EQ(a->factor_of_safety, b->factor_of_safety);
+    }
+    EXPECT_DOUBLE_EQ(critical_circle(total).factor_of_safety, critical_circle(effective).factor_of_safety);
+    // Pore pressure only takes strength away: with φ′ > 0, more u, a lower factor of safety.
+    double last = std::numeric_limits<double>::infinity();
+    for (const double u : {0.0, 10.0, 30.0}) {
+        effective.effective = [u](double, double) { return SlopeModel::ClayEffective{2.0, std::tan(25.0 * pi / 180.0), u}; };
+        const auto r = bishop_factor_of_safety(effective, wider);
+        ASSERT_TRUE(r);
+        EXPECT_LT(r->factor_of_safety, last) << "u = " << u;
+        last = r->factor_of_safety;
+    }
+}
+
 // A dry cohesionless fill slope on a rigid base: the factor of safety tends to the infinite-slope
 // value tanφ/tanβ for shallow slips (statics of a block on a plane).
 TEST(Stability, DryCohesionlessSlopeTendsToInfiniteSlope) {

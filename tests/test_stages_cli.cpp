@@ -11,6 +11,7 @@
 #include "wickgrid/cell_model.hpp"
 #include "wickgrid/design.hpp"
 #include "wickgrid/errors.hpp"
+#include "wickgrid/stability.hpp"
 #include "wickgrid/stages.hpp"
 #include "wickgrid/units.hpp"
 
@@ -362,6 +363,54 @@ TEST(StagesCommand, TopUpAfterSurchargeRemovalFollowsTheRemoval) {
     }
 }
 
+// The effective-stress check beside the total-stress one: every stage reports both; with the cell
+// model's excess pore pressure the effective factor of safety rises as the clay consolidates under
+// the full fill; c′ and φ′ go together, in every layer or none.
+TEST(StagesCommand, EffectiveStressCheckRisesAsTheClayConsolidates) {
+    std::string text = slurp(source(staged));
+    for (const char* layer_end : {"su_gradient_kPa_per_m: -4.0}", "cr: 0.11, ocr: 1.5, su_ratio: 0.25}",
+                                  "cr: 0.09, ocr: 1.3, su_ratio: 0.25}"}) {
+        const auto at = text.find(layer_end);
+        ASSERT_NE(at, std::string::npos) << layer_end;
+        text.insert(at + std::string(layer_end).size() - 1, ", c_prime_kPa: 2.0, phi_prime_deg: 26.0");
+    }
+    const fs::path file = write_case(text);
+    const auto r = run("stages " + file.string() + " --json --drain band-100x4 --pattern triangular --spacing 1.2");
+    ASSERT_LE(r.exit_code, 1) << r.err;
+    const auto doc = nlohmann::json::parse(r.out);
+    for (const auto& st : doc["stages"]) {
+        EXPECT_TRUE(st["effective_factor_of_safety"].is_number()) << st.dump();
+        EXPECT_GT(st["effective_factor_of_safety"].get<double>(), 0.0);
+    }
+    const auto table = run("stages " + file.string() + " --drain band-100x4 --pattern triangular --spacing 1.2");
+    EXPECT_NE(table.out.find("effective-stress FS"), std::string::npos);
+    // Under the full schedule, later: less excess pore pressure, a higher effective factor of safety.
+    const auto s = scenario::parse_scenario(text, "e.yaml");
+    Site site = s.site;
+    site.embankment->height_m = final_fill_height_m(site);
+    const auto model = make_cell_model(site, site.product("band-100x4"), Pattern::triangular, 1.2);
+    double last = 0.0;
+    for (const double day : {165.0, 250.0, 400.0, 1000.0}) {
+        const SlopeModel m = stage_slope_model(site, *model, units::days_to_seconds(day), StrengthField::tabulated,
+                                               StressBasis::effective);
+        const double fs = critical_circle(m).factor_of_safety;
+        EXPECT_GT(fs, last) << "day " << day;
+        last = fs;
+    }
+    // Without c′ and φ′ the check is not made; in some layers only, refused at the layer without.
+    const auto plain = run("stages " + source(staged) + " --json --drain band-100x4 --pattern triangular --spacing 1.2");
+    EXPECT_TRUE(nlohmann::json::parse(plain.out)["stages"][0]["effective_factor_of_safety"].is_null());
+    const std::string partial = edited_copy(staged, "su_gradient_kPa_per_m: -4.0}",
+                                            "su_gradient_kPa_per_m: -4.0, c_prime_kPa: 2.0, phi_prime_deg: 26.0}");
+    try {
+        scenario::parse_scenario(partial, "p.yaml");
+        ADD_FAILURE() << "partial c′, φ′ accepted";
+    } catch (const scenario::ScenarioError& e) {
+        EXPECT_EQ(e.key_path(), "clay.layers[1]") << e.what();
+        EXPECT_NE(e.message().find("every layer"), std::string::npos) << e.what();
+    }
+}
+
 TEST(StagesCommand, BadInputIsNamedAndLocated) {
     struct Row {
         std::string from, to, key, message;
@@ -393,6 +442,10 @@ TEST(StagesCommand, BadInputIsNamedAndLocated) {
          "embankment.tension_crack.depth_m", "0 is not allowed"},
         {"target_factor_of_safety: 1.3", "target_factor_of_safety: 1.3\n  tension_crack: {depth_m: 1, water_filled: yes}",
          "embankment.tension_crack.water_filled", "true or false"},
+        {"su_gradient_kPa_per_m: -4.0}", "su_gradient_kPa_per_m: -4.0, c_prime_kPa: 2.0}", "clay.layers[0].c_prime_kPa",
+         "give both"},
+        {"su_gradient_kPa_per_m: -4.0}", "su_gradient_kPa_per_m: -4.0, c_prime_kPa: 2.0, phi_prime_deg: 75}",
+         "clay.layers[0].phi_prime_deg", "75 is not allowed"},
     };
     for (const auto& row : rows) {
         std::string text = edited_copy(staged, row.from, row.to);

@@ -26,6 +26,8 @@ struct SoilLayer {
     std::optional<double> c_alpha;
     // Undrained strength (stage stability); absent: the layer's strength is not given.
     std::optional<UndrainedStrength> strength;
+    // Drained strength (the effective-stress stage check); absent: that check is not made.
+    std::optional<EffectiveStrength> effective_strength;
 };
 
 struct SoilProfile {

@@ -48,6 +48,15 @@ struct SlopeModel {
     double clay_thickness_m = 0.0;         // > 0; firm base below
     std::vector<ClayBand> bands;           // cover 0 .. clay_thickness_m, in order
     std::function<double(double x_m, double depth_m)> su_kPa;
+    // Effective stress in the clay (optional): where given, the clay's slices take c′, φ′ and the
+    // pore pressure u (hydrostatic plus excess, kPa) at their base instead of su, and Bishop's
+    // resisting term is (c′·b + (W − u·b)·tanφ′)/mα (Bishop 1955).
+    struct ClayEffective {
+        double c_prime_kPa = 0.0;
+        double tan_phi_prime = 0.0;
+        double pore_pressure_kPa = 0.0;
+    };
+    std::function<ClayEffective(double x_m, double depth_m)> effective;
 };
 
 struct CircleResult {

@@ -25,6 +25,11 @@ struct StageCheck {
     double height_m = 0.0;          // fill height once placed (all stages so far)
     double factor_of_safety = 0.0;  // at end_s
     CircleResult critical;
+    // The effective-stress check at end_s (every layer with c′ and φ′): the clay's drained strength
+    // with the pore pressure of the cell model (stage_slope_model, StressBasis::effective); the
+    // schedule is planned on the total-stress check above, this one is reported beside it.
+    std::optional<double> effective_factor_of_safety;
+    std::optional<CircleResult> effective_critical;
     std::optional<double> settlement_m;  // at end_s, from the cell model
     // For the next stage: the earliest start (s) at which it meets the target once placed, with its
     // own duration; nullopt for the last stage or when no wait reaches the target.
@@ -86,7 +91,16 @@ FillToFinish fill_to_finish(const Site& site, double fill_unit_weight_kN_per_m3,
 // `exact` (the reference) integrates the stress at each call; a test holds them within 0.5 kPa of
 // su. Cost: tabulated, one grid (about 5000 stress integrals) then O(1) a call.
 enum class StrengthField { tabulated, exact };
+// The basis of the clay's strength: `total` (φ = 0 with the gained su, the check that plans the
+// schedule) or `effective` (every layer's c′ and φ′, with the pore pressure u = γw·(z − dw) above
+// hydrostatic plus the excess Δσv(x, z)·u_cell(z, t)/q(t) within the toes, the unit cell's
+// unconsolidated share of the section's stress, and Δσv(x, z) beyond them, where no drains are;
+// Δσv tabulated over offsets and depths as the gain is). Effective throws InputError naming the
+// first layer without c′ and φ′.
+enum class StressBasis { total, effective };
 SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s,
-                             StrengthField field = StrengthField::tabulated);
+                             StrengthField field = StrengthField::tabulated, StressBasis basis = StressBasis::total);
+// Whether every layer gives c′ and φ′ (so the effective-stress check is made).
+bool has_effective_strength(const Site& site);
 
 }  // namespace wickgrid

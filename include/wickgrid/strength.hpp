@@ -25,6 +25,13 @@ struct UndrainedStrength {
     double gain_ratio = defaults::su_gain_ratio;     // Δsu/Δσ'v of the profile form (the su_ratio when one is given)
 };
 
+// Drained (effective-stress) strength of a clay layer, for the effective-stress stage check
+// (stability.hpp): c′ (kPa, >= 0) and φ′ (degrees, 0 <= φ′ < 90).
+struct EffectiveStrength {
+    double c_prime_kPa = 0.0;
+    double phi_prime_deg = 0.0;
+};
+
 // su (kPa) at a point: depth_in_layer_m below the layer's top, with initial effective stress
 // sigma_v0_kPa, preconsolidation pressure sigma_p_kPa (>= σ'v0) and consolidated effective-stress
 // increase delta_sigma_kPa (>= 0; a negative value is treated as no gain, the clay keeps its

@@ -73,6 +73,7 @@ struct Slice {
     double width_m, weight_kN, sin_a, cos_a, cohesion_kPa, tan_phi;
     double base_m;  // the arc's length under the slice (exact, so steep ends are not under-counted)
     double x_m;     // the slice's middle
+    double pore_kN = 0.0;  // pore pressure × width at the base (effective stress in the clay)
 };
 
 // The depth of the tension crack at this stage: the section's crack, no deeper than the fill.
@@ -181,6 +182,11 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
             if (yb >= 0.0) {
                 s.cohesion_kPa = m.section.fill_cohesion_kPa;
                 s.tan_phi = tan_fill;
+            } else if (m.effective) {
+                const SlopeModel::ClayEffective e = m.effective(xm, -yb);
+                s.cohesion_kPa = e.c_prime_kPa;
+                s.tan_phi = e.tan_phi_prime;
+                s.pore_kN = e.pore_pressure_kPa * w;
             } else {
                 s.cohesion_kPa = m.su_kPa(xm, -yb);
             }
@@ -208,7 +214,7 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
     for (const Slice& s : slices) {
         if (!(s.cos_a > 0.0)) return std::nullopt;  // an arc above its centre: not a slip surface
         driving += s.weight_kN * s.sin_a;
-        fellenius += s.cohesion_kPa * s.base_m + s.weight_kN * s.cos_a * s.tan_phi;
+        fellenius += s.cohesion_kPa * s.base_m + std::max(0.0, s.weight_kN * s.cos_a - s.pore_kN / s.cos_a) * s.tan_phi;
     }
     driving += crack_thrust_moment(m, c, crack) / c.radius_m;
     const double reinforcement = reinforcement_moment(m, c, entry, exit) / c.radius_m;
@@ -224,7 +230,8 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
             }
             const double m_alpha = s.cos_a + s.sin_a * s.tan_phi / f;
             if (m_alpha < min_m_alpha) return std::nullopt;
-            resisting += (s.cohesion_kPa * s.width_m + s.weight_kN * s.tan_phi) / m_alpha;
+            // The effective weight on the base; a pore pressure above it (a slice lifted) carries no friction.
+            resisting += (s.cohesion_kPa * s.width_m + std::max(0.0, s.weight_kN - s.pore_kN) * s.tan_phi) / m_alpha;
         }
         const double next = resisting / driving;
         const bool done = std::fabs(next - f) <= 1e-7 * next;

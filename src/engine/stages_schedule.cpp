@@ -1,6 +1,9 @@
 // Stage checks and the earliest schedule; see stages.hpp for the model of the strength gained.
 #include <algorithm>
 #include <cmath>
+#include <functional>
+
+#include <boost/math/constants/constants.hpp>
 
 #include "wickgrid/errors.hpp"
 #include "wickgrid/stages.hpp"
@@ -67,16 +70,20 @@ struct StageState {
     double factor_of_safety;
     CircleResult critical;
     std::optional<double> settlement_m;
+    std::optional<CircleResult> effective;  // asked for: the effective-stress check
 };
 
 StageState state_at(const Site& base, const DrainProductSpec& product, Pattern pattern, double spacing_m,
-                    const LoadHistory& history, double time_s) {
+                    const LoadHistory& history, double time_s, bool effective = false) {
     Site site = base;
     site.loading = history;
     site.embankment->height_m = final_fill_height_m(base);  // the section being built, whatever is placed so far
     const auto model = make_cell_model(site, product, pattern, spacing_m);
     const CircleResult c = critical_circle(stage_slope_model(site, *model, time_s));
-    return {c.factor_of_safety, c, model->settlement_m(time_s)};
+    StageState st{c.factor_of_safety, c, model->settlement_m(time_s), std::nullopt};
+    if (effective)
+        st.effective = critical_circle(stage_slope_model(site, *model, time_s, StrengthField::tabulated, StressBasis::effective));
+    return st;
 }
 
 // The earliest start (>= from_s) at which `next`, placed after `before` with its own duration, meets
@@ -116,6 +123,7 @@ StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern
     out.target_factor_of_safety = section.target_factor_of_safety;
     out.planned = plan;
     std::vector<Placement> placed;
+    const bool effective = has_effective_strength(site);
     int permanent = 0;  // stages are numbered as the scenario's load stages (the surcharge apart)
     for (std::size_t i = 0; i < all.size(); ++i) {
         Placement p = all[i];
@@ -130,9 +138,10 @@ StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern
         placed.push_back(p);
         // The fill standing once it is placed (a surcharge removed before it no longer counts).
         const double height = history_of(placed).applied_at_kPa(p.end_s) / section.fill_unit_weight_kN_per_m3;
-        const StageState st = state_at(site, product, pattern, spacing_m, history_of(placed), p.end_s);
+        const StageState st = state_at(site, product, pattern, spacing_m, history_of(placed), p.end_s, effective);
         StageCheck check{p.surcharge ? permanent + 1 : permanent, p.surcharge, p.start_s, p.end_s, height, st.factor_of_safety,
-                         st.critical, st.settlement_m, std::nullopt, true};
+                         st.critical, st.effective ? std::optional<double>(st.effective->factor_of_safety) : std::nullopt,
+                         st.effective, st.settlement_m, std::nullopt, true};
         if (i + 1 < all.size()) {
             check.earliest_next_start_s = earliest_start(site, product, pattern, spacing_m, placed, all[i + 1],
                                                          next_from_s(p), section.target_factor_of_safety);
@@ -144,9 +153,64 @@ StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern
     return out;
 }
 
+
+// The effective-stress field of a stage (stages.hpp, StressBasis::effective): c′, tanφ′ of the
+// layer, and the pore pressure: hydrostatic below the groundwater table plus the excess, the
+// section's stress Δσv times the unconsolidated share 1 − share(z) within the toes (1 beyond).
+// Δσv is tabulated on offsets 0 .. toe + 3·(height + clay) and depths 0 .. clay (0 beyond).
+std::function<SlopeModel::ClayEffective(double, double)> effective_field(const Site& site, const SlopeModel& m,
+                                                                         const std::vector<double>& share, double dz) {
+    const SoilProfile& profile = *site.ground.profile;
+    for (std::size_t i = 0; i < profile.layers.size(); ++i)
+        if (!profile.layers[i].effective_strength)
+            throw InputError("clay.layers[" + std::to_string(i) + "].phi_prime_deg", 0.0,
+                             "given with c_prime_kPa in every layer for the effective-stress check");
+    const double gamma = site.embankment->fill_unit_weight_kN_per_m3, toe = m.profile.toe_m();
+    const double reach = toe + 3.0 * (m.profile.height_m() + m.clay_thickness_m);
+    const double hx = reach / (grid_offsets - 1), hz = m.clay_thickness_m / (grid_depths - 1);
+    std::vector<double> stress(static_cast<std::size_t>(grid_offsets * grid_depths));
+    for (int i = 0; i < grid_offsets; ++i)
+        for (int j = 0; j < grid_depths; ++j)
+            stress[static_cast<std::size_t>(i * grid_depths + j)] = embankment_stress_kPa(m.profile, gamma, i * hx, j * hz);
+    std::vector<std::pair<double, SlopeModel::ClayEffective>> layers;  // bottom depth, strength
+    double bottom = 0.0;
+    for (const SoilLayer& l : profile.layers)
+        layers.push_back({bottom += l.thickness_m,
+                          {l.effective_strength->c_prime_kPa,
+                           std::tan(l.effective_strength->phi_prime_deg * boost::math::double_constants::degree), 0.0}});
+    return [stress = std::move(stress), layers, share, dz, hx, hz, reach, toe, dw = profile.groundwater_depth_m](double x, double z) {
+        std::size_t k = 0;
+        while (k + 1 < layers.size() && z > layers[k].first) ++k;
+        SlopeModel::ClayEffective e = layers[k].second;
+        double added = 0.0;
+        if (std::fabs(x) < reach) {
+            const double px = std::fabs(x) / hx, pz = std::clamp(z / hz, 0.0, grid_depths - 1.0);
+            const int i = std::min(static_cast<int>(px), grid_offsets - 2), j = std::min(static_cast<int>(pz), grid_depths - 2);
+            const double tx = px - i, tz = pz - j;
+            const auto g = [&](int a, int b) { return stress[static_cast<std::size_t>(a * grid_depths + b)]; };
+            added = (1 - tx) * ((1 - tz) * g(i, j) + tz * g(i, j + 1)) + tx * ((1 - tz) * g(i + 1, j) + tz * g(i + 1, j + 1));
+        }
+        double unconsolidated = 1.0;
+        if (std::fabs(x) <= toe) {
+            const double pos = std::clamp(z / dz, 0.0, static_cast<double>(share.size() - 1));
+            const std::size_t s = std::min(static_cast<std::size_t>(pos), share.size() - 2);
+            unconsolidated = 1.0 - (share[s] + (share[s + 1] - share[s]) * (pos - static_cast<double>(s)));
+        }
+        e.pore_pressure_kPa = units::gamma_w_kN_per_m3 * std::max(0.0, z - dw) + added * std::max(0.0, unconsolidated);
+        return e;
+    };
+}
 }  // namespace
 
-SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s, StrengthField field) {
+bool has_effective_strength(const Site& site) {
+    if (!site.ground.profile) return false;
+    for (const SoilLayer& l : site.ground.profile->layers)
+        if (!l.effective_strength) return false;
+    return true;
+}
+
+SlopeModel stage_slope_model(const Site& site, const CellModel& model, double time_s, StrengthField field,
+                             StressBasis basis) {
     require_stage_inputs(site);
     const SoilProfile& profile = *site.ground.profile;
     const EmbankmentSection& section = *site.embankment;
@@ -196,6 +260,7 @@ SlopeModel stage_slope_model(const Site& site, const CellModel& model, double ti
             return (1 - tx) * ((1 - tz) * g(i, j) + tz * g(i, j + 1)) + tx * ((1 - tz) * g(i + 1, j) + tz * g(i + 1, j + 1));
         };
     }
+    if (basis == StressBasis::effective) m.effective = effective_field(site, m, share, dz);
     m.su_kPa = [profile, toe, gain_at, bands = m.bands](double x, double z) {
         std::size_t layer = 0;
         while (layer + 1 < bands.size() && z > bands[layer].bottom_m) ++layer;

@@ -389,7 +389,7 @@ std::string markdown_sections(const results::DesignRecord& record, const std::ve
     }
     if (const auto& st = record.stages) {
         o << "## Stage stability\n\n" << markdown_text(stage_summary(*st)) << "\n\n"
-          << markdown_table(stage_header(), stage_rows(*st)) << "\n";
+          << markdown_table(stage_header(*st), stage_rows(*st)) << "\n";
         for (const auto& a : st->assumptions) o << "- " << markdown_text(a) << "\n";
         o << "\n";
     }
@@ -462,7 +462,7 @@ ReportBundle build_report(const results::DesignRecord& record) {
     }
     if (const auto& st = record.stages) {
         o << "<section id=\"stages\"><h2>Stage stability</h2>\n<p>" << escape_xml(stage_summary(*st)) << "</p>\n"
-          << html_table("stages", stage_header(), stage_rows(*st)) << "<ul>\n";
+          << html_table("stages", stage_header(*st), stage_rows(*st)) << "<ul>\n";
         for (const auto& a : st->assumptions) o << "<li>" << escape_xml(a) << "</li>\n";
         o << "</ul>\n</section>\n";
     }

@@ -22,9 +22,18 @@ std::string stage_name(const StageCheck& c) { return c.surcharge ? "surcharge" :
 std::string num(double v) { return fixed(v, 1); }
 }  // namespace
 
-std::vector<std::string> stage_header() {
-    return {"stage", "start (day)", "end (day)", "fill height (m)", "settlement (mm)", "factor of safety",
-            "next may start (day)"};
+namespace {
+bool has_effective(const results::StageRecord& record) {
+    return std::any_of(record.plan.stages.begin(), record.plan.stages.end(),
+                       [](const StageCheck& c) { return c.effective_factor_of_safety.has_value(); });
+}
+}  // namespace
+
+std::vector<std::string> stage_header(const results::StageRecord& record) {
+    std::vector<std::string> h{"stage", "start (day)", "end (day)", "fill height (m)", "settlement (mm)", "factor of safety"};
+    if (has_effective(record)) h.push_back("effective-stress FS");
+    h.push_back("next may start (day)");
+    return h;
 }
 
 std::vector<std::vector<std::string>> stage_rows(const results::StageRecord& record) {
@@ -36,8 +45,16 @@ std::vector<std::vector<std::string>> stage_rows(const results::StageRecord& rec
                                                            : "–";
         std::string fs = fixed(c.factor_of_safety, 2);
         if (c.factor_of_safety < record.plan.target_factor_of_safety) fs += " (below target)";
-        rows.push_back({stage_name(c), day_text(c.start_s), day_text(c.end_s), fixed(c.height_m, 2),
-                        c.settlement_m ? fixed(*c.settlement_m * 1000.0, 0) : "–", fs, next});
+        std::vector<std::string> row{stage_name(c), day_text(c.start_s), day_text(c.end_s), fixed(c.height_m, 2),
+                                     c.settlement_m ? fixed(*c.settlement_m * 1000.0, 0) : "–", fs};
+        if (has_effective(record))
+            row.push_back(c.effective_factor_of_safety ? fixed(*c.effective_factor_of_safety, 2) +
+                                                             (*c.effective_factor_of_safety < record.plan.target_factor_of_safety
+                                                                  ? " (below target)"
+                                                                  : "")
+                                                       : "–");
+        row.push_back(next);
+        rows.push_back(std::move(row));
     }
     return rows;
 }
@@ -86,6 +103,8 @@ nlohmann::json stages_json(const scenario::Scenario& s, const results::StageReco
                           {"height_m", c.height_m},
                           {"settlement_mm", c.settlement_m ? json(*c.settlement_m * 1000.0) : json(nullptr)},
                           {"factor_of_safety", c.factor_of_safety},
+                          {"effective_factor_of_safety",
+                           c.effective_factor_of_safety ? json(*c.effective_factor_of_safety) : json(nullptr)},
                           {"meets_target", c.factor_of_safety >= r.plan.target_factor_of_safety},
                           {"earliest_next_start_day",
                            c.earliest_next_start_s ? json(units::seconds_to_days(*c.earliest_next_start_s)) : json(nullptr)},
@@ -167,7 +186,7 @@ std::string stages_table(const scenario::Scenario& s, const results::StageRecord
       << fixed(r.spacing_m, 2) << " m (" << to_string(r.method) << "); target factor of safety "
       << fixed(r.plan.target_factor_of_safety, 2) << (r.plan.planned ? "; schedule planned to the earliest days" : "")
       << "\n\n"
-      << text_table(stage_header(), stage_rows(r), 1) << "\n";
+      << text_table(stage_header(r), stage_rows(r), 1) << "\n";
     for (const StageCheck& c : r.plan.stages)
         o << stage_name(c) << ": critical circle centre (" << fixed(c.critical.circle.centre_x_m, 2) << ", "
           << fixed(c.critical.circle.centre_y_m, 2) << ") m, radius " << fixed(c.critical.circle.radius_m, 2)

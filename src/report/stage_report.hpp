@@ -25,7 +25,7 @@ std::vector<Chart> stage_charts(const results::StageRecord& record);
 std::string stage_summary(const results::StageRecord& record);
 
 // The stage table (header and rows) shared by the Markdown note and the HTML report.
-std::vector<std::string> stage_header();
+std::vector<std::string> stage_header(const results::StageRecord& record);
 std::vector<std::vector<std::string>> stage_rows(const results::StageRecord& record);
 
 }  // namespace wickgrid::report

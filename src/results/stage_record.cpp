@@ -105,6 +105,12 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
         "Each stage is checked when its placement is complete, the moment of least safety during construction (the load "
         "added undrained).",
     };
+    if (has_effective_strength(site))
+        r.assumptions.push_back(
+            "Effective-stress check beside it: each layer's c′ and φ′ with the pore pressure at the slip's base, hydrostatic "
+            "below the groundwater table plus the excess: the section's vertical stress times the unit cell's unconsolidated "
+            "share at that depth within the toes, the whole of it beyond them (no drains there). The schedule is planned on "
+            "the total-stress check.");
     return r;
 }
 

@@ -278,7 +278,7 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
         r.allow_keys(l, path, {"thickness_m", "unit_weight_kN_per_m3", "e0", "cc", "cr", "preconsolidation_kPa", "ocr", "pop_kPa",
                                "mv_m2_per_kN", "cv_m2_per_year", "ch_m2_per_year", "su_top_kPa",
                                "su_gradient_kPa_per_m", "su_ratio", "strength_exponent", "su_gain_ratio", "c_alpha",
-                               "c_alpha_over_cc"});
+                               "c_alpha_over_cc", "c_prime_kPa", "phi_prime_deg"});
         SoilLayer layer;
         if (const auto cv = r.optional_number(l, path, "cv_m2_per_year", positive("m²/year")))
             layer.cv_m2_per_s = units::per_year_to_per_second(*cv);
@@ -312,6 +312,13 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
             layer.pop_kPa = r.optional_number(l, path, "pop_kPa", {0.0, true, 1000.0, true, "kPa (σ'p − σ'v0; 0 to 1000)"});
         }
         layer.strength = read_strength(r, l, path, layer.thickness_m);
+        // Drained strength (the effective-stress stage check): both keys or neither.
+        if (l["c_prime_kPa"] || l["phi_prime_deg"]) {
+            if (!l["phi_prime_deg"]) r.fail(l["c_prime_kPa"], path + ".c_prime_kPa", "goes with 'phi_prime_deg' (give both)");
+            if (!l["c_prime_kPa"]) r.fail(l["phi_prime_deg"], path + ".phi_prime_deg", "goes with 'c_prime_kPa' (give both)");
+            layer.effective_strength = EffectiveStrength{r.number(l, path, "c_prime_kPa", non_negative("kPa")),
+                                                         r.number(l, path, "phi_prime_deg", {0.0, true, 60.0, false, "degrees (below 60)"})};
+        }
         if (l["c_alpha"] && l["c_alpha_over_cc"])
             r.fail(l["c_alpha_over_cc"], path + ".c_alpha_over_cc", "give either 'c_alpha' or 'c_alpha_over_cc', not both");
         for (const char* key : {"c_alpha", "c_alpha_over_cc"})
@@ -340,6 +347,15 @@ void read_layers(const Reader& r, const YAML::Node& clay, Scenario& s) {
                            " kPa at " + format_value(all[k].depth_m) + " m; under-consolidated clay is not supported");
             }
     s.site.ground.profile = profile;
+    // The effective-stress check takes every layer or none.
+    std::size_t given = 0;
+    for (const SoilLayer& l : profile.layers) given += l.effective_strength ? 1 : 0;
+    if (given > 0 && given < profile.layers.size())
+        for (std::size_t i = 0; i < profile.layers.size(); ++i)
+            if (!profile.layers[i].effective_strength)
+                r.fail(node[i], "clay.layers[" + std::to_string(i) + "]",
+                       "has no 'c_prime_kPa' and 'phi_prime_deg' while other layers do: the effective-stress stage check "
+                       "needs them in every layer (or in none)");
 }
 
 void read_clay(const Reader& r, const YAML::Node& root, Scenario& s) {
