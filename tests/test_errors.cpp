@@ -4,12 +4,14 @@
 #include <cmath>
 #include <functional>
 #include <limits>
+#include <vector>
 
 #include "cell_fixture.hpp"
 #include "wickgrid/combine.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/radial.hpp"
 #include "wickgrid/search.hpp"
+#include "wickgrid/stages.hpp"
 #include "wickgrid/vertical.hpp"
 
 using namespace wickgrid;
@@ -101,5 +103,24 @@ TEST(NamedFailures, MessageShowsValueAndRange) {
         EXPECT_NE(text.find("= 6 "), std::string::npos) << text;
         EXPECT_NE(text.find("smaller than n = De/dw = 5"), std::string::npos) << text;
         EXPECT_EQ(e.value(), 6.0);
+    }
+}
+
+// A missing input names no value (none was given): "embankment is not given", never "= 0".
+TEST(NamedFailures, MissingInputsShowNoInventedValue) {
+    const Site site = fixtures::typical_design();
+    const auto product = site.products.front();
+    for (const std::function<void()>& call : std::vector<std::function<void()>>{
+             [&] { (void)check_stages(site, product, Pattern::triangular, 1.5); },
+             [&] { (void)site.product("no-such-drain"); }}) {
+        try {
+            call();
+            ADD_FAILURE() << "accepted";
+        } catch (const InputError& e) {
+            const std::string text = e.what();
+            EXPECT_FALSE(e.has_value()) << text;
+            EXPECT_NE(text.find("is not given: it must be"), std::string::npos) << text;
+            EXPECT_EQ(text.find("= 0"), std::string::npos) << text;
+        }
     }
 }

@@ -10,6 +10,7 @@
 #include <string_view>
 #include <vector>
 
+#include "wickgrid/errors.hpp"
 #include "wickgrid/secondary.hpp"
 #include "wickgrid/site.hpp"
 
@@ -131,8 +132,9 @@ struct MethodRefusal {
     enum class Part { drain_length, layer_coefficients, clay_coefficients, vacuum };
     Part part;
     std::string quantity;
-    double value;
+    std::optional<double> value;  // none: the input is missing, not a wrong number
     std::string allowed;
+    InputError error() const { return value ? InputError(quantity, *value, allowed) : InputError(quantity, allowed); }
 };
 std::optional<MethodRefusal> method_refusal(const Site& site);
 

@@ -10,14 +10,18 @@ namespace wickgrid {
 class InputError : public std::invalid_argument {
 public:
     InputError(std::string quantity, double value, std::string allowed);
+    // An input that is missing (or not a number at all): the message names no value.
+    InputError(std::string quantity, std::string allowed);
 
     const std::string& quantity() const noexcept { return quantity_; }
-    double value() const noexcept { return value_; }
+    bool has_value() const noexcept { return has_value_; }
+    double value() const noexcept { return value_; }  // meaningful only when has_value()
     const std::string& allowed() const noexcept { return allowed_; }
 
 private:
     std::string quantity_;
     double value_;
+    bool has_value_ = true;
     std::string allowed_;
 };
 

@@ -152,7 +152,7 @@ const MethodRow& row_of(CellMethod method) {
 std::unique_ptr<CellModel> make_cell_model(const Site& site, const DrainProductSpec& product, Pattern pattern,
                                            double spacing_m) {
     const MethodRow& row = row_of(site.method.method);
-    if (auto why = row.refusal(site)) throw InputError(why->quantity, why->value, why->allowed);
+    if (auto why = row.refusal(site)) throw why->error();
     return row.build(site, product, pattern, spacing_m);
 }
 

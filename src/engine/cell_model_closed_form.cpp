@@ -133,14 +133,14 @@ private:
 std::optional<MethodRefusal> closed_form_refusal(const Site& site) {
     using Part = MethodRefusal::Part;
     if (site.ground.layered_flow())
-        return MethodRefusal{Part::layer_coefficients, "layer cv/ch", 0.0,
+        return MethodRefusal{Part::layer_coefficients, "layer cv/ch", std::nullopt,
                              "given with 'method: layered_series' or 'method: numerical' only (the closed form takes one "
                              "cv and ch for the clay)"};
     if (site.loading && site.loading->vacuum)
         return MethodRefusal{Part::vacuum, "vacuum pressure (kPa)", site.loading->vacuum->pressure_kPa,
                              "used with 'method: layered_series' or 'method: numerical' (the closed form takes no vacuum)"};
     if (!site.ground.cv_m2_per_s || !site.ground.ch_m2_per_s)
-        return MethodRefusal{Part::clay_coefficients, "clay cv and ch", 0.0,
+        return MethodRefusal{Part::clay_coefficients, "clay cv and ch", std::nullopt,
                              "given for the clay as one layer with the closed form"};
     const double h = site.ground.thickness_m, l = site.installation.drain_length_m;
     if (std::fabs(l - h) > 1e-9 * h)

@@ -85,7 +85,7 @@ std::optional<double> final_settlement(const Site& site, const std::function<dou
 }  // namespace
 
 std::function<double(double)> layered_margin_function(const Site& site, const DrainProductSpec& product, Pattern pattern) {
-    if (auto why = layered_refusal(site)) throw InputError(why->quantity, why->value, why->allowed);
+    if (auto why = layered_refusal(site)) throw why->error();
     // Only the influence diameter changes with spacing.
     const NumericalCellSpec base = numerical_cell_spec(site, product, pattern, site.range.bounds.min_m);
     const auto ultimate = ultimate_settlement_function(site);

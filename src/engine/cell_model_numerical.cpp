@@ -131,11 +131,11 @@ std::optional<MethodRefusal> numerical_refusal(const Site& site) {
             const SoilLayer& layer = g.profile->layers[i];
             if ((!layer.cv_m2_per_s && !g.cv_m2_per_s) || (!layer.ch_m2_per_s && !g.ch_m2_per_s))
                 return MethodRefusal{MethodRefusal::Part::layer_coefficients,
-                                     "clay layer " + std::to_string(i + 1) + " cv/ch", static_cast<double>(i + 1),
+                                     "clay layer " + std::to_string(i + 1) + " cv/ch", std::nullopt,
                                      "given for the layer (cv_m2_per_year, ch_m2_per_year) or for the clay"};
         }
     else if (!g.cv_m2_per_s || !g.ch_m2_per_s)
-        return MethodRefusal{MethodRefusal::Part::clay_coefficients, "clay cv and ch", 0.0, "given for the clay"};
+        return MethodRefusal{MethodRefusal::Part::clay_coefficients, "clay cv and ch", std::nullopt, "given for the clay"};
     return std::nullopt;
 }
 

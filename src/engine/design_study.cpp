@@ -79,7 +79,7 @@ DesignRow design_row(const Site& site, const DrainProductSpec& product, Pattern 
 
 DesignResult run_design(const Site& site) {
     validate_site(site);
-    if (const auto why = method_refusal(site)) throw InputError(why->quantity, why->value, why->allowed);
+    if (const auto why = method_refusal(site)) throw why->error();
     DesignResult result;
     for (const auto& product : site.products)
         for (const Pattern pattern : site.range.patterns) result.rows.push_back(design_row(site, product, pattern));

@@ -18,6 +18,13 @@ InputError::InputError(std::string quantity, double value, std::string allowed)
       value_(value),
       allowed_(std::move(allowed)) {}
 
+InputError::InputError(std::string quantity, std::string allowed)
+    : std::invalid_argument(quantity + " is not given: it must be " + allowed),
+      quantity_(std::move(quantity)),
+      value_(0.0),
+      has_value_(false),
+      allowed_(std::move(allowed)) {}
+
 EvaluationError::EvaluationError(std::string what_failed, std::string reason)
     : std::runtime_error(what_failed + ": " + reason), what_failed_(std::move(what_failed)), reason_(std::move(reason)) {}
 

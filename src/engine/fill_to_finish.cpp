@@ -13,7 +13,7 @@ FillToFinish fill_to_finish(const Site& site, double gamma, double finished_m) {
     require_positive("fill unit weight (kN/m³)", gamma);
     require_positive("embankment.finished_height_m", finished_m);
     if (!site.ground.profile && !site.ground.mv_m2_per_kN)
-        throw InputError("clay.layers", 0.0, "given, or clay.mv_m2_per_kN (fill to a finished level needs a settlement model)");
+        throw InputError("clay.layers", "given, or clay.mv_m2_per_kN (fill to a finished level needs a settlement model)");
     if (gamma <= units::gamma_w_kN_per_m3)
         throw InputError("fill unit weight (kN/m³)", gamma, "greater than the unit weight of water, 9.81 kN/m³");
     const double dw = site.ground.profile ? site.ground.profile->groundwater_depth_m : 0.0;

@@ -25,7 +25,7 @@ void validate_profile(const SoilProfile& profile) {
             continue;
         }
         if (!l.e0 || !l.cc || !l.cr)
-            throw InputError("layer compressibility", 0.0, "e0, cc and cr (with preconsolidation_kPa or ocr), or mv_m2_per_kN");
+            throw InputError("layer compressibility", "e0, cc and cr (with preconsolidation_kPa or ocr), or mv_m2_per_kN");
         require_positive("layer e0", *l.e0);
         require_positive("layer cc", *l.cc);
         require_non_negative("layer cr", *l.cr);

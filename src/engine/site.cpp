@@ -11,18 +11,18 @@
 namespace wickgrid {
 
 Clay Ground::uniform_clay() const {
-    if (!cv_m2_per_s) throw InputError("clay cv (m²/s)", 0.0, "given for the clay as one layer (clay.cv_m2_per_year)");
-    if (!ch_m2_per_s) throw InputError("clay ch (m²/s)", 0.0, "given for the clay as one layer (clay.ch_m2_per_year)");
+    if (!cv_m2_per_s) throw InputError("clay cv (m²/s)", "given for the clay as one layer (clay.cv_m2_per_year)");
+    if (!ch_m2_per_s) throw InputError("clay ch (m²/s)", "given for the clay as one layer (clay.ch_m2_per_year)");
     Clay clay;
     clay.thickness_m = thickness_m;
     clay.cv_m2_per_s = *cv_m2_per_s;
     clay.ch_m2_per_s = *ch_m2_per_s;
     clay.drainage = drainage;
     if (kh_source == KhSource::from_ch_and_mv) {
-        if (!mv_m2_per_kN) throw InputError("clay mv (m²/kN)", 0.0, "given when kh is derived from ch·mv·γw");
+        if (!mv_m2_per_kN) throw InputError("clay mv (m²/kN)", "given when kh is derived from ch·mv·γw");
         clay.kh_m_per_s = permeability_from_consolidation_m_per_s(*ch_m2_per_s, *mv_m2_per_kN);
     } else {
-        if (!kh_m_per_s) throw InputError("clay kh (m/s)", 0.0, "given for the clay as one layer (clay.kh_m_per_s)");
+        if (!kh_m_per_s) throw InputError("clay kh (m/s)", "given for the clay as one layer (clay.kh_m_per_s)");
         clay.kh_m_per_s = *kh_m_per_s;
     }
     return clay;
@@ -36,7 +36,7 @@ bool Ground::layered_flow() const {
 
 const DrainProductSpec& Site::product(const std::string& name) const {
     const auto it = std::find_if(products.begin(), products.end(), [&](const DrainProductSpec& p) { return p.name == name; });
-    if (it == products.end()) throw InputError("drain product '" + name + "'", 0.0, "one of the design's products");
+    if (it == products.end()) throw InputError("drain product '" + name + "'", "one of the design's products");
     return *it;
 }
 
@@ -110,7 +110,7 @@ std::vector<SettlementSlice> settlement_slices(const Site& site, double q) {
                                slice_settlement_m(profile->layers[l], all[k], loads[k])});
         return out;
     }
-    if (!site.ground.mv_m2_per_kN) throw InputError("clay.mv_m2_per_kN", 0.0, "given, or clay.layers (a settlement model)");
+    if (!site.ground.mv_m2_per_kN) throw InputError("clay.mv_m2_per_kN", "given, or clay.layers (a settlement model)");
     const double mv = *site.ground.mv_m2_per_kN, h = site.ground.thickness_m / defaults::slices_per_layer;
     std::vector<double> depths;
     for (int i = 0; i < defaults::slices_per_layer; ++i) depths.push_back((i + 0.5) * h);
@@ -178,8 +178,8 @@ NumericalCellSpec numerical_cell_spec(const Site& site, const DrainProductSpec& 
             const auto cv = layer.cv_m2_per_s ? layer.cv_m2_per_s : g.cv_m2_per_s;
             const auto ch = layer.ch_m2_per_s ? layer.ch_m2_per_s : g.ch_m2_per_s;
             const std::string which = "clay layer " + std::to_string(i + 1);
-            if (!cv) throw InputError(which + " cv (m²/s)", 0.0, "given for the layer or for the clay");
-            if (!ch) throw InputError(which + " ch (m²/s)", 0.0, "given for the layer or for the clay");
+            if (!cv) throw InputError(which + " cv (m²/s)", "given for the layer or for the clay");
+            if (!ch) throw InputError(which + " ch (m²/s)", "given for the layer or for the clay");
             n.layers.push_back({layer.thickness_m, *cv, *ch, secant_mv_m2_per_kN(*g.profile, i, q)});
         }
     } else {

@@ -146,7 +146,7 @@ void validate_slope_model(const SlopeModel& m) {
     }
     if (std::fabs(top - m.clay_thickness_m) > 1e-9 * std::max(1.0, m.clay_thickness_m))
         throw InputError("clay bands' base (m)", top, "equal to the clay thickness " + format_value(m.clay_thickness_m) + " m");
-    if (!m.su_kPa) throw InputError("undrained strength", 0.0, "a strength function of offset and depth");
+    if (!m.su_kPa) throw InputError("undrained strength", "a strength function of offset and depth");
 }
 
 std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const SlipCircle& c, int slice_count) {

@@ -51,17 +51,17 @@ LoadHistory history_of(const std::vector<Placement>& placed) {
 }
 
 void require_stage_inputs(const Site& site) {
-    if (!site.embankment) throw InputError("embankment", 0.0, "a cross-section block for stage checks");
+    if (!site.embankment) throw InputError("embankment", "a cross-section block for stage checks");
     validate_section(*site.embankment);
     if (!site.loading || site.loading->stages.empty())
-        throw InputError("loading.stages", 0.0, "at least one stage for stage checks");
+        throw InputError("loading.stages", "at least one stage for stage checks");
     if (site.loading->vacuum)
         throw InputError("loading.vacuum.pressure_kPa", site.loading->vacuum->pressure_kPa,
                          "absent for stage checks (strength gain under vacuum is not modelled)");
-    if (!site.ground.profile) throw InputError("clay.layers", 0.0, "given, each layer with su_top_kPa or su_ratio");
+    if (!site.ground.profile) throw InputError("clay.layers", "given, each layer with su_top_kPa or su_ratio");
     for (std::size_t i = 0; i < site.ground.profile->layers.size(); ++i) {
         const auto& strength = site.ground.profile->layers[i].strength;
-        if (!strength) throw InputError("clay.layers[" + std::to_string(i) + "].su_top_kPa", 0.0, "given (or su_ratio)");
+        if (!strength) throw InputError("clay.layers[" + std::to_string(i) + "].su_top_kPa", "given (or su_ratio)");
         validate_strength(*strength);
     }
 }
@@ -163,8 +163,7 @@ std::function<SlopeModel::ClayEffective(double, double)> effective_field(const S
     const SoilProfile& profile = *site.ground.profile;
     for (std::size_t i = 0; i < profile.layers.size(); ++i)
         if (!profile.layers[i].effective_strength)
-            throw InputError("clay.layers[" + std::to_string(i) + "].phi_prime_deg", 0.0,
-                             "given with c_prime_kPa in every layer for the effective-stress check");
+            throw InputError("clay.layers[" + std::to_string(i) + "].phi_prime_deg", "given with c_prime_kPa in every layer for the effective-stress check");
     const double gamma = site.embankment->fill_unit_weight_kN_per_m3, toe = m.profile.toe_m();
     const double reach = toe + 3.0 * (m.profile.height_m() + m.clay_thickness_m);
     const double hx = reach / (grid_offsets - 1), hz = m.clay_thickness_m / (grid_depths - 1);
@@ -233,7 +232,7 @@ SlopeModel stage_slope_model(const Site& site, const CellModel& model, double ti
     if (q > 0.0) {
         const auto states = model.over_depth(depths, time_s);
         if (!states)
-            throw InputError("method", 0.0, "the closed form or the layered series for stage checks (the numerical cell "
+            throw InputError("method", "the closed form or the layered series for stage checks (the numerical cell "
                                             "reports depth averages only)");
         for (int i = 0; i < gain_depths; ++i) share[i] = (q - (*states)[i].excess_pore_pressure_kPa) / q;
     }

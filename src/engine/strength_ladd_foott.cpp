@@ -35,7 +35,7 @@ double undrained_strength_kPa(const UndrainedStrength& s, double depth_in_layer_
         const double sigma_p = std::max(sigma_p_kPa, sigma);
         su = *s.su_ratio * sigma * std::pow(sigma_p / sigma, s.strength_exponent);
     } else {
-        throw InputError("su_top_kPa", 0.0, "given, or su_ratio (no strength given for this layer)");
+        throw InputError("su_top_kPa", "given, or su_ratio (no strength given for this layer)");
     }
     // Zero is allowed (the normalised form at zero effective stress); a negative value is a profile
     // whose gradient runs below zero within the layer.

@@ -134,7 +134,7 @@ double order_statistic(std::span<double> limits, std::size_t first, std::size_t 
 
 MonteCarloResult monte_carlo(const Site& base_input, const DesignResult& base_result,
                              const MonteCarloSpec& spec, const Progress& progress) {
-    if (spec.samples < 1) throw InputError("Monte Carlo samples", 0.0, "at least 1");
+    if (spec.samples < 1) throw InputError("Monte Carlo samples", static_cast<double>(spec.samples), "at least 1");
     const double values = static_cast<double>(spec.samples) * static_cast<double>(base_result.rows.size());
     if (values > defaults::max_monte_carlo_values)
         throw InputError("Monte Carlo samples × design rows", values,

@@ -34,8 +34,7 @@ void check(const SurchargeCell& c, const Surcharge& timing) {
     if (c.offset_secondary) {
         const auto* r = c.site.criterion.residual();
         if (!r || !r->service_s)
-            throw InputError("target.service_days", 0.0,
-                             "given with target.residual_settlement_mm: offsetting secondary compression sizes the "
+            throw InputError("target.service_days", "given with target.residual_settlement_mm: offsetting secondary compression sizes the "
                              "surcharge against the residual limit over the service period");
     }
 }
