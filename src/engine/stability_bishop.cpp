@@ -170,15 +170,18 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
         if (arc_y(c, mid) >= fill_surface_m(m.profile, mid)) continue;  // nothing above the arc here
         const int n = std::max(1, static_cast<int>(std::lround(slice_count * (x1 - x0) / span)));
         const double w = (x1 - x0) / n;
+        const auto angle = [&](double x) { return std::asin(std::clamp((x - c.centre_x_m) / c.radius_m, -1.0, 1.0)); };
+        double angle_before = angle(x0);  // each slice's far side is the next one's near side
         for (int k = 0; k < n; ++k) {
             const double xm = x0 + (k + 0.5) * w;
             const double yb = arc_y(c, xm), ys = fill_surface_m(m.profile, xm);
             if (yb < base_y - 1e-9) return std::nullopt;  // crosses the firm base
             const double fill_kPa = m.section.fill_unit_weight_kN_per_m3 * std::max(0.0, ys - std::max(yb, 0.0));
             const double clay_kPa = yb < 0.0 ? clay_column_kPa(m.bands, -yb) : 0.0;
-            const auto angle = [&](double x) { return std::asin(std::clamp((x - c.centre_x_m) / c.radius_m, -1.0, 1.0)); };
+            const double angle_after = angle(x0 + (k + 1) * w);
             Slice s{w, (fill_kPa + clay_kPa) * w, (c.centre_x_m - xm) / c.radius_m, (c.centre_y_m - yb) / c.radius_m, 0.0, 0.0,
-                    c.radius_m * (angle(x0 + (k + 1) * w) - angle(x0 + k * w)), xm};
+                    c.radius_m * (angle_after - angle_before), xm};
+            angle_before = angle_after;
             if (yb >= 0.0) {
                 s.cohesion_kPa = m.section.fill_cohesion_kPa;
                 s.tan_phi = tan_fill;
@@ -220,18 +223,21 @@ std::optional<CircleResult> bishop_factor_of_safety(const SlopeModel& m, const S
     const double reinforcement = reinforcement_moment(m, c, entry, exit) / c.radius_m;
     if (!(driving > 0.0)) return std::nullopt;
     double f = (fellenius + reinforcement) / driving;
+    // Slices without friction resist the same at every F: summed once, only the others iterate.
+    double fixed_part = reinforcement;
+    std::vector<const Slice*> frictional;
+    for (const Slice& s : slices) {
+        if (s.tan_phi == 0.0) fixed_part += s.cohesion_kPa * s.base_m;
+        else frictional.push_back(&s);
+    }
     for (int it = 0;; ++it) {
         if (it == max_bishop_iterations) return std::nullopt;
-        double resisting = reinforcement;
-        for (const Slice& s : slices) {
-            if (s.tan_phi == 0.0) {
-                resisting += s.cohesion_kPa * s.base_m;
-                continue;
-            }
-            const double m_alpha = s.cos_a + s.sin_a * s.tan_phi / f;
+        double resisting = fixed_part;
+        for (const Slice* s : frictional) {
+            const double m_alpha = s->cos_a + s->sin_a * s->tan_phi / f;
             if (m_alpha < min_m_alpha) return std::nullopt;
             // The effective weight on the base; a pore pressure above it (a slice lifted) carries no friction.
-            resisting += (s.cohesion_kPa * s.width_m + std::max(0.0, s.weight_kN - s.pore_kN) * s.tan_phi) / m_alpha;
+            resisting += (s->cohesion_kPa * s->width_m + std::max(0.0, s->weight_kN - s->pore_kN) * s->tan_phi) / m_alpha;
         }
         const double next = resisting / driving;
         const bool done = std::fabs(next - f) <= 1e-7 * next;

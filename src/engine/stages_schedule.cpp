@@ -244,29 +244,63 @@ SlopeModel stage_slope_model(const Site& site, const CellModel& model, double ti
         const double f = share[k] + (share[k + 1] - share[k]) * (pos - static_cast<double>(k));
         return f * embankment_stress_kPa(fill, gamma, x, z);
     };
-    std::function<double(double, double)> gain_at = gained;
-    if (field == StrengthField::tabulated) {
-        const double hx = toe / (grid_offsets - 1), hz = m.clay_thickness_m / (grid_depths - 1);
-        std::vector<double> grid(static_cast<std::size_t>(grid_offsets * grid_depths));
-        for (int i = 0; i < grid_offsets; ++i)
-            for (int j = 0; j < grid_depths; ++j) grid[static_cast<std::size_t>(i * grid_depths + j)] = gained(i * hx, j * hz);
-        gain_at = [grid = std::move(grid), hx, hz](double x, double z) {
-            const double px = std::clamp(std::fabs(x) / hx, 0.0, grid_offsets - 1.0);
-            const double pz = std::clamp(z / hz, 0.0, grid_depths - 1.0);
-            const int i = std::min(static_cast<int>(px), grid_offsets - 2), j = std::min(static_cast<int>(pz), grid_depths - 2);
-            const double tx = px - i, tz = pz - j;
-            const auto g = [&](int a, int b) { return grid[static_cast<std::size_t>(a * grid_depths + b)]; };
-            return (1 - tx) * ((1 - tz) * g(i, j) + tz * g(i, j + 1)) + tx * ((1 - tz) * g(i + 1, j) + tz * g(i + 1, j + 1));
-        };
-    }
     if (basis == StressBasis::effective) m.effective = effective_field(site, m, share, dz);
-    m.su_kPa = [profile, toe, gain_at, bands = m.bands](double x, double z) {
+    // su at a point of a layer: its initial state, its preconsolidation and the gain at (x, z).
+    const auto su_in_layer = [profile, toe, bands = m.bands](std::size_t layer, double x, double z, double gain) {
+        // Inside the layer (a boundary point belongs to the layer above in initial_state).
+        const double inside = std::clamp(z, bands[layer].top_m + 1e-9, bands[layer].bottom_m);
+        const SliceState before = initial_state(profile, inside);
+        const double sigma0 = std::max(0.0, before.sigma_v0_kPa), sigma_p = std::max(before.sigma_p_kPa, sigma0);
+        return undrained_strength_kPa(*profile.layers[layer].strength, z - bands[layer].top_m, sigma0, sigma_p,
+                                      std::fabs(x) <= toe ? gain : 0.0);
+    };
+    const auto layer_of = [bands = m.bands](double z) {
         std::size_t layer = 0;
         while (layer + 1 < bands.size() && z > bands[layer].bottom_m) ++layer;
-        const SliceState before = initial_state(profile, z);
-        const double sigma0 = std::max(0.0, before.sigma_v0_kPa), sigma_p = std::max(before.sigma_p_kPa, sigma0);
-        const double gain = std::fabs(x) <= toe ? gain_at(x, z) : 0.0;
-        return undrained_strength_kPa(*profile.layers[layer].strength, z - bands[layer].top_m, sigma0, sigma_p, gain);
+        return layer;
+    };
+    if (field == StrengthField::exact) {
+        m.su_kPa = [su_in_layer, layer_of, gained](double x, double z) {
+            return su_in_layer(layer_of(z), x, z, gained(x, z));
+        };
+        return m;
+    }
+    // Tabulated: su itself on a grid per layer (offsets 0..toe × depths with nodes on the layer's top
+    // and base, so no interpolation crosses a change of layer), bilinear between; beyond the toes,
+    // where nothing is gained, a column per layer. The gain at each node is exact.
+    struct LayerTable {
+        double top_m, hz;
+        int nz;
+        std::vector<double> within, beyond;  // within: grid_offsets × nz; beyond: nz
+    };
+    const double hx = toe / (grid_offsets - 1), target_hz = m.clay_thickness_m / (grid_depths - 1);
+    std::vector<LayerTable> tables;
+    for (std::size_t k = 0; k < m.bands.size(); ++k) {
+        const ClayBand& b = m.bands[k];
+        LayerTable t{b.top_m, 0.0, std::max(2, static_cast<int>(std::ceil((b.bottom_m - b.top_m) / target_hz)) + 1), {}, {}};
+        t.hz = (b.bottom_m - b.top_m) / (t.nz - 1);
+        t.within.resize(static_cast<std::size_t>(grid_offsets * t.nz));
+        t.beyond.resize(static_cast<std::size_t>(t.nz));
+        for (int j = 0; j < t.nz; ++j) {
+            const double z = b.top_m + j * t.hz;
+            t.beyond[static_cast<std::size_t>(j)] = su_in_layer(k, 2.0 * toe + 1.0, z, 0.0);
+            for (int i = 0; i < grid_offsets; ++i)
+                t.within[static_cast<std::size_t>(i * t.nz + j)] = su_in_layer(k, i * hx, z, gained(i * hx, z));
+        }
+        tables.push_back(std::move(t));
+    }
+    m.su_kPa = [tables = std::move(tables), layer_of, hx, toe](double x, double z) {
+        const LayerTable& t = tables[layer_of(z)];
+        const double pz = std::clamp((z - t.top_m) / t.hz, 0.0, t.nz - 1.0);
+        const int j = std::min(static_cast<int>(pz), t.nz - 2);
+        const double tz = pz - j;
+        const auto column = [&](const double* c) { return (1 - tz) * c[j] + tz * c[j + 1]; };
+        if (std::fabs(x) > toe) return column(t.beyond.data());
+        const double px = std::clamp(std::fabs(x) / hx, 0.0, grid_offsets - 1.0);
+        const int i = std::min(static_cast<int>(px), grid_offsets - 2);
+        const double tx = px - i;
+        return (1 - tx) * column(&t.within[static_cast<std::size_t>(i * t.nz)]) +
+               tx * column(&t.within[static_cast<std::size_t>((i + 1) * t.nz)]);
     };
     return m;
 }
