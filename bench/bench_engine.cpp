@@ -236,3 +236,11 @@ static void BM_StageCheckWhole(benchmark::State& state) {
     }
 }
 BENCHMARK(BM_StageCheckWhole)->Unit(benchmark::kMillisecond);
+
+// The planned schedule of the staged-embankment scenario at one spacing: every lift and the top-up
+// on its earliest safe day (the unit of work of `schedule`, one scheme).
+static void BM_StagePlan(benchmark::State& state) {
+    const auto s = scenario::load_scenario(std::string(WICKGRID_SOURCE_DIR) + "/configs/staged-embankment-stability.yaml");
+    for (auto _ : state) benchmark::DoNotOptimize(plan_stages(s.site, s.site.products.front(), Pattern::triangular, 1.2));
+}
+BENCHMARK(BM_StagePlan)->Unit(benchmark::kMillisecond);
