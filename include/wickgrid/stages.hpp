@@ -59,7 +59,8 @@ StagePlan plan_stages(const Site& site, const DrainProductSpec& product, Pattern
 
 // The factor of safety against time for a schedule (the chart): at each time, the fill placed so far
 // with the strength gained by then, by the same search as the stage checks (so the chart and the
-// table agree at each stage's end). Cost: one critical-circle search per time.
+// table agree at each stage's end). Cost: one cell model and one critical-circle search per time,
+// spread over the hardware threads (results do not depend on their number).
 struct SafetyPoint {
     double time_s = 0.0;
     double height_m = 0.0;

@@ -3,11 +3,10 @@
 #include "wickgrid/schedule.hpp"
 
 #include <algorithm>
-#include <atomic>
 #include <cmath>
 #include <stdexcept>
-#include <thread>
 
+#include "parallel_for.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/geometry.hpp"
 #include "wickgrid/units.hpp"
@@ -164,25 +163,10 @@ ScheduleResult search_schedules(const Site& site, const ScheduleSpec& spec) {
                 }
     ScheduleResult r;
     r.schemes.resize(keys.size());
-    // Each worker takes the next scheme; every scheme is written to its own slot, so the order and the
-    // numbers do not depend on the thread count. The first failure is rethrown after the join.
-    std::atomic<std::size_t> next{0};
-    std::exception_ptr failure;
-    std::atomic<bool> failed{false};
-    auto work = [&] {
-        for (std::size_t i; !failed && (i = next++) < keys.size();) try {
-                r.schemes[i] = evaluate(site, variants[variant_of[i]], keys[i], spec.costs);
-            } catch (...) {
-                if (!failed.exchange(true)) failure = std::current_exception();
-            }
-    };
-    const unsigned threads = std::max(1u, std::min<unsigned>(spec.threads ? spec.threads : std::thread::hardware_concurrency(),
-                                                             static_cast<unsigned>(keys.size())));
-    std::vector<std::thread> pool;
-    for (unsigned t = 1; t < threads; ++t) pool.emplace_back(work);
-    work();
-    for (auto& t : pool) t.join();
-    if (failure) std::rethrow_exception(failure);
+    // Each scheme to its own slot: the order and the numbers do not depend on the thread count.
+    detail::parallel_for(keys.size(), spec.threads, [&](std::size_t i) {
+        r.schemes[i] = evaluate(site, variants[variant_of[i]], keys[i], spec.costs);
+    });
     rank(r);
     return r;
 }

@@ -5,6 +5,7 @@
 
 #include <boost/math/constants/constants.hpp>
 
+#include "parallel_for.hpp"
 #include "wickgrid/errors.hpp"
 #include "wickgrid/stages.hpp"
 #include "wickgrid/units.hpp"
@@ -115,20 +116,53 @@ std::optional<double> earliest_start(const Site& site, const DrainProductSpec& p
     return hi;
 }
 
+// The check of the last of `placed` (numbered `number`) and, when another placement follows, the
+// earliest day it may start.
+StageCheck check_placement(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m,
+                           const std::vector<Placement>& placed, int number, const Placement* following, bool effective) {
+    const EmbankmentSection& section = *site.embankment;
+    const Placement& p = placed.back();
+    // The fill standing once it is placed (a surcharge removed before it no longer counts).
+    const double height = history_of(placed).applied_at_kPa(p.end_s) / section.fill_unit_weight_kN_per_m3;
+    const StageState st = state_at(site, product, pattern, spacing_m, history_of(placed), p.end_s, effective);
+    StageCheck check{number, p.surcharge, p.start_s, p.end_s, height, st.factor_of_safety, st.critical,
+                     st.effective ? std::optional<double>(st.effective->factor_of_safety) : std::nullopt,
+                     st.effective, st.settlement_m, std::nullopt, true};
+    if (following) {
+        check.earliest_next_start_s = earliest_start(site, product, pattern, spacing_m, placed, *following,
+                                                     next_from_s(p), section.target_factor_of_safety);
+        check.next_reachable = check.earliest_next_start_s.has_value();
+    }
+    return check;
+}
+
 StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m, bool plan) {
     require_stage_inputs(site);
-    const EmbankmentSection& section = *site.embankment;
     const std::vector<Placement> all = placements(*site.loading);
     StagePlan out;
-    out.target_factor_of_safety = section.target_factor_of_safety;
+    out.target_factor_of_safety = site.embankment->target_factor_of_safety;
     out.planned = plan;
-    std::vector<Placement> placed;
     const bool effective = has_effective_strength(site);
-    int permanent = 0;  // stages are numbered as the scenario's load stages (the surcharge apart)
+    // Stages are numbered as the scenario's load stages (the surcharge apart: the next number).
+    std::vector<int> numbers;
+    int permanent = 0;
+    for (const Placement& p : all) numbers.push_back(p.surcharge ? permanent + 1 : ++permanent);
+    const auto following = [&](std::size_t i) { return i + 1 < all.size() ? &all[i + 1] : nullptr; };
+    if (!plan) {
+        // As scheduled, each check stands alone: spread over the hardware threads.
+        out.stages.resize(all.size());
+        detail::parallel_for(all.size(), 0, [&](std::size_t i) {
+            const std::vector<Placement> placed(all.begin(), all.begin() + static_cast<std::ptrdiff_t>(i) + 1);
+            out.stages[i] = check_placement(site, product, pattern, spacing_m, placed, numbers[i], following(i), effective);
+        });
+        out.schedule = history_of(all);
+        return out;
+    }
+    // Planned: each placement starts on the earliest day its predecessor's check allows.
+    std::vector<Placement> placed;
     for (std::size_t i = 0; i < all.size(); ++i) {
         Placement p = all[i];
-        if (!p.surcharge) ++permanent;
-        if (plan && i > 0) {
+        if (i > 0) {
             const StageCheck& before = out.stages.back();
             if (!before.earliest_next_start_s) break;  // the plan cannot go on: its check says why
             const double duration = p.end_s - p.start_s;
@@ -136,18 +170,7 @@ StagePlan run(const Site& site, const DrainProductSpec& product, Pattern pattern
             p.end_s = p.start_s + duration;
         }
         placed.push_back(p);
-        // The fill standing once it is placed (a surcharge removed before it no longer counts).
-        const double height = history_of(placed).applied_at_kPa(p.end_s) / section.fill_unit_weight_kN_per_m3;
-        const StageState st = state_at(site, product, pattern, spacing_m, history_of(placed), p.end_s, effective);
-        StageCheck check{p.surcharge ? permanent + 1 : permanent, p.surcharge, p.start_s, p.end_s, height, st.factor_of_safety,
-                         st.critical, st.effective ? std::optional<double>(st.effective->factor_of_safety) : std::nullopt,
-                         st.effective, st.settlement_m, std::nullopt, true};
-        if (i + 1 < all.size()) {
-            check.earliest_next_start_s = earliest_start(site, product, pattern, spacing_m, placed, all[i + 1],
-                                                         next_from_s(p), section.target_factor_of_safety);
-            check.next_reachable = check.earliest_next_start_s.has_value();
-        }
-        out.stages.push_back(check);
+        out.stages.push_back(check_placement(site, product, pattern, spacing_m, placed, numbers[i], following(i), effective));
     }
     out.schedule = history_of(placed);
     return out;
@@ -316,14 +339,19 @@ StagePlan plan_stages(const Site& site, const DrainProductSpec& product, Pattern
 std::vector<SafetyPoint> safety_history(const Site& site, const DrainProductSpec& product, Pattern pattern,
                                         double spacing_m, const std::vector<double>& times_s) {
     require_stage_inputs(site);
-    const auto model = make_cell_model(site, product, pattern, spacing_m);
-    std::vector<SafetyPoint> out;
-    for (const double t : times_s) {
+    // The times are independent: spread over the hardware threads, each with a cell model of its own.
+    std::vector<std::optional<SafetyPoint>> at(times_s.size());
+    detail::parallel_for(times_s.size(), 0, [&](std::size_t i) {
+        const double t = times_s[i];
         const double q = site.loading->applied_at_kPa(t);
-        if (q <= 0.0) continue;
+        if (q <= 0.0) return;
+        const auto model = make_cell_model(site, product, pattern, spacing_m);
         const CircleResult c = critical_circle(stage_slope_model(site, *model, t));
-        out.push_back({t, q / site.embankment->fill_unit_weight_kN_per_m3, c.factor_of_safety, model->settlement_m(t)});
-    }
+        at[i] = SafetyPoint{t, q / site.embankment->fill_unit_weight_kN_per_m3, c.factor_of_safety, model->settlement_m(t)};
+    });
+    std::vector<SafetyPoint> out;
+    for (auto& p : at)
+        if (p) out.push_back(*p);
     return out;
 }
 

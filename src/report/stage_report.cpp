@@ -83,10 +83,12 @@ std::string plan_check_text(const scenario::Scenario& s, const results::StageRec
     if (c.spacing_limit_m)
         text += " Under this schedule the largest spacing that meets it is " + fixed(*c.spacing_limit_m, 3) + " m" +
                 (c.limited_by_maximum ? " (the range's largest)" : "") + " for " + r.drain + " in a " +
-                std::string(to_string(r.pattern)) + " pattern" + (c.meets ? "." : "; check the stages at that spacing.");
+                std::string(to_string(r.pattern)) + " pattern" +
+                (c.meets ? "." : "; check the stages at that spacing (a closer spacing plans faster lifts: `wickgrid "
+                                 "schedule` searches spacing, surcharge and lifts together).");
     else
         text += " No spacing in the scenario's range meets it under this schedule: move the deadline, add a surcharge "
-                "or change the product.";
+                "or change the product (`wickgrid schedule` searches spacing, surcharge and lifts together).";
     return text + "\n";
 }
 }  // namespace
