@@ -109,6 +109,14 @@ TEST(ScheduleCommand, TheChosenSchemeReproducesItsNumbers) {
         expect_reproduced(out / "chosen.yaml", doc[choice]);
     }
     EXPECT_EQ(slurp(file), before);
+    // A scenario named chosen.yaml in the output folder is an input: never overwritten (exit 3).
+    const fs::path dir = file.parent_path() / "own";
+    fs::create_directories(dir);
+    fs::copy_file(file, dir / "chosen.yaml");
+    const CommandRun own = run("schedule " + (dir / "chosen.yaml").string() + " --out " + dir.string());
+    EXPECT_EQ(own.exit_code, 3) << own.err;
+    EXPECT_NE(own.err.find("refusing to overwrite the input file"), std::string::npos) << own.err;
+    EXPECT_EQ(slurp(dir / "chosen.yaml"), before);
 }
 
 TEST(ScheduleCommand, SurchargeHeightsAndSpacings) {
