@@ -181,3 +181,24 @@ TEST(ScheduleCommand, BadInputIsNamedAndLocated) {
     EXPECT_EQ(plain.exit_code, 2);
     EXPECT_NE(plain.err.find("embankment"), std::string::npos) << plain.err;
 }
+
+// The report of a scenario with a `schedule:` block carries the same search: its summary names the
+// cheapest and the soonest scheme as `schedule` does, and the front is tabled.
+TEST(ScheduleCommand, TheReportShowsTheSameSearch) {
+    const fs::path file = write_case(small_search());
+    const CommandRun sch = run("schedule " + file.string() + " --json");
+    ASSERT_EQ(sch.exit_code, 0) << sch.err;
+    const json doc = json::parse(sch.out);
+    const fs::path out = file.parent_path() / "report";
+    const CommandRun r = run("report " + file.string() + " --out " + out.string());
+    ASSERT_EQ(r.exit_code, 0) << r.err;
+    const std::string md = slurp(out / "report.md");
+    EXPECT_NE(md.find("## Scheme search"), std::string::npos);
+    char cheapest[128];
+    std::snprintf(cheapest, sizeof cheapest, "Cheapest: %s, %s at %.2f m, surcharge %.2f m",
+                  doc["cheapest"]["drain"].get<std::string>().c_str(), doc["cheapest"]["pattern"].get<std::string>().c_str(),
+                  doc["cheapest"]["spacing_m"].get<double>(), doc["cheapest"]["surcharge_height_m"].get<double>());
+    EXPECT_NE(md.find(cheapest), std::string::npos) << cheapest;
+    EXPECT_NE(slurp(out / "report.html").find("id=\"schedule\""), std::string::npos);
+    EXPECT_TRUE(fs::exists(out / "schedule-front.svg"));
+}

@@ -1,5 +1,6 @@
 // wickgrid report FILE --out DIR: the HTML design report with its charts.
 #include "commands.hpp"
+#include "results/schedule_record.hpp"
 #include "report/html_report.hpp"
 #include "report/study_report.hpp"
 #include "results/stage_record.hpp"
@@ -22,7 +23,7 @@ Runner add_report(CLI::App& app) {
     cmd->add_option("--time-axis", o->time_axis, "Degree–time charts: linear or log")->check(CLI::IsMember({"linear", "log"}));
     cmd->footer("Studies in the scenario ('studies:' one-at-a-time and grid, 'uncertain:' Monte Carlo) are charted too; a "
                 "scenario with an 'embankment' and a strength in every layer gets the stage checks of the recommended "
-                "design (as 'stages'). Exit codes as for design.");
+                "design (as 'stages'), and with a 'schedule:' block the scheme search (as 'schedule'). Exit codes as for design.");
     return [o] {
         return run_each(o->files, {false, false}, [&](const BatchItem& item) {
             const std::string& file = item.file;
@@ -40,6 +41,8 @@ Runner add_report(CLI::App& app) {
             if (const DesignRow* best = record.result.best(); best && !results::stage_check_refusal(s))
                 record.stages = results::stage_record(s, best->drain, best->pattern, best->spacing_m, false,
                                                       defaults::chart_points / 2);
+            // A scenario with a `schedule:` block gets its scheme search (as 'schedule').
+            if (s.schedule) record.schedule = results::schedule_record(s, 0);
             const auto bundle = report::build_report(record);
             std::vector<std::pair<std::string, std::string>> files{{"report.html", bundle.html}, {"report.md", bundle.markdown}};
             for (const auto& chart : bundle.charts) files.emplace_back(chart.file, chart.svg);

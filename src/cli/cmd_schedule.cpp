@@ -3,7 +3,7 @@
 // cost–finish front of the schemes that stand and meet the criterion by the deadline.
 #include "commands.hpp"
 #include "report/schedule_report.hpp"
-#include "results/stage_record.hpp"
+#include "results/schedule_record.hpp"
 #include "scenario/scheme_scenario.hpp"
 #include "wickgrid/schedule.hpp"
 
@@ -18,27 +18,6 @@ struct ScheduleOptions {
     std::string choose = "cheapest";
 };
 
-// What the search needs beyond the stage checks, refused at its key before any work.
-ScheduleSpec schedule_spec(const scenario::Scenario& s, unsigned threads) {
-    if (const auto refusal = results::stage_check_refusal(s)) s.fail_at(refusal->first, refusal->second);
-    for (std::size_t i = 0; i < s.site.products.size(); ++i)
-        if (!s.site.products[i].cost_per_m)
-            s.fail_at("drains[" + std::to_string(i) + "]",
-                      "the scheme search ranks by cost: give 'cost_per_m' for drain '" + s.site.products[i].name + "'");
-    ScheduleSpec spec = s.schedule.value_or(ScheduleSpec{});
-    spec.threads = threads;
-    const std::size_t heights = std::max<std::size_t>(1, spec.surcharge_heights_m.size());
-    const std::size_t schemes =
-        s.site.products.size() * s.site.range.patterns.size() * heights * schedule_spacings(s.site.range).size();
-    if (schemes > defaults::max_schedule_schemes)
-        s.fail_at("spacing.increment_m",
-                  "the search would plan " + std::to_string(schemes) + " schemes (" + std::to_string(s.site.products.size()) +
-                      " drains × " + std::to_string(s.site.range.patterns.size()) + " patterns × " + std::to_string(heights) +
-                      " surcharge heights × " + std::to_string(schedule_spacings(s.site.range).size()) +
-                      " spacings); at most " + std::to_string(defaults::max_schedule_schemes) +
-                      ": a coarser increment, a narrower range, fewer heights or products");
-    return spec;
-}
 }  // namespace
 
 Runner add_schedule(CLI::App& app) {
@@ -64,8 +43,7 @@ Runner add_schedule(CLI::App& app) {
     return [o] {
         return run_each(o->files, {o->json, false}, [&](const BatchItem& item) {
             const auto s = load_scenario_warned(item.file);
-            const ScheduleSpec spec = schedule_spec(s, o->threads);
-            const ScheduleResult result = search_schedules(s.site, spec);
+            const ScheduleResult result = results::schedule_record(s, o->threads);
             if (!o->out_dir.empty()) {
                 std::vector<std::pair<std::string, std::string>> files;
                 files.emplace_back("schedule.json", report::schedule_json(s, result).dump(2) + "\n");

@@ -9,6 +9,7 @@
 
 #include "report/columns.hpp"
 #include "report/design_report.hpp"
+#include "report/schedule_report.hpp"
 #include "report/stage_report.hpp"
 #include "wickgrid/names.hpp"
 #include "wickgrid/version.hpp"
@@ -393,6 +394,14 @@ std::string markdown_sections(const results::DesignRecord& record, const std::ve
         for (const auto& a : st->assumptions) o << "- " << markdown_text(a) << "\n";
         o << "\n";
     }
+    if (const auto& sch = record.schedule) {
+        o << "## Scheme search: spacing, surcharge and lift schedule\n\n" << markdown_text(schedule_summary(*sch)) << "\n\n";
+        if (sch->cheapest)
+            o << "The cost–finish front (no other scheme is both cheaper and sooner):\n\n"
+              << markdown_table(schedule_front_header(record.site().criterion), schedule_front_rows(*sch)) << "\n";
+        for (const auto& a : schedule_assumptions()) o << "- " << markdown_text(a) << "\n";
+        o << "\n";
+    }
     o << "## Charts\n\n";
     for (std::size_t i = 0; i < charts.size(); ++i)
         o << "![Figure " << i + 1 << "](" << charts[i].file << ")\n\nFigure " << i + 1 << ". " << markdown_text(charts[i].caption)
@@ -424,6 +433,7 @@ ReportBundle build_report(const results::DesignRecord& record) {
     for (auto& c : study_charts(record.studies, record.chart_curves, record.result)) bundle.charts.push_back(std::move(c));
     if (record.stages)
         for (auto& c : stage_charts(*record.stages)) bundle.charts.push_back(std::move(c));
+    if (record.schedule && record.schedule->cheapest) bundle.charts.push_back(schedule_chart(*record.schedule));
 
     std::ostringstream o;
     o << "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n<title>" << escape_xml(s.title)
@@ -464,6 +474,15 @@ ReportBundle build_report(const results::DesignRecord& record) {
         o << "<section id=\"stages\"><h2>Stage stability</h2>\n<p>" << escape_xml(stage_summary(*st)) << "</p>\n"
           << html_table("stages", stage_header(*st), stage_rows(*st)) << "<ul>\n";
         for (const auto& a : st->assumptions) o << "<li>" << escape_xml(a) << "</li>\n";
+        o << "</ul>\n</section>\n";
+    }
+    if (const auto& sch = record.schedule) {
+        o << "<section id=\"schedule\"><h2>Scheme search: spacing, surcharge and lift schedule</h2>\n<p>"
+          << escape_xml(schedule_summary(*sch)) << "</p>\n";
+        if (sch->cheapest)
+            o << html_table("schedule", schedule_front_header(site.criterion), schedule_front_rows(*sch));
+        o << "<ul>\n";
+        for (const auto& a : schedule_assumptions()) o << "<li>" << escape_xml(a) << "</li>\n";
         o << "</ul>\n</section>\n";
     }
     o << "<section><h2>Charts</h2>\n";

@@ -57,7 +57,7 @@ std::vector<std::string> scheme_row(const Scheme& s) {
             s.residual_m ? fixed(*s.residual_m * 1000.0, 1) : fixed(100.0 * s.degree_at_deadline, 1)};
 }
 
-std::vector<std::string> scheme_header(const Criterion& criterion) {
+std::vector<std::string> front_header(const Criterion& criterion) {
     return {"drain", "pattern", "spacing (m)", "surcharge (m)", "start days (lifts, surcharge)", "finish day",
             "cost/ha", "min FS", criterion.residual() ? "residual at deadline (mm)" : "U at deadline (%)"};
 }
@@ -91,6 +91,36 @@ const std::vector<std::string>& schedule_assumptions() {
     return a;
 }
 
+std::vector<std::string> schedule_front_header(const Criterion& criterion) { return front_header(criterion); }
+
+std::vector<std::vector<std::string>> schedule_front_rows(const ScheduleResult& r) {
+    std::vector<std::vector<std::string>> rows;
+    for (const Scheme& x : r.schemes)
+        if (x.on_front) rows.push_back(scheme_row(x));
+    return rows;
+}
+
+std::string schedule_summary(const ScheduleResult& r) {
+    std::ostringstream o;
+    o << r.schemes.size() << " schemes searched (drain × pattern × surcharge height × spacing, each lift on its earliest "
+      << "safe day). ";
+    if (!r.cheapest) {
+        o << "None stands at every stage and meets the criterion by the deadline.";
+    } else {
+        const auto words = [](const Scheme& x) {
+            return x.drain + ", " + std::string(to_string(x.pattern)) + " at " + fixed(x.spacing_m, 2) + " m, surcharge " +
+                   fixed(x.surcharge_height_m, 2) + " m, finish day " + finish_text(x) + ", " + fixed(x.cost_per_hectare, 0) +
+                   " per hectare";
+        };
+        o << "Cheapest: " << words(r.schemes[*r.cheapest]) << ". Soonest: " << words(r.schemes[*r.soonest]) << ".";
+    }
+    std::map<SchemeExclusion, std::size_t> left_out;
+    for (const Scheme& x : r.schemes)
+        if (!x.on_front) ++left_out[x.excluded_because];
+    for (const auto& [why, n] : left_out) o << " " << n << " left out: " << exclusion_words(why) << ".";
+    return o.str();
+}
+
 json schedule_json(const scenario::Scenario& s, const ScheduleResult& r) {
     json schemes = json::array();
     for (const Scheme& x : r.schemes) schemes.push_back(scheme_json(x));
@@ -118,7 +148,7 @@ std::string schedule_table(const scenario::Scenario& s, const ScheduleResult& r)
         o << "No scheme stands at every stage and meets the criterion by the deadline.\n";
     } else {
         o << "Cost–finish front (no other scheme is both cheaper and sooner):\n"
-          << text_table(scheme_header(s.site.criterion), front, 2) << "\n";
+          << text_table(front_header(s.site.criterion), front, 2) << "\n";
         const Scheme& c = r.schemes[*r.cheapest];
         const Scheme& f = r.schemes[*r.soonest];
         o << "Cheapest: " << c.drain << ", " << to_string(c.pattern) << " at " << fixed(c.spacing_m, 2) << " m, surcharge "

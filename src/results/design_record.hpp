@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "results/stage_record.hpp"
+#include "wickgrid/schedule.hpp"
 #include "scenario/scenario.hpp"
 #include "wickgrid/design.hpp"
 #include "wickgrid/studies.hpp"
@@ -65,6 +66,8 @@ struct DesignRecord {
     Studies studies;
     // Stage stability of the recommended design (report only; `stages` computes the same record).
     std::optional<StageRecord> stages;
+    // The scheme search, when the scenario has a `schedule:` block (report only; `schedule` computes the same).
+    std::optional<ScheduleResult> schedule;
     std::vector<SubLayerRow> sublayers;  // empty without clay layers and a load history
     // The layer properties the numerical cell and the layered series take (mv, secant for e–log layers;
     // kv and kh = c·mv·γw), as the inputs table shows them; empty for the closed form.
