@@ -47,10 +47,13 @@ struct Scheme {
     // The later of the last placement's end, the surcharge's removal and the day the criterion is
     // first met (s); nullopt when the criterion is not met within the search horizon.
     std::optional<double> finish_s;
-    double cost_per_hectare = 0.0;  // the sum of the parts below
+    // The sum of the parts below; none when the programme is costed but the scheme has no finish day
+    // (the criterion is not met within the search horizon: its programme has no end to cost to).
+    std::optional<double> cost_per_hectare;
     struct CostParts {
-        double drains = 0.0, fill = 0.0, surcharge = 0.0, programme = 0.0;
-    } cost_parts;                    // per hectare; a part the scenario gives no cost for is 0
+        double drains = 0.0, fill = 0.0, surcharge = 0.0;
+        std::optional<double> programme;  // 0 when the scenario gives no cost per day
+    } cost_parts;                         // per hectare; a part the scenario gives no cost for is 0
     bool on_front = false;
     SchemeExclusion excluded_because = SchemeExclusion::none;
 };

@@ -65,8 +65,9 @@ Scheme evaluate(const Site& base, const Site& site, const SchemeKey& key, const 
     if (costs.fill_per_m3) c.fill = *costs.fill_per_m3 * site.loading->permanent_kPa() / gamma * square_metres_per_hectare;
     const double surcharge_m3 = key.surcharge_height_m * square_metres_per_hectare;
     c.surcharge = (costs.surcharge_per_m3.value_or(0.0) + costs.surcharge_removal_per_m3.value_or(0.0)) * surcharge_m3;
-    if (costs.per_hectare_per_day && s.finish_s) c.programme = *costs.per_hectare_per_day * units::seconds_to_days(*s.finish_s);
-    s.cost_per_hectare = c.drains + c.fill + c.surcharge + c.programme;
+    if (!costs.per_hectare_per_day) c.programme = 0.0;
+    else if (s.finish_s) c.programme = *costs.per_hectare_per_day * units::seconds_to_days(*s.finish_s);
+    if (c.programme) s.cost_per_hectare = c.drains + c.fill + c.surcharge + *c.programme;
     s.excluded_because = !s.every_stage_stands ? SchemeExclusion::stage_below_target
                          : !s.meets_criterion  ? SchemeExclusion::criterion_missed
                                                : SchemeExclusion::none;
@@ -81,11 +82,11 @@ void rank(ScheduleResult& r) {
         if (r.schemes[i].excluded_because == SchemeExclusion::none) feasible.push_back(i);
     auto cheaper = [&](std::size_t a, std::size_t b) {
         const Scheme &x = r.schemes[a], &y = r.schemes[b];
-        return x.cost_per_hectare != y.cost_per_hectare ? x.cost_per_hectare < y.cost_per_hectare : *x.finish_s < *y.finish_s;
+        return *x.cost_per_hectare != *y.cost_per_hectare ? *x.cost_per_hectare < *y.cost_per_hectare : *x.finish_s < *y.finish_s;
     };
     auto sooner = [&](std::size_t a, std::size_t b) {
         const Scheme &x = r.schemes[a], &y = r.schemes[b];
-        return *x.finish_s != *y.finish_s ? *x.finish_s < *y.finish_s : x.cost_per_hectare < y.cost_per_hectare;
+        return *x.finish_s != *y.finish_s ? *x.finish_s < *y.finish_s : *x.cost_per_hectare < *y.cost_per_hectare;
     };
     if (feasible.empty()) return;
     r.cheapest = *std::min_element(feasible.begin(), feasible.end(), cheaper);
@@ -94,8 +95,8 @@ void rank(ScheduleResult& r) {
         const Scheme& s = r.schemes[i];
         const bool beaten = std::any_of(feasible.begin(), feasible.end(), [&](std::size_t j) {
             const Scheme& o = r.schemes[j];
-            return j != i && o.cost_per_hectare <= s.cost_per_hectare && *o.finish_s <= *s.finish_s &&
-                   (o.cost_per_hectare < s.cost_per_hectare || *o.finish_s < *s.finish_s);
+            return j != i && *o.cost_per_hectare <= *s.cost_per_hectare && *o.finish_s <= *s.finish_s &&
+                   (*o.cost_per_hectare < *s.cost_per_hectare || *o.finish_s < *s.finish_s);
         });
         r.schemes[i].on_front = !beaten;
         if (beaten) r.schemes[i].excluded_because = SchemeExclusion::beaten;

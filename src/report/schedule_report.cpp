@@ -28,9 +28,9 @@ json scheme_json(const Scheme& s) {
             {"stage_start_days", starts},
             {"surcharge_removal_day", s.schedule.surcharge ? optional_day(s.schedule.surcharge->removal_s) : json(nullptr)},
             {"finish_day", optional_day(s.finish_s)},
-            {"cost_per_hectare", s.cost_per_hectare},
+            {"cost_per_hectare", s.cost_per_hectare ? json(*s.cost_per_hectare) : json(nullptr)},
             {"cost_parts_per_hectare", {{"drains", s.cost_parts.drains}, {"fill", s.cost_parts.fill},
-                                        {"surcharge", s.cost_parts.surcharge}, {"programme", s.cost_parts.programme}}},
+                                        {"surcharge", s.cost_parts.surcharge}, {"programme", s.cost_parts.programme ? json(*s.cost_parts.programme) : json(nullptr)}}},
             {"meets_criterion", s.meets_criterion},
             {"degree_at_deadline", s.degree_at_deadline},
             {"residual_settlement_mm", s.residual_m ? json(*s.residual_m * 1000.0) : json(nullptr)},
@@ -53,7 +53,8 @@ std::string starts_text(const Scheme& s) {
 // The criterion's own figure at the deadline: the degree, or the residual settlement.
 std::vector<std::string> scheme_row(const Scheme& s) {
     return {s.drain, std::string(to_string(s.pattern)), fixed(s.spacing_m, 2), fixed(s.surcharge_height_m, 2),
-            starts_text(s), finish_text(s), fixed(s.cost_per_hectare, 0), fixed(s.min_factor_of_safety, 3),
+            starts_text(s), finish_text(s), s.cost_per_hectare ? fixed(*s.cost_per_hectare, 0) : "-",
+            fixed(s.min_factor_of_safety, 3),
             s.residual_m ? fixed(*s.residual_m * 1000.0, 1) : fixed(100.0 * s.degree_at_deadline, 1)};
 }
 
@@ -109,7 +110,7 @@ std::string schedule_summary(const ScheduleResult& r) {
     } else {
         const auto words = [](const Scheme& x) {
             return x.drain + ", " + std::string(to_string(x.pattern)) + " at " + fixed(x.spacing_m, 2) + " m, surcharge " +
-                   fixed(x.surcharge_height_m, 2) + " m, finish day " + finish_text(x) + ", " + fixed(x.cost_per_hectare, 0) +
+                   fixed(x.surcharge_height_m, 2) + " m, finish day " + finish_text(x) + ", " + fixed(*x.cost_per_hectare, 0) +
                    " per hectare";
         };
         o << "Cheapest: " << words(r.schemes[*r.cheapest]) << ". Soonest: " << words(r.schemes[*r.soonest]) << ".";
@@ -152,10 +153,10 @@ std::string schedule_table(const scenario::Scenario& s, const ScheduleResult& r)
         const Scheme& c = r.schemes[*r.cheapest];
         const Scheme& f = r.schemes[*r.soonest];
         o << "Cheapest: " << c.drain << ", " << to_string(c.pattern) << " at " << fixed(c.spacing_m, 2) << " m, surcharge "
-          << fixed(c.surcharge_height_m, 2) << " m, finish day " << finish_text(c) << ", " << fixed(c.cost_per_hectare, 0)
+          << fixed(c.surcharge_height_m, 2) << " m, finish day " << finish_text(c) << ", " << fixed(*c.cost_per_hectare, 0)
           << " per hectare.\n"
           << "Soonest: " << f.drain << ", " << to_string(f.pattern) << " at " << fixed(f.spacing_m, 2) << " m, surcharge "
-          << fixed(f.surcharge_height_m, 2) << " m, finish day " << finish_text(f) << ", " << fixed(f.cost_per_hectare, 0)
+          << fixed(f.surcharge_height_m, 2) << " m, finish day " << finish_text(f) << ", " << fixed(*f.cost_per_hectare, 0)
           << " per hectare.\n";
     }
     std::map<SchemeExclusion, std::size_t> left_out;
@@ -180,13 +181,13 @@ Chart schedule_chart(const ScheduleResult& r) {
     for (const Scheme& x : r.schemes) {
         if (x.excluded_because != SchemeExclusion::none && x.excluded_because != SchemeExclusion::beaten) continue;
         all.x.push_back(units::seconds_to_days(*x.finish_s));
-        all.y.push_back(x.cost_per_hectare);
+        all.y.push_back(*x.cost_per_hectare);
         if (x.on_front) on_front.push_back(&x);
     }
     std::sort(on_front.begin(), on_front.end(), [](const Scheme* a, const Scheme* b) { return *a->finish_s < *b->finish_s; });
     for (const Scheme* x : on_front) {
         front.x.push_back(units::seconds_to_days(*x->finish_s));
-        front.y.push_back(x->cost_per_hectare);
+        front.y.push_back(*x->cost_per_hectare);
     }
     if (!all.x.empty()) chart.series.push_back(all);
     if (!front.x.empty()) chart.series.push_back(front);
