@@ -57,6 +57,13 @@ StagePlan check_stages(const Site& site, const DrainProductSpec& product, Patter
 // A stage that cannot meet the target at any wait ends the plan there (its check says so).
 StagePlan plan_stages(const Site& site, const DrainProductSpec& product, Pattern pattern, double spacing_m);
 
+// The site with a plan's schedule as its load history, the section kept at the site's full fill
+// height: what the criterion, the chart and the settlement are asked of once the days have moved.
+Site with_planned_schedule(const Site& site, const StagePlan& plan);
+// Whether the plan placed every placement of the site's load history (it stops at a stage that can
+// never reach the target).
+bool plan_is_complete(const Site& site, const StagePlan& plan);
+
 // The factor of safety against time for a schedule (the chart): at each time, the fill placed so far
 // with the strength gained by then, by the same search as the stage checks (so the chart and the
 // table agree at each stage's end). Cost: one cell model and one critical-circle search per time,

@@ -44,9 +44,10 @@ Runner add_schedule(CLI::App& app) {
         return run_each(o->files, {o->json, false}, [&](const BatchItem& item) {
             const auto s = load_scenario_warned(item.file);
             const ScheduleResult result = results::schedule_record(s, o->threads);
+            const std::string json = report::schedule_json(s, result).dump(2) + "\n";
             if (!o->out_dir.empty()) {
                 std::vector<std::pair<std::string, std::string>> files;
-                files.emplace_back("schedule.json", report::schedule_json(s, result).dump(2) + "\n");
+                files.emplace_back("schedule.json", json);
                 if (result.cheapest) {
                     const auto chart = report::schedule_chart(result);
                     files.emplace_back(chart.file, chart.svg);
@@ -55,7 +56,7 @@ Runner add_schedule(CLI::App& app) {
                 }
                 write_outputs(item.out_dir(o->out_dir), {item.file}, files, report::trace_fields(s));
             }
-            if (o->json) item.print(report::schedule_json(s, result).dump(2) + "\n");
+            if (o->json) item.print(json);
             else item.print(report::schedule_table(s, result));
             return static_cast<int>(result.cheapest ? ok : no_feasible_design);
         });

@@ -24,14 +24,13 @@ struct SchemeKey {
 };
 
 // One scheme: the plan, then the criterion under it.
-Scheme evaluate(const Site& base, const Site& site, const SchemeKey& key, const ScheduleCosts& costs) {
+Scheme evaluate(const Site& site, const SchemeKey& key, const ScheduleCosts& costs) {
     Scheme s;
     s.drain = key.product->name;
     s.pattern = key.pattern;
     s.spacing_m = key.spacing_m;
     s.surcharge_height_m = key.surcharge_height_m;
     const StagePlan plan = plan_stages(site, *key.product, key.pattern, key.spacing_m);
-    const std::size_t placements = site.loading->stages.size() + (site.loading->surcharge ? 1 : 0);
     s.schedule = plan.schedule;
     s.min_factor_of_safety = plan.stages.empty() ? 0.0 : plan.stages.front().factor_of_safety;
     std::optional<double> surcharge_start_s;
@@ -42,11 +41,9 @@ Scheme evaluate(const Site& base, const Site& site, const SchemeKey& key, const 
         s.min_factor_of_safety = std::min(s.min_factor_of_safety, c.factor_of_safety);
     }
     if (surcharge_start_s) s.stage_start_s.push_back(*surcharge_start_s);
-    s.every_stage_stands = plan.stages.size() == placements && s.min_factor_of_safety >= plan.target_factor_of_safety;
+    s.every_stage_stands = plan_is_complete(site, plan) && s.min_factor_of_safety >= plan.target_factor_of_safety;
     // The criterion under the planned days: the same model every command builds for this schedule.
-    Site planned = site;
-    planned.loading = plan.schedule;
-    planned.embankment->height_m = final_fill_height_m(site);
+    const Site planned = with_planned_schedule(site, plan);
     const auto model = make_cell_model(planned, *key.product, key.pattern, key.spacing_m);
     const Criterion& criterion = planned.criterion;
     s.degree_at_deadline = model->degree(criterion.deadline_s);
@@ -60,7 +57,7 @@ Scheme evaluate(const Site& base, const Site& site, const SchemeKey& key, const 
         s.meets_criterion = false;  // met at the deadline, but the works (or the surcharge) run past it
     // Cost per hectare, by part.
     Scheme::CostParts& c = s.cost_parts;
-    c.drains = drains_per_hectare(key.pattern, key.spacing_m) * base.installation.drain_length_m * *key.product->cost_per_m;
+    c.drains = drains_per_hectare(key.pattern, key.spacing_m) * site.installation.drain_length_m * *key.product->cost_per_m;
     const double gamma = site.embankment->fill_unit_weight_kN_per_m3;
     if (costs.fill_per_m3) c.fill = *costs.fill_per_m3 * site.loading->permanent_kPa() / gamma * square_metres_per_hectare;
     const double surcharge_m3 = key.surcharge_height_m * square_metres_per_hectare;
@@ -166,7 +163,7 @@ ScheduleResult search_schedules(const Site& site, const ScheduleSpec& spec) {
     r.schemes.resize(keys.size());
     // Each scheme to its own slot: the order and the numbers do not depend on the thread count.
     detail::parallel_for(keys.size(), spec.threads, [&](std::size_t i) {
-        r.schemes[i] = evaluate(site, variants[variant_of[i]], keys[i], spec.costs);
+        r.schemes[i] = evaluate(variants[variant_of[i]], keys[i], spec.costs);
     });
     rank(r);
     return r;

@@ -224,6 +224,17 @@ std::function<SlopeModel::ClayEffective(double, double)> effective_field(const S
 }
 }  // namespace
 
+Site with_planned_schedule(const Site& site, const StagePlan& plan) {
+    Site planned = site;
+    planned.loading = plan.schedule;
+    planned.embankment->height_m = final_fill_height_m(site);
+    return planned;
+}
+
+bool plan_is_complete(const Site& site, const StagePlan& plan) {
+    return plan.stages.size() == placements(*site.loading).size();
+}
+
 bool has_effective_strength(const Site& site) {
     if (!site.ground.profile) return false;
     for (const SoilLayer& l : site.ground.profile->layers)

@@ -72,6 +72,21 @@ std::string exclusion_words(SchemeExclusion e) {
     }
     return "on the front";
 }
+
+// One scheme in words: drain, pattern, spacing, surcharge, finish day and cost (feasible schemes).
+std::string scheme_words(const Scheme& x) {
+    return x.drain + ", " + std::string(to_string(x.pattern)) + " at " + fixed(x.spacing_m, 2) + " m, surcharge " +
+           fixed(x.surcharge_height_m, 2) + " m, finish day " + finish_text(x) + ", " + fixed(*x.cost_per_hectare, 0) +
+           " per hectare";
+}
+
+// How many schemes each condition left off the front.
+std::map<SchemeExclusion, std::size_t> left_out(const ScheduleResult& r) {
+    std::map<SchemeExclusion, std::size_t> counts;
+    for (const Scheme& x : r.schemes)
+        if (!x.on_front) ++counts[x.excluded_because];
+    return counts;
+}
 }  // namespace
 
 const std::vector<std::string>& schedule_assumptions() {
@@ -108,17 +123,10 @@ std::string schedule_summary(const ScheduleResult& r) {
     if (!r.cheapest) {
         o << "None stands at every stage and meets the criterion by the deadline.";
     } else {
-        const auto words = [](const Scheme& x) {
-            return x.drain + ", " + std::string(to_string(x.pattern)) + " at " + fixed(x.spacing_m, 2) + " m, surcharge " +
-                   fixed(x.surcharge_height_m, 2) + " m, finish day " + finish_text(x) + ", " + fixed(*x.cost_per_hectare, 0) +
-                   " per hectare";
-        };
-        o << "Cheapest: " << words(r.schemes[*r.cheapest]) << ". Soonest: " << words(r.schemes[*r.soonest]) << ".";
+        o << "Cheapest: " << scheme_words(r.schemes[*r.cheapest]) << ". Soonest: " << scheme_words(r.schemes[*r.soonest])
+          << ".";
     }
-    std::map<SchemeExclusion, std::size_t> left_out;
-    for (const Scheme& x : r.schemes)
-        if (!x.on_front) ++left_out[x.excluded_because];
-    for (const auto& [why, n] : left_out) o << " " << n << " left out: " << exclusion_words(why) << ".";
+    for (const auto& [why, n] : left_out(r)) o << " " << n << " left out: " << exclusion_words(why) << ".";
     return o.str();
 }
 
@@ -142,28 +150,18 @@ std::string schedule_table(const scenario::Scenario& s, const ScheduleResult& r)
     o << s.title << "\nscheme search: " << r.schemes.size() << " schemes (drain × pattern × surcharge × spacing), "
       << "target factor of safety " << fixed(s.site.embankment->target_factor_of_safety, 2) << ", deadline day "
       << fixed(units::seconds_to_days(s.site.criterion.deadline_s), 0) << "\n\n";
-    std::vector<std::vector<std::string>> front;
-    for (const Scheme& x : r.schemes)
-        if (x.on_front) front.push_back(scheme_row(x));
+    const auto front = schedule_front_rows(r);
     if (front.empty()) {
         o << "No scheme stands at every stage and meets the criterion by the deadline.\n";
     } else {
         o << "Cost–finish front (no other scheme is both cheaper and sooner):\n"
           << text_table(front_header(s.site.criterion), front, 2) << "\n";
-        const Scheme& c = r.schemes[*r.cheapest];
-        const Scheme& f = r.schemes[*r.soonest];
-        o << "Cheapest: " << c.drain << ", " << to_string(c.pattern) << " at " << fixed(c.spacing_m, 2) << " m, surcharge "
-          << fixed(c.surcharge_height_m, 2) << " m, finish day " << finish_text(c) << ", " << fixed(*c.cost_per_hectare, 0)
-          << " per hectare.\n"
-          << "Soonest: " << f.drain << ", " << to_string(f.pattern) << " at " << fixed(f.spacing_m, 2) << " m, surcharge "
-          << fixed(f.surcharge_height_m, 2) << " m, finish day " << finish_text(f) << ", " << fixed(*f.cost_per_hectare, 0)
-          << " per hectare.\n";
+        o << "Cheapest: " << scheme_words(r.schemes[*r.cheapest]) << ".\n"
+          << "Soonest: " << scheme_words(r.schemes[*r.soonest]) << ".\n";
     }
-    std::map<SchemeExclusion, std::size_t> left_out;
-    for (const Scheme& x : r.schemes)
-        if (!x.on_front) ++left_out[x.excluded_because];
-    if (!left_out.empty()) o << "\nLeft out:\n";
-    for (const auto& [why, n] : left_out) o << "  " << n << " scheme" << (n == 1 ? "" : "s") << ": " << exclusion_words(why) << "\n";
+    const auto counts = left_out(r);
+    if (!counts.empty()) o << "\nLeft out:\n";
+    for (const auto& [why, n] : counts) o << "  " << n << " scheme" << (n == 1 ? "" : "s") << ": " << exclusion_words(why) << "\n";
     o << "\nAssumptions:\n";
     for (const auto& a : schedule_assumptions()) o << "  - " << a << "\n";
     o << "\n" << results::caution_block();

@@ -50,14 +50,9 @@ StageRecord stage_record(const scenario::Scenario& s, const std::string& drain, 
     }
     r.groundwater_depth_m = site.ground.profile->groundwater_depth_m;
     // The chart follows the schedule checked: the planned one when planning.
-    Site charted = site;
-    if (plan) {
-        charted.loading = r.plan.schedule;
-        charted.embankment->height_m = final_fill_height_m(site);
-    }
+    const Site charted = plan ? with_planned_schedule(site, r.plan) : site;
     // Planned: the schedule moved, so the criterion is asked again under it (one loop, not two commands).
-    const std::size_t placements = site.loading->stages.size() + (site.loading->surcharge ? 1 : 0);
-    if (plan && r.plan.stages.size() == placements) {
+    if (plan && plan_is_complete(site, r.plan)) {
         const auto model = make_cell_model(charted, product, pattern, spacing_m);
         PlanCriterionCheck c;
         c.meets = model->margin(charted.criterion) >= 0.0;
