@@ -172,6 +172,7 @@ TEST(ScheduleCommand, BadInputIsNamedAndLocated) {
         {"  increment_m: 0.2", "  increment_m: 0.001", "spacing.increment_m", "at most 1000"},
         {"  top_up: after_surcharge_removal", "  top_up: after_surcharge_removal\n  top_up_start_day: 100",
          "embankment.top_up_start_day", "cannot start before day"},
+        {"  finished_height_m: 4.0", "  top_up_start_day: 200", "embankment.top_up_start_day", "needs 'finished_height_m'"},
     };
     for (const auto& c : cases) {
         const fs::path file = write_case(edited_copy(bundled, c.from, c.to));
@@ -180,6 +181,12 @@ TEST(ScheduleCommand, BadInputIsNamedAndLocated) {
         EXPECT_NE(r.err.find(c.key), std::string::npos) << r.err;
         EXPECT_NE(r.err.find(c.message), std::string::npos) << r.err;
         EXPECT_NE(r.err.find(file.string() + ":"), std::string::npos) << r.err;
+    }
+    // Options: a choice outside the table and a thread count of 0 name the option (exit 2).
+    for (const char* bad : {" --choose fastest", " --threads 0"}) {
+        const CommandRun r = run("schedule " + source(bundled) + bad);
+        EXPECT_EQ(r.exit_code, 2) << bad << ": " << r.err;
+        EXPECT_NE(r.err.find(std::string(bad).substr(1, std::string(bad).find(' ', 1) - 1)), std::string::npos) << r.err;
     }
     // Without an embankment there is nothing to plan: located at the file.
     const CommandRun plain = run("schedule " + source("demo/scenario.yaml"));

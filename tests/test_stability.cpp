@@ -236,7 +236,8 @@ TEST(Stability, BasalReinforcementByHand) {
     }
 }
 
-// A tension crack by hand: a 2 m block of cohesive fill (c = 10 kPa, φ = 0, γ = 20) with vertical
+// A tension crack by hand (the crack carrying no shear and its water thrust γw·zc²/2 at a third of
+// its depth: common practice in limit-equilibrium slope analysis; the thrust is hydrostatics): a 2 m block of cohesive fill (c = 10 kPa, φ = 0, γ = 20) with vertical
 // sides on φ = 0 clay, a circle centred above the block's edge at yc = 3 m. Angles from the vertical
 // below the centre: φh = acos((yc − h)/R) where the arc meets the fill surface, φc = acos((yc − h +
 // zc)/R) at the crack's bottom, φ0 = acos(yc/R) at the original ground. M_R = R·[su·2R·φ0 + c·R·(φh

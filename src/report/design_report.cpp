@@ -404,6 +404,9 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
                 text += l.cc && *l.cc > 0.0 ? ", Cα/Cc = " + fixed(*l.c_alpha / *l.cc, 3) + ")" : std::string(")");
             }
             if (l.strength) text += "; " + strength_text(*l.strength);
+            if (l.effective_strength)
+                text += "; c′ = " + fixed(l.effective_strength->c_prime_kPa, 1) + " kPa, φ′ = " +
+                        fixed(l.effective_strength->phi_prime_deg, 1) + "° (the effective-stress stage check)";
             if (i < record.cell_layers.size()) {
                 const auto& c = record.cell_layers[i];
                 text += "; as the cell model takes them mv = " + scientific(c.mv_m2_per_kN) + " m²/kN, kv = " +
@@ -411,6 +414,21 @@ std::vector<std::pair<std::string, std::string>> input_rows(const results::Desig
             }
             rows.emplace_back("clay layer " + std::to_string(i + 1), text);
         }
+    }
+    if (const auto& sch = s.schedule) {
+        // The scheme search's own inputs (the report's scheme-search section).
+        std::string heights;
+        for (const double h : sch->surcharge_heights_m) heights += (heights.empty() ? "" : ", ") + fixed(h, 2);
+        rows.emplace_back("scheme search: surcharge heights",
+                          heights.empty() ? "the scenario's own surcharge, or none" : heights + " m");
+        const auto cost = [](const std::optional<double>& c, const char* unit) {
+            return c ? fixed(*c, 2) + " " + unit : std::string("not counted");
+        };
+        const ScheduleCosts& c = sch->costs;
+        rows.emplace_back("scheme search: costs", "fill " + cost(c.fill_per_m3, "per m³") + "; surcharge placed " +
+                                                      cost(c.surcharge_per_m3, "per m³") + ", removed " +
+                                                      cost(c.surcharge_removal_per_m3, "per m³") + "; programme " +
+                                                      cost(c.per_hectare_per_day, "per hectare per day"));
     }
     return rows;
 }

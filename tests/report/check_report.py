@@ -104,6 +104,14 @@ def printed_inputs(text):
         wanted.append("kPa at the drain head")
     if "service_days" in text:
         wanted.append("days of service")
+    if "schedule:" in text:
+        wanted += ["scheme search: surcharge heights", "scheme search: costs", "Scheme search"]
+        for key, unit in (("fill_cost_per_m3", " per m³"), ("cost_per_hectare_per_day", " per hectare per day")):
+            value = number(key)
+            if value is not None:
+                wanted.append(f"{value:.2f}{unit}")
+    if "c_prime_kPa" in text:
+        wanted.append("(the effective-stress stage check)")
     return wanted
 
 
